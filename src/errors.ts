@@ -1,0 +1,122 @@
+/**
+ * The phasewise error family. Every public function validates its arguments at
+ * the boundary and throws one of these classes with a message that names the
+ * argument, states what was expected, what was received and, where possible, a
+ * remedy.
+ *
+ * @module
+ */
+
+/**
+ * Base class of every error phasewise throws on purpose.
+ *
+ * @remarks
+ * `code` is a stable machine-readable tag (`'dimension'`, `'domain'`,
+ * `'singular'`, `'not-positive-definite'`, `'convergence'`, `'parse'`) so that
+ * callers can branch without string matching.
+ * @category Errors
+ */
+export class NumericError extends Error {
+  /** Stable machine-readable tag of the error kind. */
+  readonly code: string;
+  /**
+   * @param message - Human-readable description: argument, requirement, received value, remedy.
+   * @param code - Stable tag of the error kind.
+   */
+  constructor(message: string, code = 'numeric') {
+    super(message);
+    this.name = 'NumericError';
+    this.code = code;
+  }
+}
+
+/**
+ * A matrix, vector or array argument has the wrong shape or length.
+ * @category Errors
+ */
+export class DimensionError extends NumericError {
+  /** @param message - Description naming the argument, expected and received shapes. */
+  constructor(message: string) {
+    super(message, 'dimension');
+    this.name = 'DimensionError';
+  }
+}
+
+/**
+ * A numeric argument lies outside its valid domain (NaN, infinite, negative
+ * where a positive value is required, out of range, not Hermitian, …).
+ * @category Errors
+ */
+export class DomainError extends NumericError {
+  /** @param message - Description naming the argument, valid range and received value. */
+  constructor(message: string) {
+    super(message, 'domain');
+    this.name = 'DomainError';
+  }
+}
+
+/**
+ * A linear system cannot be solved because its matrix is singular (exactly or
+ * to working precision).
+ * @category Errors
+ */
+export class SingularMatrixError extends NumericError {
+  /** Zero-based pivot (or frequency/beam index, where stated) at which singularity was detected, or -1. */
+  readonly index: number;
+  /**
+   * @param message - Description naming the matrix and where it failed.
+   * @param index - Zero-based pivot index at which the failure was detected, or -1.
+   * @param code - Error tag; subclasses override it.
+   */
+  constructor(message: string, index = -1, code = 'singular') {
+    super(message, code);
+    this.name = 'SingularMatrixError';
+    this.index = index;
+  }
+}
+
+/**
+ * A Hermitian matrix that must be positive definite is not (Cholesky found a
+ * non-positive pivot).
+ * @category Errors
+ */
+export class NotPositiveDefiniteError extends SingularMatrixError {
+  /**
+   * @param message - Description naming the matrix and the failing pivot.
+   * @param index - Zero-based pivot at which the Cholesky factorisation failed.
+   */
+  constructor(message: string, index: number) {
+    super(message, index, 'not-positive-definite');
+    this.name = 'NotPositiveDefiniteError';
+  }
+}
+
+/**
+ * An iterative method did not reach its tolerance within its iteration budget.
+ * @category Errors
+ */
+export class ConvergenceError extends NumericError {
+  /** @param message - Description of the method, the budget and the residual reached. */
+  constructor(message: string) {
+    super(message, 'convergence');
+    this.name = 'ConvergenceError';
+  }
+}
+
+/**
+ * Text input (Touchstone, pattern files, CSV tables, design files) is malformed.
+ * @category Errors
+ */
+export class ParseError extends NumericError {
+  /** One-based line number where the problem was found, or 0 when not line-oriented. */
+  readonly line: number;
+  /**
+   * @param message - What was expected and what was found (the line number is prefixed automatically when `line > 0`).
+   * @param line - One-based line number, or 0.
+   */
+  constructor(message: string, line = 0) {
+    super(line > 0 ? `line ${line}: ${message}` : message, 'parse');
+    this.name = 'ParseError';
+    this.line = line;
+  }
+}

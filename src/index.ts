@@ -1,0 +1,8 @@
+/**
+ * phasewise: array electromagnetics and signal-model math for receiving phased arrays.
+ * Conventions (time dependence e^{+jωt}, RMS phasors, SI units, θ from +z, φ from +x,
+ * steering aₙ = exp(+j k r̂·rₙ), beam output y = wᴴx): docs/conventions.md.
+ * @module
+ */
+export * from './errors.js';
+export * from './linalg/index.js';

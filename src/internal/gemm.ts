@@ -1,0 +1,57 @@
+/**
+ * Complex matrix-product kernels on interleaved row-major storage. No checks.
+ * @internal
+ * @module
+ */
+
+/**
+ * C[m×n] (+)= A[m×k]·B[k×n], all interleaved row-major with the given leading
+ * dimensions (in complex elements) and offsets (in complex elements).
+ * The k-loop is unrolled by four so each row of C is loaded and stored once
+ * per four rank-one updates; the inner loop walks a row of B contiguously.
+ * C must not alias A or B.
+ */
+export function gemmKernel(
+  m: number, n: number, k: number,
+  a: Float64Array, offA: number, lda: number,
+  b: Float64Array, offB: number, ldb: number,
+  c: Float64Array, offC: number, ldc: number,
+  accumulate: boolean,
+): void {
+  if (!accumulate) {
+    for (let i = 0; i < m; i++) c.fill(0, 2 * (offC + i * ldc), 2 * (offC + i * ldc + n));
+  }
+  const n2 = 2 * n;
+  for (let i = 0; i < m; i++) {
+    const ci = 2 * (offC + i * ldc);
+    const ai = 2 * (offA + i * lda);
+    let p = 0;
+    for (; p + 3 < k; p += 4) {
+      const ap = ai + 2 * p;
+      const a0r = a[ap], a0i = a[ap + 1], a1r = a[ap + 2], a1i = a[ap + 3];
+      const a2r = a[ap + 4], a2i = a[ap + 5], a3r = a[ap + 6], a3i = a[ap + 7];
+      const b0 = 2 * (offB + p * ldb);
+      const b1 = b0 + 2 * ldb;
+      const b2 = b1 + 2 * ldb;
+      const b3 = b2 + 2 * ldb;
+      for (let j = 0; j < n2; j += 2) {
+        const x0r = b[b0 + j], x0i = b[b0 + j + 1];
+        const x1r = b[b1 + j], x1i = b[b1 + j + 1];
+        const x2r = b[b2 + j], x2i = b[b2 + j + 1];
+        const x3r = b[b3 + j], x3i = b[b3 + j + 1];
+        c[ci + j] += a0r * x0r - a0i * x0i + a1r * x1r - a1i * x1i + a2r * x2r - a2i * x2i + a3r * x3r - a3i * x3i;
+        c[ci + j + 1] += a0r * x0i + a0i * x0r + a1r * x1i + a1i * x1r + a2r * x2i + a2i * x2r + a3r * x3i + a3i * x3r;
+      }
+    }
+    for (; p < k; p++) {
+      const ap = ai + 2 * p;
+      const ar = a[ap], aim = a[ap + 1];
+      const b0 = 2 * (offB + p * ldb);
+      for (let j = 0; j < n2; j += 2) {
+        const xr = b[b0 + j], xi = b[b0 + j + 1];
+        c[ci + j] += ar * xr - aim * xi;
+        c[ci + j + 1] += ar * xi + aim * xr;
+      }
+    }
+  }
+}

@@ -1,0 +1,10 @@
+export type { CMatrix, ComplexLike, CMatrixJSON } from './cmatrix.js';
+export {
+  matrixView, zeros, identity, complexParts, fromRows, fromParts, columnVector, diagonal, clone,
+  entry, setEntry, realPart, imagPart, toRows, matrixToJSON, matrixFromJSON, formatMatrix,
+} from './cmatrix.js';
+export {
+  add, subtract, scale, hadamard, multiply, multiplyInto, adjoint, transpose, conjugate, trace,
+  frobeniusNorm, norm1, normInf, hermitianDeviation, isHermitian, hermitianPart, block, pick, setBlock,
+  column, innerProduct, vectorNorm, quadraticForm, maxAbsDifference, concatColumns, concatRows,
+} from './ops.js';
