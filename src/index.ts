@@ -6,3 +6,4 @@
  */
 export * from './errors.js';
 export * from './linalg/index.js';
+export * from './units/index.js';
