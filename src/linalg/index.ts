@@ -8,3 +8,5 @@ export {
   frobeniusNorm, norm1, normInf, hermitianDeviation, isHermitian, hermitianPart, block, pick, setBlock,
   column, innerProduct, vectorNorm, quadraticForm, maxAbsDifference, concatColumns, concatRows,
 } from './ops.js';
+export type { HermitianEigenOptions, HermitianEigenResult } from './eigen.js';
+export { hermitianEigen } from './eigen.js';
