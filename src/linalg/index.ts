@@ -16,3 +16,5 @@ export type { HermitianEigenOptions, HermitianEigenResult, GeneralizedEigenResul
 export { hermitianEigen, generalizedHermitianEigen } from './eigen.js';
 export type { SvdResult, RankOptions } from './svd.js';
 export { svd, conditionNumber, pseudoInverse, matrixRank } from './svd.js';
+export type { PolynomialRootsOptions } from './roots.js';
+export { polynomialRoots, polynomialFromRoots } from './roots.js';
