@@ -107,6 +107,7 @@ describe('hermitianEigen', () => {
     expect(() => hermitianEigen(fromRows([[1, 0], [0, 1]]).data as unknown as CMatrix)).toThrow(DimensionError);
     const nan = zeros(2, 2); nan.data[2] = NaN;
     expect(() => hermitianEigen(nan)).toThrow(DomainError);
+    expect(() => hermitianEigen(nan)).toThrow(/NaN/);
     const inf = zeros(2, 2); inf.data[7] = -Infinity;
     expect(() => hermitianEigen(inf)).toThrow(DomainError);
     const skew = fromRows([[1, 2], [3, 1]]);
