@@ -87,8 +87,11 @@ export function hadamard(a: CMatrix, b: CMatrix): CMatrix {
  * Matrix product out = a·b into a caller-supplied matrix (allocation-free).
  *
  * @remarks
- * Row-oriented kernel unrolled by four in the inner dimension. `out` must not
- * alias `a` or `b` (checked: a DimensionError is thrown if it does).
+ * Large products (≥ 4096 complex multiply–adds) run in a WebAssembly SIMD
+ * kernel (f64x2 on split real/imaginary planes, assembled at load time);
+ * small ones, and runtimes without WebAssembly SIMD, use a scalar row-oriented
+ * kernel unrolled by four. `out` must not alias `a` or `b` (checked: a
+ * DimensionError is thrown if it does).
  * @param out - Destination, a.rows × b.cols.
  * @param a - Left factor, m×k.
  * @param b - Right factor, k×n.

@@ -1,0 +1,227 @@
+/**
+ * A WebAssembly SIMD (128-bit, f64x2) kernel for the complex matrix product,
+ * assembled at load time from the instruction list below (no build step, no
+ * binary artefact). Used by `multiplyInto` for products large enough to pay
+ * for packing; falls back to the scalar kernel where WebAssembly SIMD is
+ * unavailable. No checks.
+ * @internal
+ * @module
+ */
+
+// ---- a minimal assembler: opcodes of the WebAssembly core and SIMD specs ----
+const I32 = 0x7f, V128 = 0x7b;
+const OP = {
+  block: 0x02, loop: 0x03, end: 0x0b, br: 0x0c, brIf: 0x0d,
+  get: 0x20, set: 0x21, tee: 0x22,
+  f64Load: 0x2b, i32Const: 0x41,
+  i32GeU: 0x4f, i32Add: 0x6a, i32Mul: 0x6c, i32Shl: 0x74,
+} as const;
+const SIMD = { load: 0, store: 11, f64x2Splat: 20, f64x2Add: 240, f64x2Sub: 241, f64x2Mul: 242 } as const;
+
+function uleb(n: number): number[] {
+  const out: number[] = [];
+  do {
+    let b = n & 0x7f;
+    n >>>= 7;
+    if (n !== 0) b |= 0x80;
+    out.push(b);
+  } while (n !== 0);
+  return out;
+}
+function sleb(n: number): number[] {
+  const out: number[] = [];
+  for (;;) {
+    const b = n & 0x7f;
+    n >>= 7;
+    if ((n === 0 && (b & 0x40) === 0) || (n === -1 && (b & 0x40) !== 0)) { out.push(b); return out; }
+    out.push(b | 0x80);
+  }
+}
+const simd = (op: number): number[] => [0xfd, ...uleb(op)];
+const get = (l: number): number[] => [OP.get, ...uleb(l)];
+const set = (l: number): number[] => [OP.set, ...uleb(l)];
+const c32 = (v: number): number[] => [OP.i32Const, ...sleb(v)];
+const vload = (): number[] => [...simd(SIMD.load), 4, 0];
+const vstore = (): number[] => [...simd(SIMD.store), 4, 0];
+const section = (id: number, body: number[]): number[] => [id, ...uleb(body.length), ...body];
+const vec = (items: number[][]): number[] => [...uleb(items.length), ...items.flat()];
+const name = (s: string): number[] => [...uleb(s.length), ...Array.from(s, (ch) => ch.charCodeAt(0))];
+
+/**
+ * zgemmPlanes(m, n, k, pa, lda, pbr, pbi, pcr, pci): for i < m, p < k (k even),
+ * j < n (n even): Cre/Cim[i, j] += A[i, p]·B[p, j]. A interleaved complex with a
+ * row stride of `lda` bytes; B and C as separate real/imaginary planes, row
+ * stride n·8 bytes. Two columns (one f64x2 vector) and two p per step:
+ *   cr += ar₀·br₀ − ai₀·bi₀ + ar₁·br₁ − ai₁·bi₁,  ci += ar₀·bi₀ + ai₀·br₀ + ar₁·bi₁ + ai₁·br₁.
+ */
+function zgemmBody(): number[] {
+  // params 0..8
+  const M = 0, N = 1, K = 2, PA = 3, LDA = 4, PBR = 5, PBI = 6, PCR = 7, PCI = 8;
+  // i32 locals 9..18
+  const I = 9, P = 10, O = 11, ROW = 12, CRR = 13, CRI = 14, B0R = 15, B0I = 16, AP = 17, AROW = 18;
+  // v128 locals 19..26
+  const AR0 = 19, AI0 = 20, AR1 = 21, AI1 = 22, X0R = 23, X0I = 24, X1R = 25, X1I = 26;
+  const addr = (base: number): number[] => [...get(base), ...get(O), OP.i32Add];
+  const addr2 = (base: number): number[] => [...get(base), ...get(O), OP.i32Add, ...get(ROW), OP.i32Add];
+  const splatF64 = (off: number): number[] => [...get(AP), OP.f64Load, 3, ...uleb(off), ...simd(SIMD.f64x2Splat)];
+  const mulAdd = (a: number, x: number, sub: boolean): number[] => [...get(a), ...get(x), ...simd(SIMD.f64x2Mul), ...simd(sub ? SIMD.f64x2Sub : SIMD.f64x2Add)];
+  const code: number[] = [
+    ...get(N), ...c32(3), OP.i32Shl, ...set(ROW),
+    ...c32(0), ...set(I),
+    OP.block, 0x40, OP.loop, 0x40,
+    ...get(I), ...get(M), OP.i32GeU, OP.brIf, 1,
+    ...get(PCR), ...get(I), ...get(ROW), OP.i32Mul, OP.i32Add, ...set(CRR),
+    ...get(PCI), ...get(I), ...get(ROW), OP.i32Mul, OP.i32Add, ...set(CRI),
+    ...get(PA), ...get(I), ...get(LDA), OP.i32Mul, OP.i32Add, ...set(AROW),
+    ...get(AROW), ...set(AP),
+    ...c32(0), ...set(P),
+    OP.block, 0x40, OP.loop, 0x40,
+    ...get(P), ...get(K), OP.i32GeU, OP.brIf, 1,
+    ...splatF64(0), ...set(AR0), ...splatF64(8), ...set(AI0), ...splatF64(16), ...set(AR1), ...splatF64(24), ...set(AI1),
+    ...get(PBR), ...get(P), ...get(ROW), OP.i32Mul, OP.i32Add, ...set(B0R),
+    ...get(PBI), ...get(P), ...get(ROW), OP.i32Mul, OP.i32Add, ...set(B0I),
+    ...c32(0), ...set(O),
+    OP.block, 0x40, OP.loop, 0x40,
+    ...get(O), ...get(ROW), OP.i32GeU, OP.brIf, 1,
+    ...addr(B0R), ...vload(), ...set(X0R),
+    ...addr(B0I), ...vload(), ...set(X0I),
+    ...addr2(B0R), ...vload(), ...set(X1R),
+    ...addr2(B0I), ...vload(), ...set(X1I),
+    // real part
+    ...addr(CRR),
+    ...addr(CRR), ...vload(),
+    ...mulAdd(AR0, X0R, false), ...mulAdd(AI0, X0I, true), ...mulAdd(AR1, X1R, false), ...mulAdd(AI1, X1I, true),
+    ...vstore(),
+    // imaginary part
+    ...addr(CRI),
+    ...addr(CRI), ...vload(),
+    ...mulAdd(AR0, X0I, false), ...mulAdd(AI0, X0R, false), ...mulAdd(AR1, X1I, false), ...mulAdd(AI1, X1R, false),
+    ...vstore(),
+    ...get(O), ...c32(16), OP.i32Add, ...set(O),
+    OP.br, 0,
+    OP.end, OP.end,
+    ...get(P), ...c32(2), OP.i32Add, ...set(P),
+    ...get(AP), ...c32(32), OP.i32Add, ...set(AP),
+    OP.br, 0,
+    OP.end, OP.end,
+    ...get(I), ...c32(1), OP.i32Add, ...set(I),
+    OP.br, 0,
+    OP.end, OP.end,
+    OP.end,
+  ];
+  const locals = vec([[...uleb(10), I32], [...uleb(8), V128]]);
+  const body = [...locals, ...code];
+  return [...uleb(body.length), ...body];
+}
+
+function assemble(): Uint8Array<ArrayBuffer> {
+  const type = [0x60, ...vec(new Array(9).fill([I32])), 0x00];
+  const bytes = [
+    0x00, 0x61, 0x73, 0x6d, 0x01, 0x00, 0x00, 0x00,
+    ...section(1, vec([type])),
+    ...section(3, vec([[0x00]])),
+    ...section(5, vec([[0x00, ...uleb(1)]])),
+    ...section(7, vec([[...name('memory'), 0x02, 0x00], [...name('zgemm'), 0x00, 0x00]])),
+    ...section(10, vec([zgemmBody()])),
+  ];
+  return Uint8Array.from(bytes);
+}
+
+interface ZgemmModule {
+  memory: WebAssembly.Memory;
+  zgemm: (m: number, n: number, k: number, pa: number, lda: number, pbr: number, pbi: number, pcr: number, pci: number) => void;
+}
+
+let instance: ZgemmModule | null | undefined;
+
+function load(): ZgemmModule | null {
+  if (instance !== undefined) return instance;
+  instance = null;
+  try {
+    if (typeof WebAssembly === 'object' && typeof WebAssembly.Module === 'function') {
+      const bytes = assemble();
+      if (WebAssembly.validate(bytes)) {
+        const inst = new WebAssembly.Instance(new WebAssembly.Module(bytes), {});
+        instance = inst.exports as unknown as ZgemmModule;
+      }
+    }
+  } catch {
+    instance = null;
+  }
+  return instance;
+}
+
+/** Whether the SIMD kernel is available in this runtime. */
+export function simdGemmAvailable(): boolean {
+  return load() !== null;
+}
+
+/** Rows of B packed per pass so the B block (two planes) stays within ~256 KiB. */
+function panelRows(nPad: number): number {
+  const rows = Math.floor((256 * 1024) / (16 * nPad));
+  return Math.max(2, rows - (rows & 1));
+}
+
+/**
+ * C[m×n] (+)= alpha·A[m×k]·B[k×n] (alpha real) on interleaved row-major
+ * storage with leading dimensions and offsets in complex elements (the
+ * signature of the scalar `gemmKernel`), computed by the SIMD kernel.
+ * Returns false (doing nothing) when WebAssembly SIMD is unavailable.
+ * A and B are copied into the module memory before C is written, so C may
+ * share a buffer with A or B as long as the regions do not overlap.
+ */
+export function simdGemm(
+  m: number, n: number, k: number,
+  a: Float64Array, offA: number, lda: number,
+  b: Float64Array, offB: number, ldb: number,
+  c: Float64Array, offC: number, ldc: number,
+  accumulate: boolean, alpha: number,
+): boolean {
+  const mod = load();
+  if (mod === null) return false;
+  const nPad = n + (n & 1), kPad = k + (k & 1);
+  // layout (bytes): A (m·kPad·16) | Bre (kPad·nPad·8) | Bim | Cre (m·nPad·8) | Cim
+  const aBytes = m * kPad * 16, bBytes = kPad * nPad * 8, cBytes = m * nPad * 8;
+  const total = aBytes + 2 * bBytes + 2 * cBytes;
+  const mem = mod.memory;
+  if (mem.buffer.byteLength < total) mem.grow(Math.ceil((total - mem.buffer.byteLength) / 65536));
+  const f = new Float64Array(mem.buffer);
+  const pa = 0, pbr = aBytes, pbi = pbr + bBytes, pcr = pbi + bBytes, pci = pcr + cBytes;
+  // A, padded with a zero column when k is odd
+  for (let i = 0; i < m; i++) {
+    const s = 2 * (offA + i * lda);
+    f.set(a.subarray(s, s + 2 * k), 2 * i * kPad);
+    if (kPad !== k) { f[2 * i * kPad + 2 * k] = 0; f[2 * i * kPad + 2 * k + 1] = 0; }
+  }
+  // B planes, zero padding in the extra row/column
+  const br = pbr >> 3, bi = pbi >> 3;
+  for (let p = 0; p < kPad; p++) {
+    const dr = br + p * nPad, di = bi + p * nPad;
+    if (p < k) {
+      const s = 2 * (offB + p * ldb);
+      for (let j = 0; j < n; j++) { f[dr + j] = b[s + 2 * j]; f[di + j] = b[s + 2 * j + 1]; }
+      if (nPad !== n) { f[dr + n] = 0; f[di + n] = 0; }
+    } else {
+      f.fill(0, dr, dr + nPad); f.fill(0, di, di + nPad);
+    }
+  }
+  f.fill(0, pcr >> 3, (pci >> 3) + m * nPad);
+  // k in panels so the B block stays in L2
+  const step = panelRows(nPad);
+  for (let p0 = 0; p0 < kPad; p0 += step) {
+    const kb = Math.min(step, kPad - p0);
+    mod.zgemm(m, nPad, kb, pa + p0 * 16, kPad * 16, pbr + p0 * nPad * 8, pbi + p0 * nPad * 8, pcr, pci);
+  }
+  const cr = pcr >> 3, ci = pci >> 3;
+  for (let i = 0; i < m; i++) {
+    const s = i * nPad, d = 2 * (offC + i * ldc);
+    if (accumulate) {
+      for (let j = 0; j < n; j++) { c[d + 2 * j] += alpha * f[cr + s + j]; c[d + 2 * j + 1] += alpha * f[ci + s + j]; }
+    } else if (alpha === 1) {
+      for (let j = 0; j < n; j++) { c[d + 2 * j] = f[cr + s + j]; c[d + 2 * j + 1] = f[ci + s + j]; }
+    } else {
+      for (let j = 0; j < n; j++) { c[d + 2 * j] = alpha * f[cr + s + j]; c[d + 2 * j + 1] = alpha * f[ci + s + j]; }
+    }
+  }
+  return true;
+}
