@@ -6,6 +6,7 @@
  * @module
  */
 import { ConvergenceError } from '../errors.js';
+import { gemmKernel } from './gemm.js';
 
 /** Result of {@link reduceHermitianToTridiagonal}. */
 export interface TridiagonalReduction {
@@ -243,13 +244,19 @@ export function tridiagonalQl(d: Float64Array, e: Float64Array, n: number, z: Fl
   }
 }
 
+/** Reflectors per block of the back-transformation. */
+const WY_BLOCK = 16;
+
 /**
  * Back-transformation X = Q D Z of the real tridiagonal eigenvectors `z`
  * (n×n, row-major, columns = eigenvectors, possibly fewer columns `cols`) into
  * eigenvectors of the original Hermitian matrix, written to `out`
  * (interleaved complex, n×cols row-major, columns = eigenvectors).
- * Each reflector is applied as a rank-one update X ← X − β u (uᴴ X) whose
- * inner loops run along contiguous rows.
+ * Reflectors are applied in blocks of WY_BLOCK in the compact WY form
+ * H_{k0} ⋯ H_{k1−1} = I − V T Vᴴ, T upper triangular (Schreiber & Van Loan,
+ * "A storage-efficient WY representation for products of Householder
+ * transformations", SIAM J. Sci. Stat. Comput. 10(1), 1989, from memory), so
+ * the work is two matrix products per block (the SIMD product kernel).
  */
 export function backTransform(red: TridiagonalReduction, z: Float64Array, cols: number, out: Float64Array): void {
   const { n, house, beta, phase } = red;
@@ -262,58 +269,58 @@ export function backTransform(red: TridiagonalReduction, z: Float64Array, cols: 
       out[xr + 2 * j + 1] = pi * v;
     }
   }
-  const y = new Float64Array(2 * cols);
-  const c2 = 2 * cols;
-  for (let k = n - 2; k >= 0; k--) {
-    const b = beta[k];
-    if (b === 0) continue;
-    // y = β uᴴ X over rows k+1 … n−1 (two rows per pass: y is loaded once per pair)
-    y.fill(0);
-    let i = k + 1;
-    for (; i + 1 < n; i += 2) {
-      const u = 2 * (i * n + k), u1 = u + 2 * n;
-      const ur = house[u], ui = house[u + 1], vr = house[u1], vi = house[u1 + 1];
-      const row = i * c2, row1 = row + c2;
-      for (let j = 0; j < c2; j += 2) {
-        const xr = out[row + j], xi = out[row + j + 1];
-        const wr = out[row1 + j], wi = out[row1 + j + 1];
-        y[j] += ur * xr + ui * xi + vr * wr + vi * wi;
-        y[j + 1] += ur * xi - ui * xr + vr * wi - vi * wr;
+  const nRefl = n - 2; // reflectors 0 … n−3 (H_{n−2} is always the identity)
+  if (nRefl <= 0) return;
+  const vb = new Float64Array(2 * n * WY_BLOCK);
+  const vh = new Float64Array(2 * n * WY_BLOCK);
+  const t = new Float64Array(2 * WY_BLOCK * WY_BLOCK);
+  const w = new Float64Array(2 * WY_BLOCK * cols);
+  const w2 = new Float64Array(2 * WY_BLOCK * cols);
+  const tmp = new Float64Array(2 * WY_BLOCK);
+  const lastStart = Math.floor((nRefl - 1) / WY_BLOCK) * WY_BLOCK;
+  for (let k0 = lastStart; k0 >= 0; k0 -= WY_BLOCK) {
+    const nb = Math.min(WY_BLOCK, nRefl - k0);
+    const r0 = k0 + 1, mm = n - r0;
+    // V (mm×nb): column c = u_{k0+c}, zero above its first entry; Vᴴ (nb×mm)
+    for (let r = 0; r < mm; r++) {
+      const row = r0 + r;
+      for (let c = 0; c < nb; c++) {
+        const k = k0 + c;
+        let vr = 0, vi = 0;
+        if (row >= k + 1 && beta[k] !== 0) { vr = house[2 * (row * n + k)]; vi = house[2 * (row * n + k) + 1]; }
+        vb[2 * (r * nb + c)] = vr; vb[2 * (r * nb + c) + 1] = vi;
+        vh[2 * (c * mm + r)] = vr; vh[2 * (c * mm + r) + 1] = -vi;
       }
     }
-    if (i < n) {
-      const u = 2 * (i * n + k);
-      const ur = house[u], ui = house[u + 1];
-      const row = i * c2;
-      for (let j = 0; j < c2; j += 2) {
-        const xr = out[row + j], xi = out[row + j + 1];
-        y[j] += ur * xr + ui * xi;
-        y[j + 1] += ur * xi - ui * xr;
+    // T: T[c,c] = β; T[0:c, c] = −β T[0:c, 0:c] (V[:, 0:c]ᴴ v_c)
+    t.fill(0);
+    for (let c = 0; c < nb; c++) {
+      const b = beta[k0 + c];
+      t[2 * (c * nb + c)] = b;
+      if (b === 0) continue;
+      for (let q = 0; q < c; q++) {
+        let sr = 0, si = 0;
+        for (let r = 0; r < mm; r++) {
+          const ar = vh[2 * (q * mm + r)], ai = vh[2 * (q * mm + r) + 1];
+          const br = vb[2 * (r * nb + c)], bi = vb[2 * (r * nb + c) + 1];
+          sr += ar * br - ai * bi;
+          si += ar * bi + ai * br;
+        }
+        tmp[2 * q] = sr; tmp[2 * q + 1] = si;
+      }
+      for (let q = 0; q < c; q++) {
+        let sr = 0, si = 0;
+        for (let p = q; p < c; p++) {
+          const ar = t[2 * (q * nb + p)], ai = t[2 * (q * nb + p) + 1];
+          sr += ar * tmp[2 * p] - ai * tmp[2 * p + 1];
+          si += ar * tmp[2 * p + 1] + ai * tmp[2 * p];
+        }
+        t[2 * (q * nb + c)] = -b * sr; t[2 * (q * nb + c) + 1] = -b * si;
       }
     }
-    for (let j = 0; j < c2; j++) y[j] *= b;
-    i = k + 1;
-    for (; i + 1 < n; i += 2) {
-      const u = 2 * (i * n + k), u1 = u + 2 * n;
-      const ur = house[u], ui = house[u + 1], vr = house[u1], vi = house[u1 + 1];
-      const row = i * c2, row1 = row + c2;
-      for (let j = 0; j < c2; j += 2) {
-        const yr = y[j], yi = y[j + 1];
-        out[row + j] -= ur * yr - ui * yi;
-        out[row + j + 1] -= ur * yi + ui * yr;
-        out[row1 + j] -= vr * yr - vi * yi;
-        out[row1 + j + 1] -= vr * yi + vi * yr;
-      }
-    }
-    if (i < n) {
-      const u = 2 * (i * n + k);
-      const ur = house[u], ui = house[u + 1];
-      const row = i * c2;
-      for (let j = 0; j < c2; j += 2) {
-        const yr = y[j], yi = y[j + 1];
-        out[row + j] -= ur * yr - ui * yi;
-        out[row + j + 1] -= ur * yi + ui * yr;
-      }
-    }
+    // X[r0:n] −= V (T (Vᴴ X[r0:n]))
+    gemmKernel(nb, cols, mm, vh, 0, mm, out, r0 * cols, cols, w, 0, cols, false, 1);
+    gemmKernel(nb, cols, nb, t, 0, nb, w, 0, cols, w2, 0, cols, false, 1);
+    gemmKernel(mm, cols, nb, vb, 0, nb, w2, 0, cols, out, r0 * cols, cols, true, -1);
   }
 }
