@@ -47,61 +47,68 @@ const section = (id: number, body: number[]): number[] => [id, ...uleb(body.leng
 const vec = (items: number[][]): number[] => [...uleb(items.length), ...items.flat()];
 const name = (s: string): number[] => [...uleb(s.length), ...Array.from(s, (ch) => ch.charCodeAt(0))];
 
+/** Inner-dimension unroll of the SIMD kernel (k is padded to a multiple of it); 3 measured fastest of 2, 3, 4 (4 spills registers). */
+export const SIMD_UNROLL = 3;
+
 /**
- * zgemmPlanes(m, n, k, pa, lda, pbr, pbi, pcr, pci): for i < m, p < k (k even),
- * j < n (n even): Cre/Cim[i, j] += A[i, p]·B[p, j]. A interleaved complex with a
- * row stride of `lda` bytes; B and C as separate real/imaginary planes, row
- * stride n·8 bytes. Two columns (one f64x2 vector) and two p per step:
- *   cr += ar₀·br₀ − ai₀·bi₀ + ar₁·br₁ − ai₁·bi₁,  ci += ar₀·bi₀ + ai₀·br₀ + ar₁·bi₁ + ai₁·br₁.
+ * zgemm(m, n, k, pa, lda, pbr, pbi, pcr, pci): for i < m, p < k (k a multiple
+ * of SIMD_UNROLL), j < n (n even): Cre/Cim[i, j] += A[i, p]·B[p, j]. A
+ * interleaved complex with a row stride of `lda` bytes; B and C as separate
+ * real/imaginary planes, row stride n·8 bytes. Per step: two columns (one
+ * f64x2 vector) and SIMD_UNROLL values of p, with C loaded and stored once:
+ *   cr += Σᵤ (arᵤ·brᵤ − aiᵤ·biᵤ),  ci += Σᵤ (arᵤ·biᵤ + aiᵤ·brᵤ).
  */
 function zgemmBody(): number[] {
+  const U = SIMD_UNROLL;
   // params 0..8
   const M = 0, N = 1, K = 2, PA = 3, LDA = 4, PBR = 5, PBI = 6, PCR = 7, PCI = 8;
-  // i32 locals 9..18
-  const I = 9, P = 10, O = 11, ROW = 12, CRR = 13, CRI = 14, B0R = 15, B0I = 16, AP = 17, AROW = 18;
-  // v128 locals 19..26
-  const AR0 = 19, AI0 = 20, AR1 = 21, AI1 = 22, X0R = 23, X0I = 24, X1R = 25, X1I = 26;
+  // i32 locals 9..(17+U)
+  const I = 9, P = 10, O = 11, ROW = 12, CRR = 13, CRI = 14, B0R = 15, B0I = 16, AP = 17;
+  const RU = (u: number): number => 18 + u; // u·ROW, u = 0 … U−1
+  const nI32 = 9 + U;
+  // v128 locals: AR, AI, XR, XI per u
+  const V0 = 9 + nI32;
+  const AR = (u: number): number => V0 + u, AI = (u: number): number => V0 + U + u;
+  const XR = (u: number): number => V0 + 2 * U + u, XI = (u: number): number => V0 + 3 * U + u;
   const addr = (base: number): number[] => [...get(base), ...get(O), OP.i32Add];
-  const addr2 = (base: number): number[] => [...get(base), ...get(O), OP.i32Add, ...get(ROW), OP.i32Add];
+  const addrU = (base: number, u: number): number[] => (u === 0 ? addr(base) : [...addr(base), ...get(RU(u)), OP.i32Add]);
   const splatF64 = (off: number): number[] => [...get(AP), OP.f64Load, 3, ...uleb(off), ...simd(SIMD.f64x2Splat)];
   const mulAdd = (a: number, x: number, sub: boolean): number[] => [...get(a), ...get(x), ...simd(SIMD.f64x2Mul), ...simd(sub ? SIMD.f64x2Sub : SIMD.f64x2Add)];
+  const perU = (f: (u: number) => number[]): number[] => Array.from({ length: U }, (_, u) => f(u)).flat();
   const code: number[] = [
     ...get(N), ...c32(3), OP.i32Shl, ...set(ROW),
+    ...perU((u) => [...get(ROW), ...c32(u), OP.i32Mul, ...set(RU(u))]),
     ...c32(0), ...set(I),
     OP.block, 0x40, OP.loop, 0x40,
     ...get(I), ...get(M), OP.i32GeU, OP.brIf, 1,
     ...get(PCR), ...get(I), ...get(ROW), OP.i32Mul, OP.i32Add, ...set(CRR),
     ...get(PCI), ...get(I), ...get(ROW), OP.i32Mul, OP.i32Add, ...set(CRI),
-    ...get(PA), ...get(I), ...get(LDA), OP.i32Mul, OP.i32Add, ...set(AROW),
-    ...get(AROW), ...set(AP),
+    ...get(PA), ...get(I), ...get(LDA), OP.i32Mul, OP.i32Add, ...set(AP),
     ...c32(0), ...set(P),
     OP.block, 0x40, OP.loop, 0x40,
     ...get(P), ...get(K), OP.i32GeU, OP.brIf, 1,
-    ...splatF64(0), ...set(AR0), ...splatF64(8), ...set(AI0), ...splatF64(16), ...set(AR1), ...splatF64(24), ...set(AI1),
+    ...perU((u) => [...splatF64(16 * u), ...set(AR(u)), ...splatF64(16 * u + 8), ...set(AI(u))]),
     ...get(PBR), ...get(P), ...get(ROW), OP.i32Mul, OP.i32Add, ...set(B0R),
     ...get(PBI), ...get(P), ...get(ROW), OP.i32Mul, OP.i32Add, ...set(B0I),
     ...c32(0), ...set(O),
     OP.block, 0x40, OP.loop, 0x40,
     ...get(O), ...get(ROW), OP.i32GeU, OP.brIf, 1,
-    ...addr(B0R), ...vload(), ...set(X0R),
-    ...addr(B0I), ...vload(), ...set(X0I),
-    ...addr2(B0R), ...vload(), ...set(X1R),
-    ...addr2(B0I), ...vload(), ...set(X1I),
+    ...perU((u) => [...addrU(B0R, u), ...vload(), ...set(XR(u)), ...addrU(B0I, u), ...vload(), ...set(XI(u))]),
     // real part
     ...addr(CRR),
     ...addr(CRR), ...vload(),
-    ...mulAdd(AR0, X0R, false), ...mulAdd(AI0, X0I, true), ...mulAdd(AR1, X1R, false), ...mulAdd(AI1, X1I, true),
+    ...perU((u) => [...mulAdd(AR(u), XR(u), false), ...mulAdd(AI(u), XI(u), true)]),
     ...vstore(),
     // imaginary part
     ...addr(CRI),
     ...addr(CRI), ...vload(),
-    ...mulAdd(AR0, X0I, false), ...mulAdd(AI0, X0R, false), ...mulAdd(AR1, X1I, false), ...mulAdd(AI1, X1R, false),
+    ...perU((u) => [...mulAdd(AR(u), XI(u), false), ...mulAdd(AI(u), XR(u), false)]),
     ...vstore(),
     ...get(O), ...c32(16), OP.i32Add, ...set(O),
     OP.br, 0,
     OP.end, OP.end,
-    ...get(P), ...c32(2), OP.i32Add, ...set(P),
-    ...get(AP), ...c32(32), OP.i32Add, ...set(AP),
+    ...get(P), ...c32(U), OP.i32Add, ...set(P),
+    ...get(AP), ...c32(16 * U), OP.i32Add, ...set(AP),
     OP.br, 0,
     OP.end, OP.end,
     ...get(I), ...c32(1), OP.i32Add, ...set(I),
@@ -109,7 +116,7 @@ function zgemmBody(): number[] {
     OP.end, OP.end,
     OP.end,
   ];
-  const locals = vec([[...uleb(10), I32], [...uleb(8), V128]]);
+  const locals = vec([[...uleb(nI32), I32], [...uleb(4 * U), V128]]);
   const body = [...locals, ...code];
   return [...uleb(body.length), ...body];
 }
@@ -159,7 +166,7 @@ export function simdGemmAvailable(): boolean {
 /** Rows of B packed per pass so the B block (two planes) stays within ~256 KiB. */
 function panelRows(nPad: number): number {
   const rows = Math.floor((256 * 1024) / (16 * nPad));
-  return Math.max(2, rows - (rows & 1));
+  return Math.max(SIMD_UNROLL, rows - (rows % SIMD_UNROLL));
 }
 
 /**
@@ -179,7 +186,7 @@ export function simdGemm(
 ): boolean {
   const mod = load();
   if (mod === null) return false;
-  const nPad = n + (n & 1), kPad = k + (k & 1);
+  const nPad = n + (n & 1), kPad = Math.ceil(k / SIMD_UNROLL) * SIMD_UNROLL;
   // layout (bytes): A (m·kPad·16) | Bre (kPad·nPad·8) | Bim | Cre (m·nPad·8) | Cim
   const aBytes = m * kPad * 16, bBytes = kPad * nPad * 8, cBytes = m * nPad * 8;
   const total = aBytes + 2 * bBytes + 2 * cBytes;
@@ -187,11 +194,11 @@ export function simdGemm(
   if (mem.buffer.byteLength < total) mem.grow(Math.ceil((total - mem.buffer.byteLength) / 65536));
   const f = new Float64Array(mem.buffer);
   const pa = 0, pbr = aBytes, pbi = pbr + bBytes, pcr = pbi + bBytes, pci = pcr + cBytes;
-  // A, padded with a zero column when k is odd
+  // A, padded with zero columns up to a multiple of SIMD_UNROLL
   for (let i = 0; i < m; i++) {
     const s = 2 * (offA + i * lda);
     f.set(a.subarray(s, s + 2 * k), 2 * i * kPad);
-    if (kPad !== k) { f[2 * i * kPad + 2 * k] = 0; f[2 * i * kPad + 2 * k + 1] = 0; }
+    if (kPad !== k) f.fill(0, 2 * (i * kPad + k), 2 * (i + 1) * kPad);
   }
   // B planes, zero padding in the extra row/column
   const br = pbr >> 3, bi = pbi >> 3;
