@@ -8,44 +8,7 @@
  * @module
  */
 
-// ---- a minimal assembler: opcodes of the WebAssembly core and SIMD specs ----
-const I32 = 0x7f, V128 = 0x7b;
-const OP = {
-  block: 0x02, loop: 0x03, end: 0x0b, br: 0x0c, brIf: 0x0d,
-  get: 0x20, set: 0x21, tee: 0x22,
-  f64Load: 0x2b, i32Const: 0x41,
-  i32GeU: 0x4f, i32Add: 0x6a, i32Mul: 0x6c, i32Shl: 0x74,
-} as const;
-const SIMD = { load: 0, store: 11, f64x2Splat: 20, f64x2Add: 240, f64x2Sub: 241, f64x2Mul: 242 } as const;
-
-function uleb(n: number): number[] {
-  const out: number[] = [];
-  do {
-    let b = n & 0x7f;
-    n >>>= 7;
-    if (n !== 0) b |= 0x80;
-    out.push(b);
-  } while (n !== 0);
-  return out;
-}
-function sleb(n: number): number[] {
-  const out: number[] = [];
-  for (;;) {
-    const b = n & 0x7f;
-    n >>= 7;
-    if ((n === 0 && (b & 0x40) === 0) || (n === -1 && (b & 0x40) !== 0)) { out.push(b); return out; }
-    out.push(b | 0x80);
-  }
-}
-const simd = (op: number): number[] => [0xfd, ...uleb(op)];
-const get = (l: number): number[] => [OP.get, ...uleb(l)];
-const set = (l: number): number[] => [OP.set, ...uleb(l)];
-const c32 = (v: number): number[] => [OP.i32Const, ...sleb(v)];
-const vload = (): number[] => [...simd(SIMD.load), 4, 0];
-const vstore = (): number[] => [...simd(SIMD.store), 4, 0];
-const section = (id: number, body: number[]): number[] => [id, ...uleb(body.length), ...body];
-const vec = (items: number[][]): number[] => [...uleb(items.length), ...items.flat()];
-const name = (s: string): number[] => [...uleb(s.length), ...Array.from(s, (ch) => ch.charCodeAt(0))];
+import { I32, OP, SIMD, V128, c32, functionBody, get, instantiate, set, simd, uleb, vload, vstore } from './wasm-assembler.js';
 
 /** Inner-dimension unroll of the SIMD kernel (k is padded to a multiple of it); 3 measured fastest of 2, 3, 4 (4 spills registers). */
 export const SIMD_UNROLL = 3;
@@ -114,24 +77,8 @@ function zgemmBody(): number[] {
     ...get(I), ...c32(1), OP.i32Add, ...set(I),
     OP.br, 0,
     OP.end, OP.end,
-    OP.end,
   ];
-  const locals = vec([[...uleb(nI32), I32], [...uleb(4 * U), V128]]);
-  const body = [...locals, ...code];
-  return [...uleb(body.length), ...body];
-}
-
-function assemble(): Uint8Array<ArrayBuffer> {
-  const type = [0x60, ...vec(new Array(9).fill([I32])), 0x00];
-  const bytes = [
-    0x00, 0x61, 0x73, 0x6d, 0x01, 0x00, 0x00, 0x00,
-    ...section(1, vec([type])),
-    ...section(3, vec([[0x00]])),
-    ...section(5, vec([[0x00, ...uleb(1)]])),
-    ...section(7, vec([[...name('memory'), 0x02, 0x00], [...name('zgemm'), 0x00, 0x00]])),
-    ...section(10, vec([zgemmBody()])),
-  ];
-  return Uint8Array.from(bytes);
+  return functionBody([[nI32, I32], [4 * U, V128]], code);
 }
 
 interface ZgemmModule {
@@ -142,19 +89,7 @@ interface ZgemmModule {
 let instance: ZgemmModule | null | undefined;
 
 function load(): ZgemmModule | null {
-  if (instance !== undefined) return instance;
-  instance = null;
-  try {
-    if (typeof WebAssembly === 'object' && typeof WebAssembly.Module === 'function') {
-      const bytes = assemble();
-      if (WebAssembly.validate(bytes)) {
-        const inst = new WebAssembly.Instance(new WebAssembly.Module(bytes), {});
-        instance = inst.exports as unknown as ZgemmModule;
-      }
-    }
-  } catch {
-    instance = null;
-  }
+  if (instance === undefined) instance = instantiate<ZgemmModule>([{ name: 'zgemm', params: 9, body: zgemmBody() }]);
   return instance;
 }
 
