@@ -7,6 +7,7 @@
  */
 import { ConvergenceError } from '../errors.js';
 import { gemmKernel } from './gemm.js';
+import { rotationWorkspace } from './rotations-wasm.js';
 
 /** Result of {@link reduceHermitianToTridiagonal}. */
 export interface TridiagonalReduction {
@@ -159,8 +160,12 @@ export function reduceHermitianToTridiagonal(w: Float64Array, n: number): Tridia
 export function tridiagonalQl(d: Float64Array, e: Float64Array, n: number, z: Float64Array | null, maxIterPerValue = 60): void {
   const eps = 2.220446049250313e-16;
   const tiny = 2.2250738585072014e-308;
-  const cs = new Float64Array(n);
-  const sn = new Float64Array(n);
+  // With WebAssembly SIMD the rotations go to a transposed copy Zt in the
+  // module memory (see rotations-wasm.ts); otherwise to z by the scalar loop.
+  const ws = z !== null ? rotationWorkspace(n) : null;
+  const cs = ws !== null ? ws.view : new Float64Array(n);
+  const sn = ws !== null ? ws.view : new Float64Array(n);
+  const cOff = ws !== null ? ws.cOffset : 0, sOff = ws !== null ? ws.sOffset : 0;
   e[n - 1] = 0;
   for (let l = 0; l < n; l++) {
     let iter = 0;
@@ -199,10 +204,12 @@ export function tridiagonalQl(d: Float64Array, e: Float64Array, n: number, z: Fl
         p = s * r;
         d[i + 1] = g + p;
         g = c * r - b;
-        cs[i] = c;
-        sn[i] = s;
+        cs[cOff + i] = c;
+        sn[sOff + i] = s;
       }
-      if (z !== null) {
+      if (ws !== null) {
+        ws.apply(i + 1, m);
+      } else if (z !== null) {
         // Rotations i = m−1 … lo (lo = i+1 after an underflow break, else l).
         const lo = i + 1;
         // Four rows at a time: four independent carries keep the pipeline full.
@@ -241,6 +248,10 @@ export function tridiagonalQl(d: Float64Array, e: Float64Array, n: number, z: Fl
       e[l] = g;
       e[m] = 0;
     }
+  }
+  if (ws !== null && z !== null) {
+    const v = ws.view, st = ws.stride;
+    for (let k = 0; k < n; k++) for (let t = 0; t < n; t++) z[k * n + t] = v[t * st + k];
   }
 }
 

@@ -6,6 +6,12 @@
  * @module
  */
 
+/**
+ * Switch for tests and benchmarks: with `enabled` false every kernel reports
+ * WebAssembly SIMD as unavailable and the scalar fallbacks run.
+ */
+export const wasmSettings = { enabled: true };
+
 /** Value types. */
 export const I32 = 0x7f, V128 = 0x7b;
 /** Core opcodes used by the kernels. */

@@ -8,7 +8,7 @@
  * @module
  */
 
-import { I32, OP, SIMD, V128, c32, functionBody, get, instantiate, set, simd, uleb, vload, vstore } from './wasm-assembler.js';
+import { I32, OP, SIMD, V128, c32, functionBody, get, instantiate, set, simd, uleb, vload, vstore, wasmSettings } from './wasm-assembler.js';
 
 /** Inner-dimension unroll of the SIMD kernel (k is padded to a multiple of it); 3 measured fastest of 2, 3, 4 (4 spills registers). */
 export const SIMD_UNROLL = 3;
@@ -90,7 +90,7 @@ let instance: ZgemmModule | null | undefined;
 
 function load(): ZgemmModule | null {
   if (instance === undefined) instance = instantiate<ZgemmModule>([{ name: 'zgemm', params: 9, body: zgemmBody() }]);
-  return instance;
+  return wasmSettings.enabled ? instance : null;
 }
 
 /** Whether the SIMD kernel is available in this runtime. */

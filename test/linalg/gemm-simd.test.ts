@@ -5,7 +5,7 @@ import { simdGemm, simdGemmAvailable } from '../../src/internal/zgemm-wasm.js';
 import { multiply, multiplyInto } from '../../src/linalg/ops.js';
 import { zeros } from '../../src/linalg/cmatrix.js';
 import { DimensionError } from '../../src/errors.js';
-import { expectCMatrixClose, randomMatrix } from '../helpers/matchers.js';
+import { expectCMatrixClose, randomMatrix, subspaceMismatch } from '../helpers/matchers.js';
 
 const EPS = Number.EPSILON;
 
@@ -78,5 +78,31 @@ describe('complex product kernels (SIMD and scalar)', () => {
   it('multiplyInto still rejects an out that shares storage with an operand', () => {
     const a = zeros(40, 40);
     expect(() => multiplyInto(a, a, zeros(40, 40))).toThrow(DimensionError);
+  });
+});
+
+describe('scalar fallbacks (WebAssembly SIMD switched off) agree with the SIMD paths', () => {
+  it('product, Cholesky solve with many right-hand sides, Hermitian eigen', async () => {
+    const { wasmSettings } = await import('../../src/internal/wasm-assembler.js');
+    const { hermitianEigen } = await import('../../src/linalg/eigen.js');
+    const { choleskyFactor, choleskySolve } = await import('../../src/linalg/cholesky.js');
+    const { hermitianPart } = await import('../../src/linalg/ops.js');
+    const { randomHpd } = await import('../helpers/matchers.js');
+    const a = randomMatrix(40, 37, 1), b = randomMatrix(37, 45, 2);
+    const h = hermitianPart(randomMatrix(48, 48, 3));
+    const spd = randomHpd(33, 4), rhs = randomMatrix(33, 70, 5);
+    const run = () => ({ p: multiply(a, b), e: hermitianEigen(h), x: choleskySolve(choleskyFactor(spd), rhs) });
+    const withSimd = run();
+    wasmSettings.enabled = false;
+    try {
+      expect(simdGemmAvailable()).toBe(false);
+      const scalar = run();
+      expectCMatrixClose(scalar.p, withSimd.p, { rtol: 100 * EPS });
+      expectCMatrixClose(scalar.x, withSimd.x, { rtol: 1e-12 });
+      for (let i = 0; i < 48; i++) expect(Math.abs(scalar.e.values[i] - withSimd.e.values[i])).toBeLessThan(1e-13);
+      expect(subspaceMismatch(scalar.e.vectors!, withSimd.e.vectors!, withSimd.e.values, { clusterTol: 1e-9, scale: 48 * 10 })).toBeLessThanOrEqual(1);
+    } finally {
+      wasmSettings.enabled = true;
+    }
   });
 });
