@@ -8,6 +8,7 @@
 import { ConvergenceError } from '../errors.js';
 import { gemmKernel } from './gemm.js';
 import { rotationWorkspace } from './rotations-wasm.js';
+import { rank2Workspace } from './tridiagonal-wasm.js';
 
 /** Result of {@link reduceHermitianToTridiagonal}. */
 export interface TridiagonalReduction {
@@ -38,7 +39,15 @@ export interface TridiagonalReduction {
  * by the diagonal phase similarity D (Wilkinson & Reinsch, Handbook for
  * Automatic Computation II, 1971, contribution II/2 "htridi", from memory).
  */
-export function reduceHermitianToTridiagonal(w: Float64Array, n: number): TridiagonalReduction {
+export function reduceHermitianToTridiagonal(house: Float64Array, n: number): TridiagonalReduction {
+  // With WebAssembly SIMD the matrix is worked on in the module memory and the
+  // rank-two update runs there (tridiagonal-wasm.ts); copied back at the end.
+  const ws = n > 8 ? rank2Workspace(n) : null;
+  let w = house;
+  if (ws !== null) {
+    ws.view.set(house.subarray(0, 2 * n * n), 0);
+    w = ws.view;
+  }
   const d = new Float64Array(n);
   const e = new Float64Array(n);
   const er = new Float64Array(n); // complex sub-diagonal before the phase fix
@@ -106,6 +115,22 @@ export function reduceHermitianToTridiagonal(w: Float64Array, n: number): Tridia
       p[2 * i + 1] -= kk * w[ui + 1];
     }
     // A ← A − u qᴴ − q uᴴ on the lower triangle of the trailing block.
+    if (ws !== null) {
+      const v = ws.view;
+      for (let i = k1; i < n; i++) {
+        const ui = 2 * (i * n + k);
+        const ur = w[ui], uim = w[ui + 1], qr = p[2 * i], qi = p[2 * i + 1];
+        const t = 2 * i;
+        v[ws.qc + t] = qr; v[ws.qc + t + 1] = -qi; v[ws.qs + t] = qi; v[ws.qs + t + 1] = qr;
+        v[ws.uc + t] = ur; v[ws.uc + t + 1] = -uim; v[ws.us + t] = uim; v[ws.us + t + 1] = ur;
+        v[ws.u + t] = ur; v[ws.u + t + 1] = uim; v[ws.q + t] = qr; v[ws.q + t + 1] = qi;
+        const a = 2 * (i * n + i);
+        w[a] -= 2 * (ur * qr + uim * qi);
+        w[a + 1] = 0;
+      }
+      ws.update(k1);
+      continue;
+    }
     for (let i = k1; i < n; i++) {
       const ui = 2 * (i * n + k);
       const uir = w[ui], uii = w[ui + 1];
@@ -126,6 +151,7 @@ export function reduceHermitianToTridiagonal(w: Float64Array, n: number): Tridia
     }
   }
   if (n > 0) d[n - 1] = w[2 * ((n - 1) * n + (n - 1))];
+  if (ws !== null) house.set(w.subarray(0, 2 * n * n), 0);
   // Phase fix-up: δ_0 = 1, δ_{i+1} = δ_i e_i / |e_i| makes T′ = Dᴴ T D real.
   const phase = new Float64Array(2 * n);
   if (n > 0) phase[0] = 1;
@@ -142,7 +168,7 @@ export function reduceHermitianToTridiagonal(w: Float64Array, n: number): Tridia
       phase[2 * i + 3] = di;
     }
   }
-  return { n, d, e, house: w, beta, phase };
+  return { n, d, e, house, beta, phase };
 }
 
 /**
