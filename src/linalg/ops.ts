@@ -279,13 +279,19 @@ export function hermitianDeviation(a: CMatrix): number {
   const n = a.rows, d = a.data;
   let dev = 0, mag = 0;
   for (let k = 0; k < d.length; k++) mag = Math.max(mag, Math.abs(d[k]));
+  // squared moduli in the loop (Math.hypot per entry is slow); entries are
+  // first scaled by 1/mag so the squares cannot overflow
+  if (mag === 0) return 0;
+  const inv = 1 / mag;
   for (let i = 0; i < n; i++) {
     for (let j = i; j < n; j++) {
       const p = 2 * (i * n + j), q = 2 * (j * n + i);
-      dev = Math.max(dev, Math.hypot(d[p] - d[q], d[p + 1] + d[q + 1]));
+      const dr = d[p] * inv - d[q] * inv, di = d[p + 1] * inv + d[q + 1] * inv;
+      const s = dr * dr + di * di;
+      if (s > dev) dev = s;
     }
   }
-  return mag === 0 ? 0 : dev / mag;
+  return Math.sqrt(dev);
 }
 
 /**
