@@ -14,3 +14,5 @@ export type { GratingLobe } from './gratingLobes.js';
 export { gratingLobes, lineGratingLobes } from './gratingLobes.js';
 export type { UvPatternFigures } from './uvFigures.js';
 export { uvPatternFigures } from './uvFigures.js';
+export type { FftGridArrayFactor } from './gridPaths.js';
+export { separableGridArrayFactor, fftGridArrayFactor, fftGridArrayFactorInto } from './gridPaths.js';
