@@ -1,0 +1,13 @@
+export type { TaperNormalization, TaperOptions } from './normalize.js';
+export { normalizeTaper } from './normalize.js';
+export type { TaperWarning, TaperWarningCode } from './warning.js';
+export type { LineDistribution, RadialDistribution, LineSampleOptions, RadialSampleOptions } from './aperture.js';
+export { sampleLineDistribution, sampleRadialDistribution } from './aperture.js';
+export { uniformTaper } from './uniform.js';
+export { binomialTaper } from './binomial.js';
+export { cosineDistribution, cosineSquaredDistribution, cosineTaper, cosineSquaredTaper } from './cosine.js';
+export { dolphChebyshevTaper } from './chebyshev.js';
+export type { TaylorLineSourceDesign, TaylorTaperResult } from './taylor.js';
+export { taylorLineSource, taylorTaper } from './taylor.js';
+export type { TaperWeights } from './efficiency.js';
+export { taperEfficiency, directivityLossDb } from './efficiency.js';
