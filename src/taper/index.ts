@@ -17,3 +17,5 @@ export { besselJ1Zeros } from './besselZeros.js';
 export type { CircularTaylorDesign, CircularTaylorTaperResult } from './circularTaylor.js';
 export { circularTaylorAperture, circularTaylorTaper } from './circularTaylor.js';
 export { separableTaper } from './separable.js';
+export type { NullSynthesisResult } from './nulls.js';
+export { schelkunoffNulls, projectNulls } from './nulls.js';
