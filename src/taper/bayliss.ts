@@ -7,6 +7,7 @@ import { ConvergenceError } from '../errors.js';
 import { assertInteger } from '../internal/validate.js';
 import { sampleUniformLine, type LineDistribution } from './aperture.js';
 import { assertElementCount, assertSidelobeLevel, type TaperOptions } from './normalize.js';
+import { dilatedZeros, taylorA } from './design.js';
 import { sincPi, type TaperWarning } from './warning.js';
 
 /**
@@ -114,11 +115,9 @@ export function baylissLineSource(sllDb: number, nbar: number): BaylissLineSourc
   assertSidelobeLevel('sllDb', sllDb);
   assertInteger('nbar', nbar, 1, 60);
   const m = nbar - 1;
-  const r = Math.pow(10, sllDb / 20);
-  const a = Math.log(r + Math.sqrt((r - 1) * (r + 1))) / Math.PI;
+  const a = taylorA(sllDb);
   const sigma = (nbar + 0.5) / Math.sqrt(a * a + nbar * nbar);
-  let zeros = new Float64Array(m);
-  for (let k = 1; k <= m; k++) zeros[k - 1] = sigma * Math.sqrt(a * a + k * k);
+  let zeros = dilatedZeros(a, sigma, m, 0);
   const target = -(sllDb / 20) * Math.LN10;
   const edges = (z: Float64Array): number[] => [0, ...z, nbar + 0.5];
   const evaluate = (z: Float64Array) => {

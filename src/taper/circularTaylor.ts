@@ -7,6 +7,7 @@ import besselj1 from '@stdlib/math-base-special-besselj1';
 import { assertInteger } from '../internal/validate.js';
 import { sampleRadialDistribution, type RadialDistribution, type RadialSampleOptions } from './aperture.js';
 import { besselJ1Zeros } from './besselZeros.js';
+import { dilatedZeros, isMonotonicDecreasing, taylorA } from './design.js';
 import { assertSidelobeLevel } from './normalize.js';
 import type { TaperWarning } from './warning.js';
 
@@ -68,14 +69,12 @@ export interface CircularTaylorTaperResult extends CircularTaylorDesign {
 export function circularTaylorAperture(sllDb: number, nbar: number): CircularTaylorDesign {
   assertSidelobeLevel('sllDb', sllDb);
   assertInteger('nbar', nbar, 1, 1000);
-  const r = Math.pow(10, sllDb / 20);
-  const a = Math.log(r + Math.sqrt((r - 1) * (r + 1))) / Math.PI;
+  const a = taylorA(sllDb);
   const a2 = a * a;
   const gamma = besselJ1Zeros(nbar);
   const mu = gamma.map((g) => g / Math.PI);
   const sigma = mu[nbar - 1] / Math.sqrt(a2 + (nbar - 0.5) * (nbar - 0.5));
-  const zeros = new Float64Array(nbar - 1);
-  for (let n = 1; n < nbar; n++) zeros[n - 1] = sigma * Math.sqrt(a2 + (n - 0.5) * (n - 0.5));
+  const zeros = dilatedZeros(a, sigma, nbar - 1, 0.5);
   const coefficients = new Float64Array(nbar - 1);
   for (let m = 1; m < nbar; m++) {
     const m2 = mu[m - 1] * mu[m - 1];
@@ -106,13 +105,7 @@ export function circularTaylorAperture(sllDb: number, nbar: number): CircularTay
     if (!nearPole) peak = Math.max(peak, Math.abs(pattern(u)));
   }
   const aperturePeakSidelobeDb = 20 * Math.log10(peak);
-  let monotonic = true;
-  let prev = distribution(0);
-  for (let i = 1; i <= 512; i++) {
-    const g = distribution(i / 512);
-    if (g > prev + 1e-12) { monotonic = false; break; }
-    prev = g;
-  }
+  const monotonic = isMonotonicDecreasing(distribution, 0, 1);
   const warnings: TaperWarning[] = [];
   if (!monotonic) {
     warnings.push({ code: 'non-monotonic', message: `circular Taylor distribution for ${sllDb} dB with n̄ = ${nbar} is not monotonic (it rises again towards the rim); a smaller n̄ keeps it monotonic.` });

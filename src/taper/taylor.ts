@@ -4,6 +4,7 @@
  */
 import { assertInteger } from '../internal/validate.js';
 import { sampleUniformLine, type LineDistribution } from './aperture.js';
+import { dilatedZeros, isMonotonicDecreasing, taylorA } from './design.js';
 import { assertElementCount, assertSidelobeLevel, type TaperOptions } from './normalize.js';
 import { sincPi, type TaperWarning } from './warning.js';
 
@@ -76,12 +77,10 @@ const SCAN_STEPS_PER_U = 64;
 export function taylorLineSource(sllDb: number, nbar: number): TaylorLineSourceDesign {
   assertSidelobeLevel('sllDb', sllDb);
   assertInteger('nbar', nbar, 1, 10_000);
-  const r = Math.pow(10, sllDb / 20);
-  const a = Math.log(r + Math.sqrt((r - 1) * (r + 1))) / Math.PI;
+  const a = taylorA(sllDb);
   const a2 = a * a;
   const sigma = nbar / Math.sqrt(a2 + (nbar - 0.5) * (nbar - 0.5));
-  const zeros = new Float64Array(nbar - 1);
-  for (let n = 1; n < nbar; n++) zeros[n - 1] = sigma * Math.sqrt(a2 + (n - 0.5) * (n - 0.5));
+  const zeros = dilatedZeros(a, sigma, nbar - 1, 0.5);
   const coefficients = new Float64Array(nbar - 1);
   for (let m = 1; m < nbar; m++) {
     const m2 = m * m;
@@ -115,13 +114,7 @@ export function taylorLineSource(sllDb: number, nbar: number): TaylorLineSourceD
   const uEnd = nbar + 3;
   for (let u = firstZero; u <= uEnd; u += 1 / SCAN_STEPS_PER_U) peak = Math.max(peak, Math.abs(pattern(u)));
   const lineSourcePeakSidelobeDb = 20 * Math.log10(peak);
-  let monotonic = true;
-  let prev = distribution(0);
-  for (let i = 1; i <= 512; i++) {
-    const g = distribution((0.5 * i) / 512);
-    if (g > prev + 1e-12) { monotonic = false; break; }
-    prev = g;
-  }
+  const monotonic = isMonotonicDecreasing(distribution, 0, 0.5);
   const warnings: TaperWarning[] = [];
   if (!monotonic) {
     warnings.push({
