@@ -1,4 +1,5 @@
 import { bench, describe } from 'vitest';
+import { latticeLayout } from '../../src/geometry/builders.js';
 import { dolphChebyshevTaper } from '../../src/taper/chebyshev.js';
 import { circularTaylorTaper } from '../../src/taper/circularTaylor.js';
 import { taylorTaper } from '../../src/taper/taylor.js';
@@ -18,12 +19,8 @@ for (const n of [64, 500, 2000]) {
 }
 
 describe('circularTaylorTaper, 4000-element square grid clipped to a circle', () => {
-  // Half-wave grid at 1 m spacing units: about 4000 elements inside radius 35.7 spacings (built untimed).
-  const xs: number[] = [];
-  const ys: number[] = [];
+  // Square grid of 1 m spacing clipped to radius 35.7 m: 4001 elements (built untimed).
   const r = 35.7;
-  for (let iy = -36; iy <= 36; iy++) for (let ix = -36; ix <= 36; ix++) if (Math.hypot(ix, iy) <= r) { xs.push(ix); ys.push(iy); }
-  const x = Float64Array.from(xs);
-  const y = Float64Array.from(ys);
-  bench(`${x.length} elements, 35 dB, n̄ = 6`, () => { sink(circularTaylorTaper(x, y, r + 0.5, 35, 6).weights); });
+  const layout = latticeLayout([1, 0], [0, 1], { kind: 'circle', radiusM: r });
+  bench(`${layout.count} elements, 35 dB, n̄ = 6`, () => { sink(circularTaylorTaper(layout, r + 0.5, 35, 6).weights); });
 });

@@ -4,6 +4,7 @@
  */
 import { DimensionError, DomainError } from '../errors.js';
 import { assertFinite, assertFiniteArray, assertPositive, describeValue } from '../internal/validate.js';
+import { assertLayout, type ArrayLayout } from '../geometry/layout.js';
 import { assertElementCount, cellCentre, normalizeTaper, type TaperOptions } from './normalize.js';
 
 /**
@@ -108,50 +109,85 @@ export function sampleLineDistribution(
 }
 
 /**
- * Samples a continuous circularly symmetric distribution at arbitrary planar element positions.
+ * A continuous planar aperture distribution g(x, y) of positions in the aperture plane [m].
+ * Real-valued, dimensionless.
+ * @category Tapers
+ */
+export type PlanarDistribution = (xM: number, yM: number) => number;
+
+/**
+ * Samples a continuous circularly symmetric distribution at the elements of any planar layout.
  *
  * @remarks
- * wₙ = g(√((xₙ − x_c)² + (yₙ − y_c)²) / a). Every element must lie inside the circle of
- * radius a. For a filled lattice the common practice is a = outermost element radius plus
- * half an element spacing (each element at the centre of its cell).
+ * wₙ = g(√((xₙ − x_c)² + (yₙ − y_c)²) / a), using the element positions projected onto the
+ * xy-plane (the aperture plane of planar arrays, docs/conventions.md). Every element must lie
+ * inside the circle of radius a. For a filled lattice the common practice is a = outermost
+ * element radius plus half an element spacing (each element at the centre of its cell).
+ * Disabled elements (layout mask) get weight 0.
  *
  * @param distribution - g(ρ), ρ ∈ [0, 1] [dimensionless].
- * @param xM - Element x positions [m].
- * @param yM - Element y positions [m], same length as `xM`.
+ * @param layout - Element positions (geometry module).
  * @param radiusM - Aperture radius a [m], > 0.
  * @param options - Aperture centre and normalisation.
  * @returns Real weights, one per element [dimensionless].
- * @throws {@link DimensionError} if `xM` and `yM` differ in length or are empty.
+ * @throws {@link DimensionError} if `layout` is malformed.
  * @throws {@link DomainError} if an element lies outside the circle, a ≤ 0, or a value is not finite.
  * @category Tapers
  */
 export function sampleRadialDistribution(
   distribution: RadialDistribution,
-  xM: ArrayLike<number>,
-  yM: ArrayLike<number>,
+  layout: ArrayLayout,
   radiusM: number,
   options: RadialSampleOptions = {},
 ): Float64Array {
   if (typeof distribution !== 'function') {
     throw new DomainError(`invalid argument "distribution": expected a function of the normalised radius ρ ∈ [0, 1], received ${describeValue(distribution)}.`);
   }
-  assertFiniteArray('xM', xM);
-  assertFiniteArray('yM', yM);
-  if (xM.length < 1 || xM.length !== yM.length) {
-    throw new DimensionError(`invalid arguments "xM", "yM": expected two non-empty arrays of equal length (one x and one y per element), received lengths ${xM.length} and ${yM.length}.`);
-  }
+  assertLayout('layout', layout);
   assertPositive('radiusM', radiusM, 'm');
   const cx = options.centreXM ?? 0;
   const cy = options.centreYM ?? 0;
   assertFinite('options.centreXM', cx);
   assertFinite('options.centreYM', cy);
-  const w = new Float64Array(xM.length);
+  const p = layout.positionsM;
+  const w = new Float64Array(layout.count);
   for (let i = 0; i < w.length; i++) {
-    const rho = Math.hypot(xM[i] - cx, yM[i] - cy) / radiusM;
+    const rho = Math.hypot(p[3 * i] - cx, p[3 * i + 1] - cy) / radiusM;
     if (rho > 1 + RIM_SLACK) {
-      throw new DomainError(`invalid arguments "xM", "yM": element ${i} at (${xM[i]}, ${yM[i]}) m lies ${rho.toFixed(4)} radii from the centre, outside the aperture of radius ${radiusM} m; enlarge "radiusM".`);
+      throw new DomainError(`invalid argument "layout": element ${i} at (${p[3 * i]}, ${p[3 * i + 1]}) m lies ${rho.toFixed(4)} radii from the centre, outside the aperture of radius ${radiusM} m; enlarge "radiusM".`);
     }
-    w[i] = checkSample('distribution', distribution(Math.min(1, rho)), i);
+    w[i] = layout.enabled && !layout.enabled[i] ? 0 : checkSample('distribution', distribution(Math.min(1, rho)), i);
+  }
+  return normalizeTaper(w, options.normalization);
+}
+
+/**
+ * Samples any continuous planar distribution g(x, y) at the elements of a layout.
+ *
+ * @remarks
+ * wₙ = g(xₙ, yₙ) with the positions projected onto the xy-plane. Disabled elements get 0.
+ *
+ * @param distribution - g(x, y), x and y in [m] [dimensionless].
+ * @param layout - Element positions (geometry module).
+ * @param options - Normalisation (default peak = 1).
+ * @returns Real weights, one per element [dimensionless].
+ * @throws {@link DimensionError} if `layout` is malformed.
+ * @throws {@link DomainError} if the distribution returns a non-finite value or only zeros.
+ * @example
+ * ```ts
+ * samplePlanarDistribution((x, y) => Math.exp(-(x * x + y * y) / 0.1), layout); // Gaussian taper
+ * ```
+ * @category Tapers
+ */
+export function samplePlanarDistribution(distribution: PlanarDistribution, layout: ArrayLayout, options: TaperOptions = {}): Float64Array {
+  if (typeof distribution !== 'function') {
+    throw new DomainError(`invalid argument "distribution": expected a function of (xM, yM), received ${describeValue(distribution)}.`);
+  }
+  assertLayout('layout', layout);
+  const p = layout.positionsM;
+  const w = new Float64Array(layout.count);
+  for (let i = 0; i < w.length; i++) {
+    w[i] = layout.enabled && !layout.enabled[i] ? 0 : checkSample('distribution', distribution(p[3 * i], p[3 * i + 1]), i);
   }
   return normalizeTaper(w, options.normalization);
 }

@@ -4,6 +4,7 @@
  */
 import besselj0 from '@stdlib/math-base-special-besselj0';
 import besselj1 from '@stdlib/math-base-special-besselj1';
+import type { ArrayLayout } from '../geometry/layout.js';
 import { assertInteger } from '../internal/validate.js';
 import { sampleRadialDistribution, type RadialDistribution, type RadialSampleOptions } from './aperture.js';
 import { besselJ1Zeros } from './besselZeros.js';
@@ -125,25 +126,24 @@ export function circularTaylorAperture(sllDb: number, nbar: number): CircularTay
  * element radius plus half a spacing (common practice). Weights are real; as array
  * weights they enter AF = wᴴa (docs/conventions.md).
  *
- * @param xM - Element x positions [m].
- * @param yM - Element y positions [m].
+ * @param layout - Element positions (geometry module); their projection on the xy-plane is used,
+ *   disabled elements get weight 0.
  * @param radiusM - Aperture radius a [m], > 0; every element must lie within it.
  * @param sllDb - Design sidelobe level, positive dB below the peak (power ratio), in (0, 200].
  * @param nbar - n̄, integer in [1, 1000].
  * @param options - Aperture centre and normalisation (default peak = 1).
  * @returns The weights and the aperture design.
  * @throws {@link DomainError} on bad levels, n̄, radius, non-finite positions or elements outside the circle.
- * @throws {@link DimensionError} if `xM` and `yM` differ in length or are empty.
+ * @throws {@link DimensionError} if `layout` is malformed.
  * @category Tapers
  */
 export function circularTaylorTaper(
-  xM: ArrayLike<number>,
-  yM: ArrayLike<number>,
+  layout: ArrayLayout,
   radiusM: number,
   sllDb: number,
   nbar: number,
   options: RadialSampleOptions = {},
 ): CircularTaylorTaperResult {
   const design = circularTaylorAperture(sllDb, nbar);
-  return { ...design, weights: sampleRadialDistribution(design.distribution, xM, yM, radiusM, options) };
+  return { ...design, weights: sampleRadialDistribution(design.distribution, layout, radiusM, options) };
 }

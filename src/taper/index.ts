@@ -1,8 +1,8 @@
 export type { TaperNormalization, TaperOptions } from './normalize.js';
 export { normalizeTaper } from './normalize.js';
 export type { TaperWarning, TaperWarningCode } from './warning.js';
-export type { LineDistribution, RadialDistribution, LineSampleOptions, RadialSampleOptions } from './aperture.js';
-export { sampleLineDistribution, sampleRadialDistribution } from './aperture.js';
+export type { LineDistribution, RadialDistribution, PlanarDistribution, LineSampleOptions, RadialSampleOptions } from './aperture.js';
+export { sampleLineDistribution, sampleRadialDistribution, samplePlanarDistribution } from './aperture.js';
 export { uniformTaper } from './uniform.js';
 export { binomialTaper } from './binomial.js';
 export { cosineDistribution, cosineSquaredDistribution, cosineTaper, cosineSquaredTaper } from './cosine.js';

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { ConvergenceError, DimensionError, DomainError } from '../../src/errors.js';
-import { sampleLineDistribution, sampleRadialDistribution } from '../../src/taper/aperture.js';
+import { arrayLayout } from '../../src/geometry/layout.js';
+import { sampleLineDistribution, samplePlanarDistribution, sampleRadialDistribution } from '../../src/taper/aperture.js';
 import { baylissLineSource, baylissTaper } from '../../src/taper/bayliss.js';
 import { besselJ1Zeros } from '../../src/taper/besselZeros.js';
 import { circularTaylorAperture, circularTaylorTaper } from '../../src/taper/circularTaylor.js';
@@ -104,14 +105,17 @@ describe('circularTaylorAperture', () => {
     expect(Math.max(...side)).toBeGreaterThan(-sll - 1);
   });
   it('samples g(ρ) at arbitrary positions inside the circle', () => {
-    const t = circularTaylorTaper(Float64Array.of(0, 0.5, 0), Float64Array.of(0, 0, 1), 1, 30, 5);
+    const t = circularTaylorTaper(arrayLayout([[0, 0, 0], [0.5, 0, 0], [0, 1, 0]]), 1, 30, 5);
     expect(t.weights[0]).toBe(1);
     expect(t.weights[1]).toBeCloseTo(t.distribution(0.5) / t.distribution(0), 14);
     expect(t.weights[2]).toBeCloseTo(t.distribution(1) / t.distribution(0), 14);
-    expect(() => circularTaylorTaper(Float64Array.of(0, 1.1), Float64Array.of(0, 0), 1, 30, 5)).toThrow(DomainError);
-    expect(() => circularTaylorTaper(Float64Array.of(0, 1), Float64Array.of(0), 1, 30, 5)).toThrow(DimensionError);
-    expect(() => circularTaylorTaper(Float64Array.of(0), Float64Array.of(0), 1, -30, 5)).toThrow(DomainError);
-    expect(() => circularTaylorTaper(Float64Array.of(0), Float64Array.of(0), 1, 30, 0)).toThrow(DomainError);
+    expect(() => circularTaylorTaper(arrayLayout([[0, 0, 0], [1.1, 0, 0]]), 1, 30, 5)).toThrow(DomainError);
+    expect(() => circularTaylorTaper({ count: 2, positionsM: new Float64Array(3) }, 1, 30, 5)).toThrow(DimensionError);
+    expect(() => circularTaylorTaper(arrayLayout([[0, 0, 0]]), 1, -30, 5)).toThrow(DomainError);
+    expect(() => circularTaylorTaper(arrayLayout([[0, 0, 0]]), 1, 30, 0)).toThrow(DomainError);
+    // Disabled elements get weight 0.
+    const m = circularTaylorTaper(arrayLayout([[0, 0, 0], [0.5, 0, 0]], { enabled: [1, 0] }), 1, 30, 5);
+    expect(Array.from(m.weights)).toEqual([1, 0]);
   });
 });
 
@@ -125,9 +129,12 @@ describe('aperture sampling and separable tapers', () => {
     expect(() => sampleLineDistribution((p) => p, Float64Array.of(0), 0)).toThrow(DomainError);
   });
   it('sampleRadialDistribution with an offset centre and power normalisation', () => {
-    const w = sampleRadialDistribution((r) => 1 - r, Float64Array.of(1, 2), Float64Array.of(1, 1), 2, { centreXM: 1, centreYM: 1, normalization: 'power' });
+    const w = sampleRadialDistribution((r) => 1 - r, arrayLayout([[1, 1, 0], [2, 1, 0]]), 2, { centreXM: 1, centreYM: 1, normalization: 'power' });
     expect(w[0] / w[1]).toBeCloseTo(2, 14);
     expect(w[0] ** 2 + w[1] ** 2).toBeCloseTo(1, 14);
+    const g = samplePlanarDistribution((x, y) => x + 2 * y, arrayLayout([[1, 1, 0], [2, 0, 0]]), { normalization: 'sum' });
+    expect(Array.from(g)).toEqual([1.2, 0.8]);
+    expect(() => samplePlanarDistribution(() => Infinity, arrayLayout([[1, 1, 0]]))).toThrow(DomainError);
   });
   it('separableTaper is the outer product, x fastest', () => {
     const w = separableTaper(Float64Array.of(1, 2, 1), Float64Array.of(1, 0.5), { normalization: 'peak' });
