@@ -36,10 +36,16 @@ export interface TwoPortNoiseParameters {
   readonly optimumSourceAdmittanceS: Complex;
 }
 
-/** Input form accepted where noise parameters are read. @internal */
-interface NoiseParametersInput {
+/**
+ * Noise parameters as accepted by the noise functions (Y_opt as any complex-like value).
+ * @category Network
+ */
+export interface NoiseParametersInput {
+  /** Minimum noise temperature T_min [K], ≥ 0. */
   readonly minimumNoiseTemperatureK: number;
+  /** Equivalent noise resistance R_n [Ω], ≥ 0. */
   readonly noiseResistanceOhm: number;
+  /** Optimum source admittance Y_opt [S], real part ≥ 0. */
   readonly optimumSourceAdmittanceS: ComplexLike;
 }
 
