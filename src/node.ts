@@ -4,3 +4,4 @@
  * @module
  */
 export { readYFactorCsv, readOnOffCsv } from './measure/node.js';
+export { readTouchstoneFile, writeTouchstoneFile } from './network/node.js';
