@@ -1,0 +1,9 @@
+export type { Vector3, WireDipole, HertzianDipole, IsotropicRadiator, GroundPlane } from './types.js';
+export { CoincidentElementsError } from './errors.js';
+export type { FarFieldOptions, FarFieldResult } from './farField.js';
+export { wireDipoleFarField, hertzianDipoleFarField, isotropicFarField } from './farField.js';
+export type { InducedEmfOptions } from './mutualImpedance.js';
+export {
+  dipoleSelfImpedance, sideBySideMutualImpedance, collinearMutualImpedance, echelonMutualImpedance,
+  dipoleMutualImpedance, dipoleArrayImpedanceMatrix,
+} from './mutualImpedance.js';
