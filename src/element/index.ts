@@ -1,4 +1,4 @@
-export type { Vector3, WireDipole, HertzianDipole, IsotropicRadiator, GroundPlane } from './types.js';
+export type { WireDipole, HertzianDipole, IsotropicRadiator, GroundPlane } from './types.js';
 export { CoincidentElementsError } from './errors.js';
 export type { FarFieldOptions, FarFieldResult } from './farField.js';
 export { wireDipoleFarField, hertzianDipoleFarField, isotropicFarField } from './farField.js';
@@ -7,3 +7,9 @@ export {
   dipoleSelfImpedance, sideBySideMutualImpedance, collinearMutualImpedance, echelonMutualImpedance,
   dipoleMutualImpedance, dipoleArrayImpedanceMatrix,
 } from './mutualImpedance.js';
+export type { PatternExcitation, EmbeddedPatternSet } from './patternSet.js';
+export {
+  embeddedPatternSet, dipoleEmbeddedPatterns, convertPatternExcitation, ludwig3Components, translatePhaseReference,
+} from './patternSet.js';
+export type { PatternInterpolator } from './patternInterpolation.js';
+export { patternInterpolator, rotatePatternSet } from './patternInterpolation.js';

@@ -5,7 +5,8 @@ import {
   dipoleSelfImpedance, sideBySideMutualImpedance, collinearMutualImpedance, echelonMutualImpedance,
   dipoleMutualImpedance, dipoleArrayImpedanceMatrix, CoincidentElementsError,
 } from '../../src/element/index.js';
-import type { WireDipole, Vector3 } from '../../src/element/index.js';
+import type { WireDipole } from '../../src/element/index.js';
+import type { Vector3 } from '../../src/element/types.js';
 import { DomainError } from '../../src/errors.js';
 import { ETA0_OHM } from '../../src/units/constants.js';
 import { entry } from '../../src/linalg/cmatrix.js';
