@@ -8,3 +8,5 @@ export * from './errors.js';
 export * from './linalg/index.js';
 export * from './units/index.js';
 export * from './element/index.js';
+export * from './geometry/index.js';
+export * from './measure/index.js';
