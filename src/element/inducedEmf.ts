@@ -15,7 +15,7 @@
  */
 import sici from '@stdlib/math-base-special-sici';
 import { ETA0_OHM } from '../units/constants.js';
-import { gaussLegendreRule } from '../internal/gaussLegendre.js';
+import { gaussLegendre, type GaussLegendreRule } from '../geometry/quadrature.js';
 import type { DipoleGeometry } from './types.js';
 
 const siciOut = new Float64Array(2);
@@ -157,6 +157,13 @@ export function filamentFieldInto(out: Float64Array, g: DipoleGeometry, k: numbe
 }
 
 const field = new Float64Array(6);
+const ruleCache = new Map<number, GaussLegendreRule>();
+
+function cachedRule(n: number): GaussLegendreRule {
+  let r = ruleCache.get(n);
+  if (!r) { r = gaussLegendre(n); ruleCache.set(n, r); }
+  return r;
+}
 
 /** Options of the numerical induced-EMF integration. */
 export interface WireIntegrationOptions {
@@ -180,7 +187,7 @@ export function generalMutualImpedanceInto(
   const lambda = (2 * Math.PI) / k;
   const segLen = Math.min(opts.maxSegmentWavelengths * lambda, Math.max(minDistanceM, 1e-3 * lambda));
   const nSeg = Math.min(256, Math.max(1, Math.ceil(h2 / segLen)));
-  const rule = gaussLegendreRule(opts.nodesPerSegment);
+  const rule = cachedRule(opts.nodesPerSegment);
   const sh2 = Math.sin(k * h2);
   let zr = 0, zi = 0;
   const width = h2 / nSeg;

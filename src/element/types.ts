@@ -6,11 +6,7 @@
 import { DomainError } from '../errors.js';
 import { assertFinite, assertPositive, describeValue } from '../internal/validate.js';
 
-/**
- * A point or direction in 3-D, metres or dimensionless, as `[x, y, z]`.
- * @category Elements
- */
-export type Vector3 = readonly [number, number, number];
+import type { Vector3 } from '../geometry/layout.js';
 
 /**
  * A thin straight wire dipole, centre-fed, carrying the sinusoidal current

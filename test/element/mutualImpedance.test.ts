@@ -6,7 +6,7 @@ import {
   dipoleMutualImpedance, dipoleArrayImpedanceMatrix, CoincidentElementsError,
 } from '../../src/element/index.js';
 import type { WireDipole } from '../../src/element/index.js';
-import type { Vector3 } from '../../src/element/types.js';
+import type { Vector3 } from '../../src/geometry/layout.js';
 import { DomainError } from '../../src/errors.js';
 import { ETA0_OHM } from '../../src/units/constants.js';
 import { entry } from '../../src/linalg/cmatrix.js';

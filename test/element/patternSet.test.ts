@@ -5,7 +5,7 @@ import {
   embeddedPatternSet,
 } from '../../src/element/index.js';
 import type { WireDipole } from '../../src/element/index.js';
-import type { Vector3 } from '../../src/element/types.js';
+import type { Vector3 } from '../../src/geometry/layout.js';
 import { DimensionError, DomainError } from '../../src/errors.js';
 import { ETA0_OHM } from '../../src/units/constants.js';
 import { fromRows } from '../../src/linalg/cmatrix.js';
