@@ -13,3 +13,8 @@ export {
 } from './patternSet.js';
 export type { PatternInterpolator } from './patternInterpolation.js';
 export { patternInterpolator, rotatePatternSet } from './patternInterpolation.js';
+export type { RadiationMethod, RadiationOptions, RadiationProperties } from './radiation.js';
+export {
+  wireDipoleRadiationResistance, hertzianRadiationResistance, wireDipoleRadiation, hertzianDipoleRadiation,
+  isotropicRadiation, radiationResistanceMatrix,
+} from './radiation.js';
