@@ -4,3 +4,4 @@
  * @module
  */
 export { readYFactorCsv, readOnOffCsv } from './measure/node.js';
+export { readPatternFile, writePatternFile } from './element/node.js';

@@ -18,3 +18,4 @@ export {
   wireDipoleRadiationResistance, hertzianRadiationResistance, wireDipoleRadiation, hertzianDipoleRadiation,
   isotropicRadiation, radiationResistanceMatrix,
 } from './radiation.js';
+export { parsePatternJson, formatPatternJson, parsePatternCsv, formatPatternCsv } from './patternFormats.js';
