@@ -9,6 +9,7 @@ export * from './linalg/index.js';
 export * from './units/index.js';
 export * from './taper/index.js';
 export * from './network/index.js';
+export * from './element/index.js';
 export * from './geometry/index.js';
 export * from './measure/index.js';
 export * from './reflector/index.js';
