@@ -8,3 +8,7 @@ export {
   frobeniusNorm, norm1, normInf, hermitianDeviation, isHermitian, hermitianPart, block, pick, setBlock,
   column, innerProduct, vectorNorm, quadraticForm, maxAbsDifference, concatColumns, concatRows,
 } from './ops.js';
+export type { LuResult } from './lu.js';
+export { luFactor, luSolve, luSolveAdjoint, solve, inverse, determinant, logDeterminant } from './lu.js';
+export type { CholeskyResult, CholeskyOptions } from './cholesky.js';
+export { choleskyFactor, choleskySolve, solveLowerTriangular, solveLowerAdjoint } from './cholesky.js';
