@@ -12,3 +12,5 @@ export type { LuResult, LogDeterminantResult } from './lu.js';
 export { luFactor, luSolve, luSolveAdjoint, solve, inverse, determinant, logDeterminant } from './lu.js';
 export type { CholeskyResult, CholeskyOptions } from './cholesky.js';
 export { choleskyFactor, choleskySolve, solveLowerTriangular, solveLowerAdjoint } from './cholesky.js';
+export type { HermitianEigenOptions, HermitianEigenResult } from './eigen.js';
+export { hermitianEigen } from './eigen.js';
