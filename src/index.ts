@@ -7,3 +7,5 @@
 export * from './errors.js';
 export * from './linalg/index.js';
 export * from './units/index.js';
+export * from './geometry/index.js';
+export * from './pattern/index.js';
