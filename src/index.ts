@@ -9,3 +9,4 @@ export * from './linalg/index.js';
 export * from './units/index.js';
 export * from './geometry/index.js';
 export * from './pattern/index.js';
+export * from './beamform/index.js';
