@@ -72,13 +72,7 @@ export function factorCorrelation(name: string, r: CMatrix, n: number, relativeL
       f.failedPivot,
     );
   }
-  let lo = Infinity, hi = 0;
-  for (let i = 0; i < n; i++) {
-    const d = f.l.data[2 * (i * n + i)];
-    if (d < lo) lo = d;
-    if (d > hi) hi = d;
-  }
-  const bound = (lo / hi) ** 2;
+  const bound = pivotConditionBound(f);
   if (bound < 16 * n * Number.EPSILON) {
     throw new SingularMatrixError(
       `invalid argument "${name}": the correlation matrix is singular to working precision (1/condition number ≤ ${bound.toExponential(2)}). `
@@ -86,5 +80,31 @@ export function factorCorrelation(name: string, r: CMatrix, n: number, relativeL
       f.failedPivot,
     );
   }
+  return f;
+}
+
+/**
+ * (min ℓᵢᵢ / max ℓᵢᵢ)² of a successful Cholesky factor: an upper bound on
+ * 1/κ₂ of the factored matrix (0 when the factorisation failed).
+ */
+export function pivotConditionBound(f: CholeskyResult): number {
+  if (!f.positiveDefinite) return 0;
+  const n = f.n;
+  let lo = Infinity, hi = 0;
+  for (let i = 0; i < n; i++) {
+    const d = f.l.data[2 * (i * n + i)];
+    if (d < lo) lo = d;
+    if (d > hi) hi = d;
+  }
+  return (lo / hi) ** 2;
+}
+
+/**
+ * Cholesky factor of a Gram matrix (of constraint, interference or steering
+ * columns) under the same policy; `message` describes dependent columns.
+ */
+export function factorGram(gram: CMatrix, message: string): CholeskyResult {
+  const f = choleskyFactor(gram);
+  if (pivotConditionBound(f) < 16 * gram.rows * Number.EPSILON) throw new SingularMatrixError(message, f.failedPivot);
   return f;
 }

@@ -4,7 +4,8 @@
  */
 import { DimensionError, SingularMatrixError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
-import { choleskyFactor, choleskySolve } from '../linalg/cholesky.js';
+import { choleskySolve } from '../linalg/cholesky.js';
+import { factorGram } from './conditioning.js';
 import { adjoint, multiply } from '../linalg/ops.js';
 import { assertFiniteArray, assertFiniteCMatrix, assertInteger, assertPositive, assertShape } from '../internal/validate.js';
 
@@ -58,8 +59,7 @@ export function deterministicCramerRaoBound(
   assertInteger('snapshotCount', snapshotCount, 1);
   const ah = adjoint(steering);
   const gram = multiply(ah, steering);
-  const fg = choleskyFactor(gram);
-  if (!fg.positiveDefinite) throw new SingularMatrixError('invalid argument "steering": the source steering vectors are linearly dependent; the bound does not exist.', fg.failedPivot);
+  const fg = factorGram(gram, 'invalid argument "steering": the source steering vectors are linearly dependent (sources at the same direction); the bound does not exist.');
   // H = DᴴD − DᴴA (AᴴA)⁻¹ AᴴD
   const dh = adjoint(derivatives);
   const dd = multiply(dh, derivatives);

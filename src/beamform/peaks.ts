@@ -47,7 +47,7 @@ export interface SpectrumPeakOptions {
  * @param spectrum - Spectrum samples, length M ≥ 3, finite (positive for `'log'`/`'reciprocal'`).
  * @param grid - Strictly increasing sample positions, length M [any unit].
  * @param options - See {@link SpectrumPeakOptions}.
- * @returns Peaks sorted by value, largest first.
+ * @returns Peaks sorted by value, largest first (the value is the fitted peak value, or the sample value where the fit gives none).
  * @throws {@link DimensionError} on length mismatch; {@link DomainError} on non-finite values, a non-increasing grid,
  *   non-positive values for `'log'`/`'reciprocal'`, or a bad option.
  * @category Beamforming
@@ -87,7 +87,10 @@ export function findSpectrumPeaks(spectrum: ArrayLike<number>, grid: ArrayLike<n
     if (c2 < 0) {
       const c1 = d01 - c2 * (x0 + x1); // y = c2·x² + c1·x + c0
       pos = Math.min(Math.max(-c1 / (2 * c2), x0), x2);
-      val = inv(y0 + d01 * (pos - x0) + c2 * (pos - x0) * (pos - x1)); // Newton form
+      const fitted = inv(y0 + d01 * (pos - x0) + c2 * (pos - x0) * (pos - x1)); // Newton form
+      // The vertex of a concave fit is never below the sample; for 'reciprocal' a fitted 1/value ≤ 0 (a null
+      // spectrum reaching zero) has no finite peak value, so the sample value is kept.
+      if (Number.isFinite(fitted) && fitted >= val) val = fitted;
     }
     peaks.push({ index: i, position: pos, value: val });
   }

@@ -5,11 +5,11 @@
  */
 import { DimensionError, SingularMatrixError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
-import { choleskyFactor, choleskySolve, solveLowerAdjoint, solveLowerTriangular } from '../linalg/cholesky.js';
+import { type CholeskyResult, choleskySolve, solveLowerAdjoint, solveLowerTriangular } from '../linalg/cholesky.js';
 import { hermitianEigen } from '../linalg/eigen.js';
 import { adjoint, multiply } from '../linalg/ops.js';
 import { assertColumn, assertFiniteCMatrix, assertInteger, assertShape } from '../internal/validate.js';
-import { factorCorrelation } from './conditioning.js';
+import { factorCorrelation, factorGram } from './conditioning.js';
 import { type BeamNormalization, assertNormalization, normalizeColumn } from './normalize.js';
 import { responsePowersInto } from './evaluate.js';
 import { splitSubspaces } from './spectra.js';
@@ -72,14 +72,7 @@ export function projectionWeights(
   assertNormalization(mode, ['distortionless', 'unitNorm', 'none']);
   const bh = adjoint(interference);
   const gram = multiply(bh, interference);
-  const f = choleskyFactor(gram);
-  let ok = f.positiveDefinite;
-  if (ok) {
-    let lo = Infinity, hi = 0;
-    for (let i = 0; i < gram.rows; i++) { const d = f.l.data[2 * (i * gram.rows + i)]; lo = Math.min(lo, d); hi = Math.max(hi, d); }
-    ok = (lo / hi) ** 2 >= 16 * gram.rows * Number.EPSILON;
-  }
-  if (!ok) throw new SingularMatrixError('invalid argument "interference": the interference columns are linearly dependent; pass an independent set (or an orthonormal basis).', f.failedPivot);
+  const f = factorGram(gram, 'invalid argument "interference": the interference columns are linearly dependent; pass an independent set (or an orthonormal basis).');
   // w = w0 − B (BᴴB)⁻¹ Bᴴ w0, then one refinement sweep to reach the 1e-12 null depth in rounding.
   let w = subtractProjection(w0, interference, bh, f);
   w = subtractProjection(w, interference, bh, f);
@@ -97,7 +90,7 @@ export function projectionWeights(
   return { weights: w, signalLossDb, whiteNoiseSnrLossDb, residual };
 }
 
-function subtractProjection(w: CMatrix, b: CMatrix, bh: CMatrix, f: ReturnType<typeof choleskyFactor>): CMatrix {
+function subtractProjection(w: CMatrix, b: CMatrix, bh: CMatrix, f: CholeskyResult): CMatrix {
   const c = choleskySolve(f, multiply(bh, w));
   const bc = multiply(b, c);
   const out = { rows: w.rows, cols: 1, data: w.data.slice() };

@@ -5,12 +5,12 @@
  * steering or signal-response vector a is wᴴa (docs/conventions.md).
  * @module
  */
-import { DimensionError, SingularMatrixError } from '../errors.js';
+import { DimensionError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
-import { choleskyFactor, choleskySolve, solveLowerTriangular } from '../linalg/cholesky.js';
+import { choleskySolve, solveLowerTriangular } from '../linalg/cholesky.js';
 import { add } from '../linalg/ops.js';
 import { assertColumn, assertFiniteCMatrix, assertShape } from '../internal/validate.js';
-import { factorCorrelation } from './conditioning.js';
+import { factorCorrelation, factorGram } from './conditioning.js';
 import { type BeamNormalization, assertNormalization, normalizeColumn } from './normalize.js';
 
 /**
@@ -174,21 +174,7 @@ export function constrainedMinimumVarianceWeights(
   // G = CᴴR⁻¹C = (L⁻¹C)ᴴ(L⁻¹C), Hermitian positive definite iff C has full column rank.
   const y = solveLowerTriangular(f.l, constraints);
   const g = gramian(y);
-  const fg = choleskyFactor(g);
-  let minD = Infinity, maxD = 0;
-  if (fg.positiveDefinite) {
-    for (let i = 0; i < m; i++) {
-      const d = fg.l.data[2 * (i * m + i)];
-      minD = Math.min(minD, d);
-      maxD = Math.max(maxD, d);
-    }
-  }
-  if (!fg.positiveDefinite || (minD / maxD) ** 2 < 16 * m * Number.EPSILON) {
-    throw new SingularMatrixError(
-      `invalid argument "constraints": the ${m} constraint columns are linearly dependent (or nearly so); remove redundant constraints.`,
-      fg.failedPivot,
-    );
-  }
+  const fg = factorGram(g, `invalid argument "constraints": the ${m} constraint columns are linearly dependent (or nearly so); remove redundant constraints.`);
   const gConj = { rows: m, cols: 1, data: responses.data.slice() };
   for (let k = 1; k < gConj.data.length; k += 2) gConj.data[k] = -gConj.data[k];
   const h = choleskySolve(fg, gConj);
