@@ -10,3 +10,4 @@ export * from './units/index.js';
 export * from './geometry/index.js';
 export * from './pattern/index.js';
 export * from './beamform/index.js';
+export * from './measure/index.js';
