@@ -5,7 +5,7 @@ export {
   conjugateFieldWeights, maxSnrWeights, maxSnrWeightsForDirections, minimumVarianceWeights,
   constrainedMinimumVarianceWeights, maxDirectivityWeights, maxGainWeights,
 } from './weights.js';
-export type { ProjectionBeamResult } from './projection.js';
+export type { ProjectionBeamResult, CorrelationBeamResult } from './projection.js';
 export { projectionWeights, estimateInterferenceSubspace, maxSnrWeightsForCorrelation } from './projection.js';
 export type { InterferenceRejectionResult } from './evaluate.js';
 export {

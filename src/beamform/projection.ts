@@ -121,6 +121,17 @@ export function estimateInterferenceSubspace(correlation: CMatrix, count: number
 }
 
 /**
+ * Result of {@link maxSnrWeightsForCorrelation}.
+ * @category Beamforming
+ */
+export interface CorrelationBeamResult {
+  /** Weights w, N×1, normalised as requested. */
+  readonly weights: CMatrix;
+  /** The maximum SNR λ_max = wᴴR_s w / wᴴR_n w, linear [dimensionless]. */
+  readonly snr: number;
+}
+
+/**
  * Maximum-SNR weights for a signal of any rank: the principal generalised
  * eigenvector of the pencil (R_s, R_n), R_s w = λ_max R_n w.
  *
@@ -143,7 +154,7 @@ export function estimateInterferenceSubspace(correlation: CMatrix, count: number
  */
 export function maxSnrWeightsForCorrelation(
   signal: CMatrix, noise: CMatrix, options: { normalization?: 'unitNoise' | 'unitNorm'; diagonalLoading?: number } = {},
-): { weights: CMatrix; snr: number } {
+): CorrelationBeamResult {
   assertFiniteCMatrix('signal', signal);
   const n = signal.rows;
   assertShape('signal', signal, n, n, 'a square matrix');

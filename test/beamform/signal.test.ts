@@ -159,6 +159,7 @@ describe('seeded 10-element half-wave line scenario', () => {
     // here) plus terms from source interaction, small for sources 2.25 beamwidths apart. The sample MSE of
     // 200 trials has a relative standard deviation √(2/200) = 0.1, so an efficient estimator gives
     // MSE/CRB in [0.7, 1.3] at 3σ; we accept [0.7, 1.5] to leave room for the excess above.
+    // Measured with these seeds: 0.95–0.97 for both estimators and both sources.
     const noise = 0.01, t = 100, trials = 200;
     const crb = deterministicCramerRaoBound(a, lineSteeringDerivative(N, u), powers, noise, t);
     const fine = grid(-1, 1, 2001);
@@ -176,7 +177,6 @@ describe('seeded 10-element half-wave line scenario', () => {
     }
     for (let m = 0; m < 2; m++) for (let i = 0; i < 2; i++) {
       const ratio = se[m][i] / trials / crb.covariance[i * 2 + i];
-      if (process.env.BEAMFORM_VERBOSE) console.log(`estimator ${m} source ${i}: MSE/CRB = ${ratio.toFixed(3)}`);
       expect(ratio, `estimator ${m} source ${i}`).toBeGreaterThan(0.7);
       expect(ratio, `estimator ${m} source ${i}`).toBeLessThan(1.5);
     }
