@@ -5,11 +5,11 @@ import {
 import { conjugateFieldWeights, constrainedMinimumVarianceWeights, maxDirectivityWeights, maxSnrWeights } from '../../src/beamform/weights.js';
 import { findSpectrumPeaks } from '../../src/beamform/peaks.js';
 import { arrayFactor } from '../../src/pattern/arrayFactor.js';
-import { adjoint, multiply, scale, innerProduct, concatColumns } from '../../src/linalg/ops.js';
+import { add, adjoint, multiply, scale, innerProduct, concatColumns, quadraticForm } from '../../src/linalg/ops.js';
 import { fromRows, identity, zeros } from '../../src/linalg/cmatrix.js';
 import { DimensionError, DomainError } from '../../src/errors.js';
 import { randomHpd, randomMatrix } from '../helpers/matchers.js';
-import { grid, K_RAD_PER_M, LAMBDA_M, line, lineSteering } from './scenario.js';
+import { grid, K_RAD_PER_M, LAMBDA_M, line, lineSteering, lineSteeringDerivative } from './scenario.js';
 
 describe('beam evaluation', () => {
   const n = 8;
@@ -65,6 +65,31 @@ describe('beam evaluation', () => {
     expect(() => interferenceRejection(zeros(n, 1), a, a)).toThrow(DimensionError);
     const bad = randomMatrix(n, 1, 1); bad.data[3] = Infinity;
     expect(() => beamResponse(bad, a)).toThrow(DomainError);
+  });
+});
+
+describe('LCMV derivative constraint on a line', () => {
+  it('a zero-derivative constraint flattens the main beam (central difference of wᴴa(u) ≈ 0)', () => {
+    // Constraint wᴴ ∂a/∂u = 0 makes d(wᴴa)/du vanish at u₀ (Van Trees 2002, §6.7.4, from memory); the central
+    // difference then has an O(h²) truncation error only, against O(1) for the same beam without it.
+    const n = 10, u0 = 0.23, h = 1e-4; // interferer off the conjugate beam's nulls, so MVDR ≠ conjugate match
+    const r = add(identity(n), scale(multiply(lineSteering(n, [-0.05]), adjoint(lineSteering(n, [-0.05]))), 100));
+    const c = concatColumns([lineSteering(n, [u0]), lineSteeringDerivative(n, [u0])]);
+    const flat = constrainedMinimumVarianceWeights(r, c, fromRows([[1], [0]]));
+    const plain = constrainedMinimumVarianceWeights(r, lineSteering(n, [u0]), fromRows([[1]]));
+    const slope = (w: ReturnType<typeof zeros>) => {
+      const resp = beamResponse(w, lineSteering(n, [u0 - h, u0 + h]));
+      return Math.hypot(resp.data[2] - resp.data[0], resp.data[3] - resp.data[1]) / (2 * h);
+    };
+    expect(slope(flat)).toBeLessThan(1e-6);
+    expect(slope(plain)).toBeGreaterThan(0.05); // measured 0.093
+  });
+  it('conjugate match with unit-noise normalisation', () => {
+    const rn = randomHpd(10, 3);
+    const a = lineSteering(10, [0.1]);
+    const w = conjugateFieldWeights(a, { normalization: 'unitNoise', noise: rn });
+    expect(quadraticForm(w, rn)).toBeCloseTo(1, 13);
+    expect(() => conjugateFieldWeights(a, { normalization: 'unitNoise' })).toThrow(DimensionError);
   });
 });
 
