@@ -11,6 +11,8 @@ export * from './taper/index.js';
 export * from './network/index.js';
 export * from './element/index.js';
 export * from './geometry/index.js';
+export * from './pattern/index.js';
+export * from './beamform/index.js';
 export * from './measure/index.js';
 export * from './reflector/index.js';
 export * from './pattern/index.js';
