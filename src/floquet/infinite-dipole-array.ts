@@ -48,6 +48,11 @@ interface SumState {
   readonly tabRe: Float64Array;
   readonly tabIm: Float64Array;
   readonly scratch: Float64Array;
+  readonly tailRe: Float64Array[];
+  readonly tailIm: Float64Array[];
+  readonly highRe: Float64Array;
+  readonly highIm: Float64Array;
+  tableError: number;
 }
 
 /**
@@ -229,6 +234,7 @@ export function infiniteDipoleArray(options: InfiniteDipoleArrayOptions): Infini
     k0, med, sp, area: lattice.cellAreaM2, a, b1y, q, w, lowRows, tol,
     kxLo, lnKxLo: Math.log(kxLo), dLn: Math.log(10) / 40,
     tabRe: new Float64Array(0), tabIm: new Float64Array(0), scratch: new Float64Array(10),
+    tailRe: [], tailIm: [], highRe: new Float64Array(0), highIm: new Float64Array(0), tableError: 0,
   };
   // Table of H(kx)/kx on ln kx from kxLo over 6 decades (+ 2 guard nodes for cubic interpolation).
   const nTab = 6 * 40 + 4;
@@ -239,7 +245,19 @@ export function infiniteDipoleArray(options: InfiniteDipoleArrayOptions): Infini
     tabRe[i] = hr / kx;
     tabIm[i] = hi / kx;
   }
-  const state: SumState = { ...st0, tabRe, tabIm };
+  const state: SumState = { ...st0, tabRe, tabIm, tailRe: [], tailIm: [], highRe: new Float64Array(NH + 1), highIm: new Float64Array(NH + 1), tableError: 0 };
+  buildTables(state);
+  // Check the tables against the untabulated sum at three scans off the interpolation nodes.
+  const zt = new Float64Array(2), zr = new Float64Array(2);
+  const diag = { modes: 0, error: 0 };
+  let worst = 0;
+  for (const [th, ph] of [[0.31, 0.27], [1.13, 2.01], [0.87, 4.4]]) {
+    const kx0 = k0 * Math.sin(th) * Math.cos(ph), ky0 = k0 * Math.sin(th) * Math.sin(ph);
+    activeImpedanceKernel(state, kx0, ky0, zt, 0, diag);
+    referenceImpedanceKernel(state, kx0, ky0, zr, 0, diag);
+    worst = Math.max(worst, Math.hypot(zt[0] - zr[0], zt[1] - zr[1]) / Math.hypot(zr[0], zr[1]) + diag.error);
+  }
+  state.tableError = worst;
   return { lattice, element, backing, frequencyHz, relativeTolerance: tol, state };
 }
 
@@ -265,7 +283,6 @@ function rowIntegralOverKx(st: SumState, kx: number, out: Float64Array): void {
 
 const accRow = new Float64Array(2);
 const hBuf = new Float64Array(2);
-
 const emBuf = new Float64Array(6);
 const fBuf = new Float64Array(14);
 
@@ -291,17 +308,40 @@ function emDerivatives(st: SumState, kx: number, Y: number, out: Float64Array): 
   }
 }
 
-const rowOut = new Float64Array(3);
+/** Edge of the exactly summed part of row m: Y₀ = max(√εr k₀, |2πm/a| + k₀) + 3q. */
+function rowEdge(st: SumState, m: number): number {
+  return Math.max(Math.sqrt(st.med.er) * st.k0, Math.abs((2 * Math.PI * m) / st.a) + st.k0) + 3 * st.q;
+}
 
 /**
- * Σₙ rowTerm(kx, yoff + n q) over the whole row: exact terms for |k_y| ≤ Y₀, midpoint
- * Euler–Maclaurin tails. out = [re, im, |EM derivative correction|]; returns the explicit term count.
+ * Σ_{n: y_n > Y} rowTerm(kx, y_n) for midpoint start Y (y_n = Y + (n − ½)q) by the midpoint
+ * Euler–Maclaurin formula (1/q)∫_Y^∞ f + (q/24) f′ − (7q³/5760) f‴ + (31q⁵/967680) f⁽⁵⁾.
+ * out = [re, im, error proxy].
+ */
+function rowTailSum(st: SumState, kx: number, Y: number, out: Float64Array): void {
+  const q = st.q;
+  accRow[0] = 0; accRow[1] = 0;
+  tailIntegral(st, kx, Y, accRow);
+  emDerivatives(st, kx, Y, emBuf);
+  const q3 = q * q * q, q5 = q3 * q * q;
+  const cr = (q / 24) * emBuf[0] - ((7 * q3) / 5760) * emBuf[2] + ((31 * q5) / 967680) * emBuf[4];
+  const ci = (q / 24) * emBuf[1] - ((7 * q3) / 5760) * emBuf[3] + ((31 * q5) / 967680) * emBuf[5];
+  out[0] = accRow[0] / q + cr;
+  out[1] = accRow[1] / q + ci;
+  out[2] = ((31 * q5) / 967680) * Math.hypot(emBuf[4], emBuf[5]) + 1e-5 * Math.hypot(cr, ci);
+}
+
+const tailOut = new Float64Array(3);
+
+/**
+ * Σₙ rowTerm(kx, yoff + n q) over the whole row m: exact terms for |k_y| ≤ Y₀(m), Euler–Maclaurin
+ * tails on both sides. out = [re, im, error proxy]; returns the explicit term count.
  * @internal
  */
-export function acceleratedRowSum(st: SumState, kx: number, yoff: number, out: Float64Array): number {
+export function acceleratedRowSum(st: SumState, m: number, kx: number, yoff: number, out: Float64Array): number {
   const q = st.q;
   const s = st.scratch;
-  const Y0 = Math.max(Math.sqrt(st.med.er) * st.k0, Math.abs(kx)) + 3 * q;
+  const Y0 = rowEdge(st, m);
   const nLo = Math.ceil((-Y0 - yoff) / q);
   const nHi = Math.floor((Y0 - yoff) / q);
   let rr = 0, ri = 0, em = 0;
@@ -310,56 +350,30 @@ export function acceleratedRowSum(st: SumState, kx: number, yoff: number, out: F
     rr += s[8];
     ri += s[9];
   }
-  // Upper tail from Y+ = y_{nHi} + q/2, lower tail (mirrored, the row term is even in k_y) from Y− = −(y_{nLo} − q/2).
+  // Upper tail from Y+ = y_{nHi} + q/2, lower tail (mirrored; the row term is even in k_y) from Y− = −(y_{nLo} − q/2).
   for (let side = 0; side < 2; side++) {
     const Y = side === 0 ? yoff + (nHi + 0.5) * q : -(yoff + (nLo - 0.5) * q);
-    accRow[0] = 0; accRow[1] = 0;
-    tailIntegral(st, kx, Y, accRow);
-    // Midpoint Euler–Maclaurin: Σ_{n>N} f(y_n) = (1/q)∫_Y^∞ f + (q/24) f′ − (7q³/5760) f‴ + (31q⁵/967680) f⁽⁵⁾ at Y.
-    emDerivatives(st, kx, Y, emBuf);
-    const q3 = q * q * q, q5 = q3 * q * q;
-    const cr = (q / 24) * emBuf[0] - ((7 * q3) / 5760) * emBuf[2] + ((31 * q5) / 967680) * emBuf[4];
-    const ci = (q / 24) * emBuf[1] - ((7 * q3) / 5760) * emBuf[3] + ((31 * q5) / 967680) * emBuf[5];
-    rr += accRow[0] / q + cr;
-    ri += accRow[1] / q + ci;
-    em += ((31 * q5) / 967680) * Math.hypot(emBuf[4], emBuf[5]) + 1e-5 * Math.hypot(cr, ci);
+    rowTailSum(st, kx, Y, tailOut);
+    rr += tailOut[0];
+    ri += tailOut[1];
+    em += tailOut[2];
   }
   out[0] = rr; out[1] = ri; out[2] = em;
   return nHi - nLo + 1;
 }
 
-/** Diagnostics of one evaluation. @internal */
-interface SumDiagnostics {
-  modes: number;
-  error: number;
-}
-
-/** Active impedance at transverse scan wavenumber (kx0, ky0); writes re/im to out[o], out[o+1]. @internal */
-export function activeImpedanceKernel(st: SumState, kx0: number, ky0: number, out: Float64Array, o: number, diag: SumDiagnostics): void {
-  let zr = 0, zi = 0;
-  let modes = 0;
-  let emMag = 0;
+/**
+ * Σ_{|m| > M₁} F(k_x,m)² H(k_x,m)/q over the higher rows at scan k_x0, to 1e-3 × target of the
+ * running total, plus the averaged asymptotic remainder. out = [re, im, last-term size]; returns rows used.
+ */
+function highRowSum(st: SumState, kx0: number, target: number, out: Float64Array): number {
   const q = st.q;
   const M1 = st.lowRows;
-  const s = st.scratch;
-  for (let m = -M1; m <= M1; m++) {
-    const kx = kx0 + (2 * Math.PI * m) / st.a;
-    const yoff = ky0 + m * st.b1y;
-    const F = currentSpectrum(st.sp, kx);
-    modes += acceleratedRowSum(st, kx, yoff, rowOut);
-    const rr = rowOut[0], ri = rowOut[1];
-    emMag += rowOut[2] * F * F;
-    zr += F * F * rr;
-    zi += F * F * ri;
-  }
-  // Higher rows: F(kx)² H(kx)/q with H from the table.
-  const target = 0.02 * st.tol * Math.hypot(zr, zi);
-  let lastMag = 0;
-  let highRows = 0;
-  for (const sign of [1, -1]) {
-    let m = M1 + 1;
+  let zr = 0, zi = 0, last = 0, rows = 0;
+  for (let side = 0; side < 2; side++) {
+    const sign = side === 0 ? 1 : -1;
     let hrLast = 0, hiLast = 0, kxLast = 0;
-    for (; m < 1_000_000; m++) {
+    for (let m = M1 + 1; m < 10_000_000; m++) {
       const kx = Math.abs(kx0 + (2 * Math.PI * sign * m) / st.a);
       const F = currentSpectrum(st.sp, kx);
       rowIntegralOverKx(st, kx, hBuf);
@@ -368,11 +382,10 @@ export function activeImpedanceKernel(st: SumState, kx0: number, ky0: number, ou
       zr += tr;
       zi += ti;
       hrLast = hBuf[0]; hiLast = hBuf[1]; kxLast = kx;
-      highRows++;
-      // Stop when the envelope of the remaining terms is below target.
-      const env = (st.sp.c4 * st.sp.c4 / 4) * 2 * Math.hypot(hrLast, hiLast) / (kx * kx * kx * q);
+      rows++;
+      const env = ((st.sp.c4 * st.sp.c4) / 2) * Math.hypot(hrLast, hiLast) / (kx * kx * kx * q);
       if (env < target && m > M1 + 4) {
-        lastMag += Math.hypot(tr, ti);
+        last += env;
         break;
       }
     }
@@ -383,13 +396,163 @@ export function activeImpedanceKernel(st: SumState, kx0: number, ky0: number, ou
     const c = ((st.a / (2 * Math.PI)) * fc2 * avg) / (2 * K * K * q);
     zr += c * hrLast;
     zi += c * hiLast;
-    void m;
   }
-  const zrS = zr / st.area, ziS = zi / st.area;
-  out[o] = zrS;
-  out[o + 1] = ziS;
-  diag.modes = modes + highRows;
-  diag.error = (2 * lastMag + emMag) / st.area / Math.max(1e-300, Math.hypot(zrS, ziS)) + st.tol * 1e-3;
+  out[0] = zr; out[1] = zi; out[2] = last;
+  return rows;
+}
+
+const rowOut = new Float64Array(3);
+const highOut = new Float64Array(3);
+
+/** Diagnostics of one evaluation. @internal */
+interface SumDiagnostics {
+  modes: number;
+  error: number;
+}
+
+/**
+ * Reference (untabulated) evaluation of Z_a at transverse scan wavenumber (kx0, ky0) — the same
+ * formulas the tables are built from; used to build and check them.
+ * @internal
+ */
+export function referenceImpedanceKernel(st: SumState, kx0: number, ky0: number, out: Float64Array, o: number, diag: SumDiagnostics): void {
+  let zr = 0, zi = 0, modes = 0, em = 0;
+  const M1 = st.lowRows;
+  for (let m = -M1; m <= M1; m++) {
+    const kx = kx0 + (2 * Math.PI * m) / st.a;
+    const F = currentSpectrum(st.sp, kx);
+    modes += acceleratedRowSum(st, m, kx, ky0 + m * st.b1y, rowOut);
+    zr += F * F * rowOut[0];
+    zi += F * F * rowOut[1];
+    em += F * F * rowOut[2];
+  }
+  const rows = highRowSum(st, kx0, 1e-3 * st.tol * Math.hypot(zr, zi), highOut);
+  zr += highOut[0];
+  zi += highOut[1];
+  out[o] = zr / st.area;
+  out[o + 1] = zi / st.area;
+  diag.modes = modes + rows;
+  diag.error = (2 * highOut[2] + em) / Math.max(1e-300, Math.hypot(zr, zi)) + 1e-3 * st.tol;
+}
+
+const NX = 8; // Chebyshev degree in k_x for the row-tail tables
+const NY = 10; // … in the tail start Y
+const NH = 24; // … in k_x0 for the higher-row sum
+
+/** Chebyshev points of the second kind cos(jπ/n), j = 0..n, mapped to c + r·x. */
+function chebNode(n: number, j: number, c: number, r: number): number {
+  return c + r * Math.cos((j * Math.PI) / n);
+}
+
+/** Barycentric Lagrange basis at t ∈ [−1, 1] on Chebyshev points of the second kind. */
+function baryBasis(n: number, t: number, out: Float64Array): void {
+  let sum = 0;
+  for (let j = 0; j <= n; j++) {
+    const diff = t - Math.cos((j * Math.PI) / n);
+    if (diff === 0) {
+      out.fill(0, 0, n + 1);
+      out[j] = 1;
+      return;
+    }
+    const wj = (j % 2 === 0 ? 1 : -1) * (j === 0 || j === n ? 0.5 : 1);
+    out[j] = wj / diff;
+    sum += out[j];
+  }
+  for (let j = 0; j <= n; j++) out[j] /= sum;
+}
+
+const bx = new Float64Array(NH + 1);
+const by = new Float64Array(NH + 1);
+
+/** Builds the scan-independent tables (row tails per low row, higher-row sum over k_x0). */
+function buildTables(st: SumState): void {
+  const M1 = st.lowRows;
+  for (let m = -M1; m <= M1; m++) {
+    const kxC = (2 * Math.PI * m) / st.a;
+    const Y0 = rowEdge(st, m);
+    const re = new Float64Array((NX + 1) * (NY + 1));
+    const im = new Float64Array((NX + 1) * (NY + 1));
+    for (let i = 0; i <= NX; i++) {
+      for (let j = 0; j <= NY; j++) {
+        rowTailSum(st, chebNode(NX, i, kxC, st.k0 * 1.0001), chebNode(NY, j, Y0, st.q * 0.5001), tailOut);
+        re[i * (NY + 1) + j] = tailOut[0];
+        im[i * (NY + 1) + j] = tailOut[1];
+      }
+    }
+    st.tailRe.push(re);
+    st.tailIm.push(im);
+  }
+  for (let i = 0; i <= NH; i++) {
+    const kx0 = chebNode(NH, i, 0, st.k0 * 1.0001);
+    // Scale of |Z|·area for the stopping rule: the low rows at this k_x0, broadside in k_y.
+    let zr = 0, zi = 0;
+    for (let m = -M1; m <= M1; m++) {
+      const kx = kx0 + (2 * Math.PI * m) / st.a;
+      const F = currentSpectrum(st.sp, kx);
+      acceleratedRowSum(st, m, kx, m * st.b1y, rowOut);
+      zr += F * F * rowOut[0];
+      zi += F * F * rowOut[1];
+    }
+    highRowSum(st, kx0, 1e-4 * st.tol * Math.hypot(zr, zi), highOut);
+    st.highRe[i] = highOut[0];
+    st.highIm[i] = highOut[1];
+  }
+}
+
+/**
+ * Active impedance at transverse scan wavenumber (kx0, ky0) from the tables: exact Floquet terms of
+ * the low rows near the origin, tabulated Euler–Maclaurin tails and higher-row sum.
+ * @internal
+ */
+export function activeImpedanceKernel(st: SumState, kx0: number, ky0: number, out: Float64Array, o: number, diag: SumDiagnostics): void {
+  let zr = 0, zi = 0, modes = 0;
+  const q = st.q;
+  const M1 = st.lowRows;
+  const s = st.scratch;
+  const txr = 1 / (st.k0 * 1.0001), tyr = 1 / (q * 0.5001);
+  for (let m = -M1; m <= M1; m++) {
+    const kxC = (2 * Math.PI * m) / st.a;
+    const kx = kx0 + kxC;
+    const yoff = ky0 + m * st.b1y;
+    const Y0 = rowEdge(st, m);
+    const nLo = Math.ceil((-Y0 - yoff) / q);
+    const nHi = Math.floor((Y0 - yoff) / q);
+    let rr = 0, ri = 0;
+    for (let n = nLo; n <= nHi; n++) {
+      rowTerm(st, kx, yoff + n * q);
+      rr += s[8];
+      ri += s[9];
+    }
+    modes += nHi - nLo + 1;
+    baryBasis(NX, (kx - kxC) * txr, bx);
+    const re = st.tailRe[m + M1], im = st.tailIm[m + M1];
+    for (let side = 0; side < 2; side++) {
+      const Y = side === 0 ? yoff + (nHi + 0.5) * q : -(yoff + (nLo - 0.5) * q);
+      baryBasis(NY, (Y - Y0) * tyr, by);
+      for (let i = 0; i <= NX; i++) {
+        let ar = 0, ai = 0;
+        const base = i * (NY + 1);
+        for (let j = 0; j <= NY; j++) {
+          ar += by[j] * re[base + j];
+          ai += by[j] * im[base + j];
+        }
+        rr += bx[i] * ar;
+        ri += bx[i] * ai;
+      }
+    }
+    const F = currentSpectrum(st.sp, kx);
+    zr += F * F * rr;
+    zi += F * F * ri;
+  }
+  baryBasis(NH, kx0 * txr, bx);
+  for (let i = 0; i <= NH; i++) {
+    zr += bx[i] * st.highRe[i];
+    zi += bx[i] * st.highIm[i];
+  }
+  out[o] = zr / st.area;
+  out[o + 1] = zi / st.area;
+  diag.modes = modes;
+  diag.error = st.tableError;
 }
 
 /**
