@@ -8,3 +8,4 @@ export * from './errors.js';
 export * from './linalg/index.js';
 export * from './units/index.js';
 export * from './reception/index.js';
+export * from './geometry/index.js';
