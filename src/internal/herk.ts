@@ -49,8 +49,8 @@ export function herkLowerKernel(n: number, k: number, g: Float64Array, ldg: numb
     }
     const cd = 2 * (i * n + i);
     c[cd] += d0;
-    c[cd + 2 * n - 2] += s10r; c[cd + 2 * n - 1] += s10i;
-    c[cd + 2 * n] += d1;
+    c[cd + 2 * n] += s10r; c[cd + 2 * n + 1] += s10i;
+    c[cd + 2 * n + 2] += d1;
   }
   if (i < n) {
     // last odd row against every column j ≤ i

@@ -8,6 +8,7 @@ import { DimensionError, DomainError, NotPositiveDefiniteError } from '../errors
 import type { CMatrix } from '../linalg/cmatrix.js';
 import { choleskyFactor, choleskySolve } from '../linalg/cholesky.js';
 import { inverse } from '../linalg/lu.js';
+import { generalizedHermitianEigen } from '../linalg/eigen.js';
 import { quadraticForm } from '../linalg/ops.js';
 import { assertFiniteCMatrix, assertNonNegative, assertPositive, describeValue } from '../internal/validate.js';
 import { ETA0_OHM, K_BOLTZMANN_J_PER_K } from '../units/constants.js';
@@ -359,4 +360,24 @@ export function embeddedElementEfficiencies(budget: NoiseBudget, terminationOhm:
     out[c] = 4 * zl[c][0] * acc * s;
   }
   return out;
+}
+
+/**
+ * The array's minimum receiver temperature: the lowest beam-equivalent
+ * receiver temperature over all weights.
+ *
+ * @remarks
+ * T_rec,min = min_w wᴴR_rec w / wᴴR_iso,1K w, the smallest generalized
+ * eigenvalue of (R_rec, 2k_B B (Z + Zᴴ)). It is the reference of the
+ * noise-matching efficiency η_nm = T_rec,min / T_rec (K. F. Warnick,
+ * B. Woestenburg, L. Belostotski, P. Russer, IEEE Trans. Antennas Propag. 57(7),
+ * 2009; K. F. Warnick et al., IEEE Trans. Antennas Propag. 58(6), 2010 — from memory).
+ * @param budget - Noise budget.
+ * @returns T_rec,min [K].
+ * @throws {@link NotPositiveDefiniteError} if Z + Zᴴ is not positive definite (a non-passive array).
+ * @category Reception
+ */
+export function minimumReceiverTemperature(budget: NoiseBudget): number {
+  const e = generalizedHermitianEigen(budget.receiver, budget.isotropicPerK, { valuesOnly: true });
+  return Math.max(0, e.values[0]);
 }

@@ -1,5 +1,5 @@
 export type { SampledPortPatterns, PortPatternSource, QuadratureDirections } from './patterns.js';
-export { sampledPatternSource, samplePatterns } from './patterns.js';
+export { sampledPatternSource, samplePatterns, quadratureDirections } from './patterns.js';
 export type { IncidentPolarization } from './planeWave.js';
 export { openCircuitVoltages } from './planeWave.js';
 export type { PointSourceOptions } from './signal.js';
@@ -20,4 +20,4 @@ export {
 export type { NoiseEnvironment, SkyAndGroundEnvironmentOptions, LossModel, NoiseBudgetInput, NoiseBudget } from './budget.js';
 export { isotropicEnvironment, skyAndGroundEnvironment, arrayNoiseBudget } from './budget.js';
 export type { BeamFigures, BeamFigureOptions, ScanSweepOptions, ScanSweepResult } from './figures.js';
-export { beamFigures, maxSnrWeightsUnpolarized, scanSweep, embeddedElementEfficiencies } from './figures.js';
+export { beamFigures, maxSnrWeightsUnpolarized, scanSweep, embeddedElementEfficiencies, minimumReceiverTemperature } from './figures.js';

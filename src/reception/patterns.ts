@@ -7,6 +7,7 @@
 import { DimensionError, DomainError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
 import { assertCMatrix, assertFiniteArray, assertPositive, describeValue } from '../internal/validate.js';
+import type { SphereQuadrature } from '../geometry/quadrature.js';
 
 /**
  * Embedded open-circuit patterns of N ports sampled at M directions.
@@ -217,4 +218,32 @@ export function samplePatterns(source: PortPatternSource, thetaRad: Float64Array
     driveCurrentA: source.driveCurrentA,
     frequencyHz: source.frequencyHz,
   };
+}
+
+/**
+ * Expands a product sphere quadrature (geometry module) into one (θ, φ, weight)
+ * triple per direction, in the quadrature's own order (direction
+ * k = j·thetaCount + i, θ fastest).
+ * @param quadrature - The rule from sphereQuadrature or sphereQuadratureForLayout.
+ * @returns Per-direction angles [rad] and weights [sr].
+ * @throws {@link DimensionError} if the rule's arrays are inconsistent.
+ * @example
+ * ```ts
+ * const q = quadratureDirections(sphereQuadrature(8, 16)); // 128 directions, Σ weightSr = 4π
+ * ```
+ * @category Reception
+ */
+export function quadratureDirections(quadrature: SphereQuadrature): QuadratureDirections {
+  const { thetaCount, phiCount, count } = quadrature;
+  if (quadrature.thetaRad.length !== thetaCount || quadrature.phiRad.length !== phiCount || quadrature.weights.length !== count || count !== thetaCount * phiCount) {
+    throw new DimensionError(`invalid argument "quadrature": expected thetaRad of length thetaCount, phiRad of length phiCount and count = thetaCount·phiCount weights, received ${quadrature.thetaRad.length}, ${quadrature.phiRad.length}, ${quadrature.weights.length}.`);
+  }
+  const thetaRad = new Float64Array(count), phiRad = new Float64Array(count);
+  for (let j = 0; j < phiCount; j++) {
+    for (let i = 0; i < thetaCount; i++) {
+      thetaRad[j * thetaCount + i] = quadrature.thetaRad[i];
+      phiRad[j * thetaCount + i] = quadrature.phiRad[j];
+    }
+  }
+  return { thetaRad, phiRad, weightSr: quadrature.weights };
 }
