@@ -21,3 +21,5 @@ export type { NoiseEnvironment, SkyAndGroundEnvironmentOptions, LossModel, Noise
 export { isotropicEnvironment, skyAndGroundEnvironment, arrayNoiseBudget } from './budget.js';
 export type { BeamFigures, BeamFigureOptions, ScanSweepOptions, ScanSweepResult } from './figures.js';
 export { beamFigures, maxSnrWeightsUnpolarized, scanSweep, embeddedElementEfficiencies, minimumReceiverTemperature } from './figures.js';
+export type { ArrayPorts, ReceivingArrayDescription, ReceivingArrayEvaluation } from './evaluate.js';
+export { evaluateReceivingArray } from './evaluate.js';
