@@ -10,6 +10,7 @@ export * from './units/index.js';
 export * from './taper/index.js';
 export * from './network/index.js';
 export * from './element/index.js';
+export * from './reception/index.js';
 export * from './geometry/index.js';
 export * from './pattern/index.js';
 export * from './beamform/index.js';
