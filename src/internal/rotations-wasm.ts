@@ -7,7 +7,7 @@
  * @internal
  * @module
  */
-import { I32, OP, SIMD, V128, c32, f64load, functionBody, get, instantiate, set, simd, vload, vstore, wasmSettings } from './wasm-assembler.js';
+import { I32, OP, SIMD, V128, c32, f64load, functionBody, get, set, simd, vload, vstore, lazyModule, ensureMemory } from './wasm-assembler.js';
 
 /**
  * rotate(pz, rowBytes, lo, m, pc, ps): Zt is stored by rows t (row stride
@@ -63,12 +63,7 @@ interface RotationModule {
   rotate: (pz: number, rowBytes: number, lo: number, m: number, pc: number, ps: number) => void;
 }
 
-let instance: RotationModule | null | undefined;
-
-function load(): RotationModule | null {
-  if (instance === undefined) instance = instantiate<RotationModule>([{ name: 'rotate', params: 6, body: rotateBody() }]);
-  return wasmSettings.enabled ? instance : null;
-}
+const load = lazyModule<RotationModule>(() => [{ name: 'rotate', params: 6, body: rotateBody() }]);
 
 /** Workspace of one QL run in the module memory. */
 export interface RotationWorkspace {
@@ -89,9 +84,7 @@ export function rotationWorkspace(n: number): RotationWorkspace | null {
   if (mod === null) return null;
   const stride = Math.ceil(n / 8) * 8;
   const bytes = 8 * (n * stride + 2 * n);
-  const mem = mod.memory;
-  if (mem.buffer.byteLength < bytes) mem.grow(Math.ceil((bytes - mem.buffer.byteLength) / 65536));
-  const view = new Float64Array(mem.buffer);
+  const view = ensureMemory(mod.memory, bytes);
   view.fill(0, 0, n * stride);
   for (let i = 0; i < n; i++) view[i * stride + i] = 1;
   const cOffset = n * stride, sOffset = cOffset + n;

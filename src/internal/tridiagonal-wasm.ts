@@ -7,7 +7,7 @@
  * @internal
  * @module
  */
-import { I32, OP, SIMD, V128, c32, f64load, functionBody, get, instantiate, set, simd, vload, vstore, wasmSettings } from './wasm-assembler.js';
+import { I32, OP, SIMD, V128, c32, f64load, functionBody, get, set, simd, vload, vstore, lazyModule, ensureMemory } from './wasm-assembler.js';
 
 /**
  * rank2(pw, rowBytes, k1, n, pqc, pqs, puc, pus, pu, pq): for k1 ≤ j < i < n,
@@ -53,12 +53,7 @@ interface Rank2Module {
   rank2: (pw: number, rowBytes: number, k1: number, n: number, pqc: number, pqs: number, puc: number, pus: number, pu: number, pq: number) => void;
 }
 
-let instance: Rank2Module | null | undefined;
-
-function load(): Rank2Module | null {
-  if (instance === undefined) instance = instantiate<Rank2Module>([{ name: 'rank2', params: 10, body: rank2Body() }]);
-  return wasmSettings.enabled ? instance : null;
-}
+const load = lazyModule<Rank2Module>(() => [{ name: 'rank2', params: 10, body: rank2Body() }]);
 
 /** Workspace of one reduction in the module memory. */
 export interface Rank2Workspace {
@@ -76,9 +71,7 @@ export function rank2Workspace(n: number): Rank2Workspace | null {
   if (mod === null) return null;
   const m = 2 * n * n, v = 2 * n;
   const bytes = 8 * (m + 6 * v);
-  const mem = mod.memory;
-  if (mem.buffer.byteLength < bytes) mem.grow(Math.ceil((bytes - mem.buffer.byteLength) / 65536));
-  const view = new Float64Array(mem.buffer);
+  const view = ensureMemory(mod.memory, bytes);
   const qc = m, qs = m + v, uc = m + 2 * v, us = m + 3 * v, u = m + 4 * v, q = m + 5 * v;
   return {
     view, qc, qs, uc, us, u, q,

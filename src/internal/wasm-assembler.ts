@@ -94,3 +94,22 @@ export function instantiate<T>(fns: WasmFunction[]): T | null {
     return null;
   }
 }
+
+/**
+ * A loader that assembles and instantiates the module on first use and then
+ * returns the cached exports, or null when WebAssembly SIMD is unavailable or
+ * switched off in {@link wasmSettings}.
+ */
+export function lazyModule<T>(fns: () => WasmFunction[]): () => T | null {
+  let cached: T | null | undefined;
+  return () => {
+    if (cached === undefined) cached = instantiate<T>(fns());
+    return wasmSettings.enabled ? cached : null;
+  };
+}
+
+/** Grows `memory` to at least `bytes` and returns a fresh Float64Array view of it. */
+export function ensureMemory(memory: WebAssembly.Memory, bytes: number): Float64Array {
+  if (memory.buffer.byteLength < bytes) memory.grow(Math.ceil((bytes - memory.buffer.byteLength) / 65536));
+  return new Float64Array(memory.buffer);
+}

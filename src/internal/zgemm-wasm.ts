@@ -8,7 +8,7 @@
  * @module
  */
 
-import { I32, OP, SIMD, V128, c32, functionBody, get, instantiate, set, simd, uleb, vload, vstore, wasmSettings } from './wasm-assembler.js';
+import { I32, OP, SIMD, V128, c32, functionBody, get, set, simd, uleb, vload, vstore, lazyModule, ensureMemory } from './wasm-assembler.js';
 
 /** Inner-dimension unroll of the SIMD kernel (k is padded to a multiple of it); 3 measured fastest of 2, 3, 4 (4 spills registers). */
 export const SIMD_UNROLL = 3;
@@ -86,12 +86,7 @@ interface ZgemmModule {
   zgemm: (m: number, n: number, k: number, pa: number, lda: number, pbr: number, pbi: number, pcr: number, pci: number) => void;
 }
 
-let instance: ZgemmModule | null | undefined;
-
-function load(): ZgemmModule | null {
-  if (instance === undefined) instance = instantiate<ZgemmModule>([{ name: 'zgemm', params: 9, body: zgemmBody() }]);
-  return wasmSettings.enabled ? instance : null;
-}
+const load = lazyModule<ZgemmModule>(() => [{ name: 'zgemm', params: 9, body: zgemmBody() }]);
 
 /** Whether the SIMD kernel is available in this runtime. */
 export function simdGemmAvailable(): boolean {
@@ -125,9 +120,7 @@ export function simdGemm(
   // layout (bytes): A (m·kPad·16) | Bre (kPad·nPad·8) | Bim | Cre (m·nPad·8) | Cim
   const aBytes = m * kPad * 16, bBytes = kPad * nPad * 8, cBytes = m * nPad * 8;
   const total = aBytes + 2 * bBytes + 2 * cBytes;
-  const mem = mod.memory;
-  if (mem.buffer.byteLength < total) mem.grow(Math.ceil((total - mem.buffer.byteLength) / 65536));
-  const f = new Float64Array(mem.buffer);
+  const f = ensureMemory(mod.memory, total);
   const pa = 0, pbr = aBytes, pbi = pbr + bBytes, pcr = pbi + bBytes, pci = pcr + cBytes;
   // A, padded with zero columns up to a multiple of SIMD_UNROLL
   for (let i = 0; i < m; i++) {
