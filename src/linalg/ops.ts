@@ -228,6 +228,12 @@ export function frobeniusNorm(a: CMatrix): number {
   return scaleV * Math.sqrt(ssq);
 }
 
+/** |re + j·im|: sqrt of the squares when they are safely representable, else Math.hypot (slow but overflow-free). */
+function modulus(re: number, im: number): number {
+  const s = re * re + im * im;
+  return s > 1e-290 && s < 1e290 ? Math.sqrt(s) : Math.hypot(re, im);
+}
+
 /**
  * Matrix 1-norm (largest column sum of moduli).
  * @param a - Matrix.
@@ -241,7 +247,7 @@ export function norm1(a: CMatrix): number {
     let s = 0;
     for (let i = 0; i < a.rows; i++) {
       const k = 2 * (i * a.cols + j);
-      s += Math.hypot(a.data[k], a.data[k + 1]);
+      s += modulus(a.data[k], a.data[k + 1]);
     }
     if (s > best) best = s;
   }
@@ -261,7 +267,7 @@ export function normInf(a: CMatrix): number {
     let s = 0;
     for (let j = 0; j < a.cols; j++) {
       const k = 2 * (i * a.cols + j);
-      s += Math.hypot(a.data[k], a.data[k + 1]);
+      s += modulus(a.data[k], a.data[k + 1]);
     }
     if (s > best) best = s;
   }
