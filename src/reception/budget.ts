@@ -81,10 +81,16 @@ export function skyAndGroundEnvironment(options: SkyAndGroundEnvironmentOptions)
  * How the ohmic loss of the array is described.
  * @category Reception
  */
-export type LossModel =
-  | 'fromPatterns'
-  | 'lossless'
-  | { readonly radiationEfficiency: Float64Array };
+export type LossModel = 'fromPatterns' | 'lossless' | ElementEfficiencyLoss;
+
+/**
+ * Loss described by each element's own radiation efficiency (no mutual loss resistance).
+ * @category Reception
+ */
+export interface ElementEfficiencyLoss {
+  /** Radiation efficiency eₙ of each port's element, in (0, 1]. */
+  readonly radiationEfficiency: Float64Array;
+}
 
 /**
  * Inputs of {@link arrayNoiseBudget}.

@@ -1,6 +1,6 @@
 export type { SampledPortPatterns, PortPatternSource, QuadratureDirections } from './patterns.js';
 export { sampledPatternSource, samplePatterns, quadratureDirections } from './patterns.js';
-export type { IncidentPolarization } from './planeWave.js';
+export type { IncidentPolarization, ThetaPhiPolarization, Ludwig3Polarization, CircularPolarization } from './planeWave.js';
 export { openCircuitVoltages } from './planeWave.js';
 export type { PointSourceOptions } from './signal.js';
 export { pointSourceCorrelation } from './signal.js';
@@ -17,9 +17,9 @@ export { amplifierNoiseTemperature, receiverNoiseCorrelation } from './amplifier
 export {
   loadedVoltageTransfer, referCorrelationToLoads, referCorrelationToOpenCircuit, referWeightsToOpenCircuit, referWeightsToLoads,
 } from './referral.js';
-export type { NoiseEnvironment, SkyAndGroundEnvironmentOptions, LossModel, NoiseBudgetInput, NoiseBudget } from './budget.js';
+export type { NoiseEnvironment, SkyAndGroundEnvironmentOptions, LossModel, ElementEfficiencyLoss, NoiseBudgetInput, NoiseBudget } from './budget.js';
 export { isotropicEnvironment, skyAndGroundEnvironment, arrayNoiseBudget } from './budget.js';
 export type { BeamFigures, BeamFigureOptions, ScanSweepOptions, ScanSweepResult } from './figures.js';
 export { beamFigures, maxSnrWeightsUnpolarized, scanSweep, embeddedElementEfficiencies, minimumReceiverTemperature } from './figures.js';
-export type { ArrayPorts, ReceivingArrayDescription, ReceivingArrayEvaluation } from './evaluate.js';
+export type { ArrayPorts, ReceivingArrayDescription, ReceivingArrayEvaluation, BeamDirections, EvaluationTimings } from './evaluate.js';
 export { evaluateReceivingArray } from './evaluate.js';
