@@ -6,8 +6,8 @@
 import { DimensionError, DomainError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
 import { assertFiniteCMatrix, assertSquare, assertPositive, describeValue } from '../internal/validate.js';
-import { K_BOLTZMANN_J_PER_K, T0_K } from '../units/constants.js';
-import { receiverNoiseCorrelation, type AmplifierNoise } from './amplifier.js';
+import { T0_K } from '../units/constants.js';
+import { receiverNoiseCorrelation } from './amplifier.js';
 import {
   aboveHorizon, brightnessCorrelations, brightnessValues, checkTemperature,
   type Brightness, type BrightnessOptions, type HorizonOrientation,
@@ -16,7 +16,8 @@ import {
   assertPatternSource, assertQuadrature, sampledPatternSource,
   type PortPatternSource, type QuadratureDirections, type SampledPortPatterns,
 } from './patterns.js';
-import { ohmicLossNoiseCorrelation, twissInto } from './thermal.js';
+import { ohmicLossNoiseCorrelation } from './thermal.js';
+import { thermalImpedanceNoise, type NoiseParametersInput } from '../network/noise.js';
 
 /**
  * The noise environment: a brightness distribution and which directions count
@@ -106,7 +107,7 @@ export interface NoiseBudgetInput {
   /** External noise environment. */
   readonly environment: NoiseEnvironment;
   /** Amplifier noise parameters (one shared set or one per port). @defaultValue noiseless receivers */
-  readonly amplifiers?: AmplifierNoise | ReadonlyArray<AmplifierNoise>;
+  readonly amplifiers?: NoiseParametersInput | ReadonlyArray<NoiseParametersInput>;
   /** Physical temperature of the array structure [K]. @defaultValue T0 = 290 K */
   readonly physicalTemperatureK?: number;
   /** Bandwidth B [Hz], > 0. */
@@ -210,7 +211,7 @@ export function arrayNoiseBudget(input: NoiseBudgetInput): NoiseBudget {
     src, q, [tSky, tGround, oneSky, oneGround], b, input.blockOptions ?? {},
   );
   const radiationPerK = { rows: n, cols: n, data: skyRegionPerK.data.map((v, k) => v + groundRegionPerK.data[k]) };
-  const isotropicPerK = twissInto(new Float64Array(2 * n * n), z, 2 * K_BOLTZMANN_J_PER_K * b);
+  const isotropicPerK = thermalImpedanceNoise(z, 1, b);
   const lossModel = input.loss ?? 'fromPatterns';
   let loss: CMatrix;
   if (lossModel === 'lossless') loss = { rows: n, cols: n, data: new Float64Array(2 * n * n) };

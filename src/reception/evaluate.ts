@@ -8,7 +8,7 @@ import type { CMatrix, ComplexLike } from '../linalg/cmatrix.js';
 import { complexParts } from '../linalg/cmatrix.js';
 import { assertPositive, describeValue } from '../internal/validate.js';
 import type { SphereQuadrature } from '../geometry/quadrature.js';
-import type { AmplifierNoise } from './amplifier.js';
+import type { NoiseParametersInput } from '../network/noise.js';
 import { arrayNoiseBudget, type LossModel, type NoiseBudget, type NoiseEnvironment } from './budget.js';
 import {
   embeddedElementEfficiencies, minimumReceiverTemperature, scanSweep, type BeamFigures,
@@ -71,7 +71,7 @@ export interface ReceivingArrayDescription {
   /** External noise environment. */
   readonly environment: NoiseEnvironment;
   /** Amplifier noise parameters. @defaultValue noiseless receivers */
-  readonly amplifiers?: AmplifierNoise | ReadonlyArray<AmplifierNoise>;
+  readonly amplifiers?: NoiseParametersInput | ReadonlyArray<NoiseParametersInput>;
   /** Terminations for the embedded element efficiency (amplifier input impedances) [Ω]. @defaultValue 50 Ω each (common practice) */
   readonly terminationOhm?: ComplexLike | ReadonlyArray<ComplexLike>;
   /** Physical temperature of the array [K]. @defaultValue 290 */

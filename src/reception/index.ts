@@ -11,9 +11,8 @@ export {
   brightnessCorrelation, brightnessCorrelations, isotropicBrightness, aboveHorizon, skyAndGroundBrightness,
 } from './brightness.js';
 export type { OhmicLossOptions } from './thermal.js';
-export { thermalNoiseCorrelation, ohmicLossNoiseCorrelation } from './thermal.js';
-export type { AmplifierNoise } from './amplifier.js';
-export { amplifierNoiseTemperature, receiverNoiseCorrelation } from './amplifier.js';
+export { ohmicLossNoiseCorrelation } from './thermal.js';
+export { receiverNoiseCorrelation } from './amplifier.js';
 export {
   loadedVoltageTransfer, referCorrelationToLoads, referCorrelationToOpenCircuit, referWeightsToOpenCircuit, referWeightsToLoads,
 } from './referral.js';

@@ -1,6 +1,6 @@
 /**
- * Thermal noise of passive networks (Twiss), radiation resistance matrices and
- * ohmic-loss noise.
+ * Ohmic-loss noise of an array: the part of the Twiss noise (network module,
+ * thermalImpedanceNoise) not accounted for by radiation.
  * @module
  */
 import { DimensionError, DomainError } from '../errors.js';
@@ -8,45 +8,7 @@ import type { CMatrix } from '../linalg/cmatrix.js';
 import { assertFiniteArray, assertFiniteCMatrix, assertPositive, assertSquare } from '../internal/validate.js';
 import { K_BOLTZMANN_J_PER_K } from '../units/constants.js';
 import { checkTemperature } from './brightness.js';
-
-/**
- * Open-circuit noise correlation of a passive network at uniform temperature T.
- *
- * @remarks
- * DESIGN, "thermal noise": E[v vᴴ] = 2 k_B T B (Z + Zᴴ) (R. Q. Twiss, "Nyquist's
- * and Thevenin's theorems generalized for nonreciprocal linear networks",
- * J. Appl. Phys. 26(5), 1955, from memory).
- * @param impedanceOhm - Impedance matrix Z [Ω], N×N.
- * @param temperatureK - Physical temperature T [K], ≥ 0.
- * @param bandwidthHz - Bandwidth B [Hz], > 0.
- * @returns 2 k_B T B (Z + Zᴴ) [V²], N×N Hermitian.
- * @throws {@link DimensionError} for a non-square Z; {@link DomainError} for a negative temperature or non-finite entries.
- * @example
- * ```ts
- * thermalNoiseCorrelation(fromRows([[50]]), 290, 1); // 4 k_B·290·50 ≈ 8.0e-19 V²
- * ```
- * @category Reception
- */
-export function thermalNoiseCorrelation(impedanceOhm: CMatrix, temperatureK: number, bandwidthHz: number): CMatrix {
-  assertSquare('impedanceOhm', impedanceOhm);
-  assertFiniteCMatrix('impedanceOhm', impedanceOhm);
-  checkTemperature('temperatureK', temperatureK);
-  assertPositive('bandwidthHz', bandwidthHz, 'Hz');
-  return twissInto(new Float64Array(2 * impedanceOhm.rows * impedanceOhm.rows), impedanceOhm, 2 * K_BOLTZMANN_J_PER_K * temperatureK * bandwidthHz);
-}
-
-/** @internal out = s·(Z + Zᴴ) as a CMatrix. No checks. */
-export function twissInto(out: Float64Array, z: CMatrix, s: number): CMatrix {
-  const n = z.rows, d = z.data;
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j < n; j++) {
-      const a = 2 * (i * n + j), b = 2 * (j * n + i);
-      out[a] = s * (d[a] + d[b]);
-      out[a + 1] = s * (d[a + 1] - d[b + 1]);
-    }
-  }
-  return { rows: n, cols: n, data: out };
-}
+import { thermalImpedanceNoise } from '../network/noise.js';
 
 /**
  * Options of {@link ohmicLossNoiseCorrelation}: give exactly one description of the radiation.
@@ -102,7 +64,7 @@ export function ohmicLossNoiseCorrelation(
     throw new DimensionError('invalid argument "options": give exactly one of isotropicRadiationPerK (an N×N matrix) or radiationEfficiency (N values).');
   }
   const s = 2 * K_BOLTZMANN_J_PER_K * physicalTemperatureK * bandwidthHz;
-  const out = twissInto(new Float64Array(2 * n * n), impedanceOhm, s);
+  const out = thermalImpedanceNoise(impedanceOhm, physicalTemperatureK, bandwidthHz);
   if (hasIso) {
     const r = options.isotropicRadiationPerK as CMatrix;
     assertSquare('options.isotropicRadiationPerK', r);

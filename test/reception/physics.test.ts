@@ -8,9 +8,11 @@ import { wavelengthM } from '../../src/units/convert.js';
 import {
   arrayNoiseBudget, beamFigures, brightnessCorrelation, brightnessCorrelations, embeddedElementEfficiencies,
   isotropicBrightness, isotropicEnvironment, maxSnrWeightsUnpolarized, minimumReceiverTemperature, openCircuitVoltages,
-  pointSourceCorrelation, quadratureDirections, samplePatterns, scanSweep, skyAndGroundEnvironment, thermalNoiseCorrelation,
-  amplifierNoiseTemperature, type AmplifierNoise,
+  pointSourceCorrelation, quadratureDirections, samplePatterns, scanSweep, skyAndGroundEnvironment,
 } from '../../src/reception/index.js';
+import {
+  noiseTemperatureK as amplifierNoiseTemperature, thermalImpedanceNoise as thermalNoiseCorrelation, type NoiseParametersInput as AmplifierNoise,
+} from '../../src/network/noise.js';
 import { expectCMatrixClose } from '../helpers/matchers.js';
 import { hertzianResistance, hertzianSource } from './hertzian.js';
 
