@@ -22,3 +22,5 @@ export type { BeamFigures, BeamFigureOptions, ScanSweepOptions, ScanSweepResult 
 export { beamFigures, maxSnrWeightsUnpolarized, scanSweep, embeddedElementEfficiencies, minimumReceiverTemperature } from './figures.js';
 export type { ArrayPorts, ReceivingArrayDescription, ReceivingArrayEvaluation, BeamDirections, EvaluationTimings } from './evaluate.js';
 export { evaluateReceivingArray } from './evaluate.js';
+export type { ArrayPortSource, DipoleArrayPortsOptions } from './ports.js';
+export { dipoleArrayPorts, patternSetPorts } from './ports.js';
