@@ -14,6 +14,8 @@ import {
   noiseTemperatureK as amplifierNoiseTemperature, thermalImpedanceNoise as thermalNoiseCorrelation, type NoiseParametersInput as AmplifierNoise,
 } from '../../src/network/noise.js';
 import { expectCMatrixClose } from '../helpers/matchers.js';
+import { maxSnrWeightsForCorrelation } from '../../src/beamform/projection.js';
+import { quadraticForm } from '../../src/linalg/ops.js';
 import { hertzianResistance, hertzianSource } from './hertzian.js';
 
 const f = 1e9, lambda = wavelengthM(f), L = lambda / 50;
@@ -201,6 +203,17 @@ describe('noise decomposition and efficiencies', () => {
       // coupled beams need not stay between the element efficiencies, but a passive lossy array has 0 < η_rad < 1
       expect(g.radiationEfficiency).toBeGreaterThan(0.5);
       expect(g.radiationEfficiency).toBeLessThan(1);
+    }
+  });
+  it('batched rank-2 max-SNR weights reach the SNR of the generic generalized-eigenvector beamformer', () => {
+    // Cross-check against the beamform module's any-rank max-SNR (principal generalized eigenvector).
+    const w = maxSnrWeightsUnpolarized(budget.total, beams);
+    for (let k = 0; k < 2; k++) {
+      const rs = pointSourceCorrelation(beams, k, { fluxDensityWPerM2Hz: 1e-24, bandwidthHz: 1 });
+      const ref = maxSnrWeightsForCorrelation(rs, budget.total);
+      const wk = { rows: 4, cols: 1, data: Float64Array.from({ length: 8 }, (_, q) => w.data[2 * ((q >> 1) * 2 + k) + (q & 1)]) };
+      const snr = quadraticForm(wk, rs) / quadraticForm(wk, budget.total);
+      expect(Math.abs(snr / ref.snr - 1)).toBeLessThan(1e-9);
     }
   });
   it('T_rec,min ≤ T_rec of every beam; N = 1 gives the one-amplifier temperature', () => {
