@@ -82,7 +82,16 @@ export function skyAndGroundEnvironment(options: SkyAndGroundEnvironmentOptions)
  * How the ohmic loss of the array is described.
  * @category Reception
  */
-export type LossModel = 'fromPatterns' | 'lossless' | ElementEfficiencyLoss;
+export type LossModel = 'fromPatterns' | 'lossless' | ElementEfficiencyLoss | LossResistance;
+
+/**
+ * Loss described by a loss resistance matrix.
+ * @category Reception
+ */
+export interface LossResistance {
+  /** Loss resistance matrix R_loss [Ω], N×N Hermitian positive semidefinite. */
+  readonly lossResistanceOhm: CMatrix;
+}
 
 /**
  * Loss described by each element's own radiation efficiency (no mutual loss resistance).
@@ -216,8 +225,9 @@ export function arrayNoiseBudget(input: NoiseBudgetInput): NoiseBudget {
   let loss: CMatrix;
   if (lossModel === 'lossless') loss = { rows: n, cols: n, data: new Float64Array(2 * n * n) };
   else if (lossModel === 'fromPatterns') loss = ohmicLossNoiseCorrelation(z, tPhys, b, { isotropicRadiationPerK: radiationPerK });
+  else if (lossModel !== null && typeof lossModel === 'object' && 'lossResistanceOhm' in lossModel) loss = ohmicLossNoiseCorrelation(z, tPhys, b, { lossResistanceOhm: lossModel.lossResistanceOhm });
   else if (lossModel !== null && typeof lossModel === 'object') loss = ohmicLossNoiseCorrelation(z, tPhys, b, { radiationEfficiency: lossModel.radiationEfficiency });
-  else throw new DomainError(`invalid argument "input.loss": expected 'fromPatterns', 'lossless' or {radiationEfficiency}, received ${describeValue(lossModel)}.`);
+  else throw new DomainError(`invalid argument "input.loss": expected 'fromPatterns', 'lossless', {radiationEfficiency} or {lossResistanceOhm}, received ${describeValue(lossModel)}.`);
   const receiver = input.amplifiers === undefined
     ? { rows: n, cols: n, data: new Float64Array(2 * n * n) }
     : receiverNoiseCorrelation(z, input.amplifiers, b);

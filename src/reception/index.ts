@@ -16,7 +16,7 @@ export { receiverNoiseCorrelation } from './amplifier.js';
 export {
   loadedVoltageTransfer, referCorrelationToLoads, referCorrelationToOpenCircuit, referWeightsToOpenCircuit, referWeightsToLoads,
 } from './referral.js';
-export type { NoiseEnvironment, SkyAndGroundEnvironmentOptions, LossModel, ElementEfficiencyLoss, NoiseBudgetInput, NoiseBudget } from './budget.js';
+export type { NoiseEnvironment, SkyAndGroundEnvironmentOptions, LossModel, ElementEfficiencyLoss, LossResistance, NoiseBudgetInput, NoiseBudget } from './budget.js';
 export { isotropicEnvironment, skyAndGroundEnvironment, arrayNoiseBudget } from './budget.js';
 export type { BeamFigures, BeamFigureOptions, ScanSweepOptions, ScanSweepResult } from './figures.js';
 export { beamFigures, maxSnrWeightsUnpolarized, scanSweep, embeddedElementEfficiencies, minimumReceiverTemperature } from './figures.js';

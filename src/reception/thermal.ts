@@ -27,18 +27,26 @@ export interface OhmicLossOptions {
    * loss resistance (common practice for thin-wire elements).
    */
   radiationEfficiency?: Float64Array;
+  /**
+   * Loss resistance matrix R_loss [Ω], N×N Hermitian positive semidefinite
+   * (e.g. Re Z minus the radiation resistance matrix of a solver); the noise is
+   * 4 k_B T_phys B R_loss.
+   */
+  lossResistanceOhm?: CMatrix;
 }
 
 /**
  * Noise of the ohmic losses of an array at physical temperature T_phys, at the
- * open-circuit terminals.
+ * open-circuit terminals, from the pattern integral, from per-element radiation
+ * efficiencies, or from a loss resistance matrix.
  *
  * @remarks
  * The part of the Twiss matrix not accounted for by radiation:
  * R_loss = 2 k_B T_phys B (Z + Zᴴ) − T_phys·R_iso,1K, where R_iso,1K is the
  * isotropic brightness integral at 1 K (DESIGN, "brightness noise"); a
  * lossless array gives zero. With per-element radiation efficiencies eₙ
- * instead: R_loss = 4 k_B T_phys B diag((1 − eₙ) Re Zₙₙ). References: K. F.
+ * instead: R_loss = 4 k_B T_phys B diag((1 − eₙ) Re Zₙₙ); with a loss resistance
+ * matrix: 4 k_B T_phys B · herm(R_loss) (Twiss for the lossy part alone). References: K. F.
  * Warnick, B. Woestenburg, L. Belostotski, P. Russer, "Minimizing the noise
  * penalty due to mutual coupling in array antennas", IEEE Trans. Antennas
  * Propag. 57(7), 2009 (from memory).
@@ -60,8 +68,27 @@ export function ohmicLossNoiseCorrelation(
   assertPositive('bandwidthHz', bandwidthHz, 'Hz');
   const n = impedanceOhm.rows;
   const hasIso = options?.isotropicRadiationPerK !== undefined, hasEff = options?.radiationEfficiency !== undefined;
-  if (hasIso === hasEff) {
-    throw new DimensionError('invalid argument "options": give exactly one of isotropicRadiationPerK (an N×N matrix) or radiationEfficiency (N values).');
+  const hasRes = options?.lossResistanceOhm !== undefined;
+  if (Number(hasIso) + Number(hasEff) + Number(hasRes) !== 1) {
+    throw new DimensionError('invalid argument "options": give exactly one of isotropicRadiationPerK (an N×N matrix), radiationEfficiency (N values) or lossResistanceOhm (an N×N matrix).');
+  }
+  if (hasRes) {
+    const r = options.lossResistanceOhm as CMatrix;
+    assertSquare('options.lossResistanceOhm', r);
+    assertFiniteCMatrix('options.lossResistanceOhm', r);
+    if (r.rows !== n) {
+      throw new DimensionError(`invalid argument "options.lossResistanceOhm": expected ${n}×${n} (the size of "impedanceOhm"), received ${r.rows}×${r.cols}.`);
+    }
+    const c = 4 * K_BOLTZMANN_J_PER_K * physicalTemperatureK * bandwidthHz;
+    const data = new Float64Array(2 * n * n);
+    for (let i = 0; i < n; i++) {
+      for (let j = 0; j < n; j++) {
+        const a = 2 * (i * n + j), b = 2 * (j * n + i);
+        data[a] = 0.5 * c * (r.data[a] + r.data[b]);
+        data[a + 1] = 0.5 * c * (r.data[a + 1] - r.data[b + 1]);
+      }
+    }
+    return { rows: n, cols: n, data };
   }
   const s = 2 * K_BOLTZMANN_J_PER_K * physicalTemperatureK * bandwidthHz;
   const out = thermalImpedanceNoise(impedanceOhm, physicalTemperatureK, bandwidthHz);

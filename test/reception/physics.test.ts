@@ -8,7 +8,7 @@ import { wavelengthM } from '../../src/units/convert.js';
 import {
   arrayNoiseBudget, beamFigures, brightnessCorrelation, brightnessCorrelations, embeddedElementEfficiencies,
   isotropicBrightness, isotropicEnvironment, maxSnrWeightsUnpolarized, minimumReceiverTemperature, openCircuitVoltages,
-  pointSourceCorrelation, quadratureDirections, samplePatterns, scanSweep, skyAndGroundEnvironment,
+  pointSourceCorrelation, quadratureDirections, samplePatterns, scanSweep, skyAndGroundEnvironment, ohmicLossNoiseCorrelation,
 } from '../../src/reception/index.js';
 import {
   noiseTemperatureK as amplifierNoiseTemperature, thermalImpedanceNoise as thermalNoiseCorrelation, type NoiseParametersInput as AmplifierNoise,
@@ -204,6 +204,21 @@ describe('noise decomposition and efficiencies', () => {
       expect(g.radiationEfficiency).toBeGreaterThan(0.5);
       expect(g.radiationEfficiency).toBeLessThan(1);
     }
+  });
+  it('three loss descriptions agree: Twiss − pattern integral, element efficiencies, loss resistance matrix', () => {
+    // Twiss for the lossy part alone; R_loss,nn = (1 − eₙ) Re Z'ₙₙ by construction of zLossy.
+    const rl = { rows: 4, cols: 4, data: new Float64Array(32) };
+    for (let i = 0; i < 4; i++) rl.data[2 * (i * 4 + i)] = (1 - eff[i]) * zLossy.data[2 * (i * 4 + i)];
+    const q = quadratureDirections(sphereQuadrature(40, 80));
+    const rad = brightnessCorrelation(src, q, isotropicBrightness(1), 1);
+    const a = ohmicLossNoiseCorrelation(zLossy, 295, 1, { isotropicRadiationPerK: rad });
+    const b = ohmicLossNoiseCorrelation(zLossy, 295, 1, { radiationEfficiency: eff });
+    const c = ohmicLossNoiseCorrelation(zLossy, 295, 1, { lossResistanceOhm: rl });
+    expectCMatrixClose(a, b, { rtol: 1e-9 });
+    expectCMatrixClose(c, b, { rtol: 1e-14 });
+    expect(() => ohmicLossNoiseCorrelation(zLossy, 295, 1, { radiationEfficiency: eff, lossResistanceOhm: rl })).toThrow(DimensionError);
+    expect(() => ohmicLossNoiseCorrelation(zLossy, 295, 1, { radiationEfficiency: Float64Array.of(1.2, 1, 1, 1) })).toThrow(DomainError);
+    expect(() => ohmicLossNoiseCorrelation(zLossy, -1, 1, { lossResistanceOhm: rl })).toThrow(DomainError);
   });
   it('batched rank-2 max-SNR weights reach the SNR of the generic generalized-eigenvector beamformer', () => {
     // Cross-check against the beamform module's any-rank max-SNR (principal generalized eigenvector).
