@@ -8,7 +8,7 @@ import { wavelengthM } from '../../src/units/convert.js';
 import {
   arrayNoiseBudget, beamFigures, brightnessCorrelation, brightnessCorrelations, embeddedElementEfficiencies,
   isotropicBrightness, isotropicEnvironment, maxSnrWeightsUnpolarized, minimumReceiverTemperature, openCircuitVoltages,
-  pointSourceCorrelation, quadratureDirections, samplePatterns, scanSweep, skyAndGroundEnvironment, ohmicLossNoiseCorrelation,
+  pointSourceCorrelation, quadratureDirections, samplePatterns, sampledPatternSource, scanSweep, skyAndGroundEnvironment, ohmicLossNoiseCorrelation,
 } from '../../src/reception/index.js';
 import {
   noiseTemperatureK as amplifierNoiseTemperature, thermalImpedanceNoise as thermalNoiseCorrelation, type NoiseParametersInput as AmplifierNoise,
@@ -62,6 +62,18 @@ describe('brightness integral', () => {
       }
     }
     expectCMatrixClose(a, { rows: n, cols: n, data: direct }, { rtol: 1e-7 }); // η0 rounded to 12 digits above
+  });
+  it('sampled patterns: exact lookup by direction (φ modulo 2π), never interpolated', () => {
+    const src = hertzianSource([[0, 0], [0.3 * lambda, 0.1 * lambda]], L, f);
+    const q = quadratureDirections(sphereQuadrature(6, 8));
+    const samples = samplePatterns(src, q.thetaRad, q.phiRad);
+    const wrapped = sampledPatternSource(samples);
+    const th = Float64Array.of(q.thetaRad[9], q.thetaRad[3]), ph = Float64Array.of(q.phiRad[9] + 2 * Math.PI, q.phiRad[3] - 2 * Math.PI);
+    const a = samplePatterns(wrapped, th, ph), b = samplePatterns(src, th, ph);
+    expectCMatrixClose(a.thetaComponentV, b.thetaComponentV, { rtol: 1e-12 });
+    expect(() => samplePatterns(wrapped, Float64Array.of(0.123), Float64Array.of(0))).toThrow(DomainError);
+    // the same brightness integral through the samples and through the source
+    expectCMatrixClose(brightnessCorrelation(samples, q, () => 20, 1), brightnessCorrelation(src, q, () => 20, 1), { rtol: 1e-14 });
   });
   it('typed errors: mismatched grids, negative temperatures, wrong map length', () => {
     const src = hertzianSource([[0, 0]], L, f);
