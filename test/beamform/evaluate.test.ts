@@ -1,6 +1,6 @@
 import { describe, it, expect } from 'vitest';
 import {
-  beamResponse, beamPowerPattern, beamOutputPower, beamSnr, whiteNoiseGain, arrayGain, interferenceRejection,
+  beamResponse, beamPowerPattern, beamPowerPatternInto, beamOutputPower, beamSnr, whiteNoiseGain, arrayGain, interferenceRejection,
 } from '../../src/beamform/evaluate.js';
 import { conjugateFieldWeights, constrainedMinimumVarianceWeights, maxDirectivityWeights, maxSnrWeights } from '../../src/beamform/weights.js';
 import { findSpectrumPeaks } from '../../src/beamform/peaks.js';
@@ -30,6 +30,10 @@ describe('beam evaluation', () => {
     const two = beamPowerPattern(w, [scan, scale(scan, 2)]);
     for (let k = 0; k < 25; k++) expect(two[k]).toBeCloseTo(5 * p[k], 10);
     expect(() => beamPowerPattern(w, [])).toThrow(DimensionError);
+    const out = new Float64Array(25).fill(7);
+    expect(beamPowerPatternInto(out, w, scan)).toBe(out); // returns out, overwrites stale contents
+    for (let k = 0; k < 25; k++) expect(out[k]).toBe(p[k]);
+    expect(() => beamPowerPatternInto(new Float64Array(24), w, scan)).toThrow(DimensionError);
     expect(() => beamPowerPattern(w, [scan, zeros(n, 3)])).toThrow(DimensionError);
   });
   it('array factor agrees with the pattern module (wᴴa convention shared)', () => {

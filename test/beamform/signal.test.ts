@@ -51,6 +51,16 @@ describe('snapshot simulation', () => {
     expect(s3.snapshots.data[0]).not.toBe(s1.snapshots.data[0]);
   });
 
+  it('noise only (K = 0): mean element power equals noisePower', () => {
+    const t = 5000;
+    const sim = simulateSnapshots({ steering: zeros(N, 0), sourcePowers: [], noisePower: 2, snapshotCount: t, seed: 12 });
+    let p = 0;
+    for (let q = 0; q < sim.snapshots.data.length; q++) p += sim.snapshots.data[q] ** 2;
+    // Mean of N·T exponential variables of mean 2: relative sd 1/√(N·T) ≈ 0.0045; allow 5σ.
+    expect(Math.abs(p / (N * t) / 2 - 1)).toBeLessThan(5 / Math.sqrt(N * t));
+    expect(sim.sourceSignals.rows).toBe(0);
+  });
+
   it('interferers add their power; bad inputs are typed errors', () => {
     const a = lineSteering(N, [0]);
     const b = lineSteering(N, [0.5]);
