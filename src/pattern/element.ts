@@ -24,6 +24,26 @@ export type ElementFactor =
   | { readonly kind: 'cosine'; readonly exponent: number }
   | { readonly kind: 'custom'; readonly amplitude: (x: number, y: number, z: number) => number };
 
+/** @internal Throws unless `element` is a well-formed element factor. */
+export function assertElementFactor(element: ElementFactor): void {
+  if (!element || typeof element !== 'object') throw new DomainError(`invalid argument "element": expected {kind: 'isotropic' | 'cosine' | 'custom', …}, received ${describeValue(element)}.`);
+  if (element.kind === 'isotropic') return;
+  if (element.kind === 'cosine') { assertPositive('element.exponent', element.exponent); return; }
+  if (element.kind === 'custom' && typeof element.amplitude === 'function') return;
+  throw new DomainError(`invalid argument "element": unknown kind ${describeValue((element as { kind: unknown }).kind)}; use 'isotropic', 'cosine' or 'custom' with an amplitude function.`);
+}
+
+/** @internal Element factor at one unit vector (element already validated). */
+export function elementFactorAt(element: ElementFactor, x: number, y: number, z: number): number {
+  if (element.kind === 'isotropic') return 1;
+  if (element.kind === 'cosine') return z > 0 ? z ** element.exponent : 0;
+  const f = element.amplitude(x, y, z);
+  if (typeof f !== 'number' || !Number.isFinite(f)) {
+    throw new DomainError(`invalid argument "element.amplitude": returned ${describeValue(f)} at direction (${x}, ${y}, ${z}); the element factor must be a finite real number.`);
+  }
+  return f;
+}
+
 /**
  * Values of an element factor at directions.
  * @param element - The element factor.
@@ -34,30 +54,11 @@ export type ElementFactor =
  */
 export function elementFactorValues(element: ElementFactor, directions: Float64Array): Float64Array {
   assertDirections('directions', directions);
+  assertElementFactor(element);
   const m = directions.length / 3;
   const out = new Float64Array(m);
-  if (!element || typeof element !== 'object') throw new DomainError(`invalid argument "element": expected {kind: 'isotropic' | 'cosine' | 'custom', …}, received ${describeValue(element)}.`);
-  if (element.kind === 'isotropic') return out.fill(1);
-  if (element.kind === 'cosine') {
-    assertPositive('element.exponent', element.exponent);
-    const q = element.exponent;
-    for (let i = 0; i < m; i++) {
-      const c = directions[3 * i + 2];
-      out[i] = c > 0 ? c ** q : 0;
-    }
-    return out;
-  }
-  if (element.kind === 'custom' && typeof element.amplitude === 'function') {
-    for (let i = 0; i < m; i++) {
-      const f = element.amplitude(directions[3 * i], directions[3 * i + 1], directions[3 * i + 2]);
-      if (typeof f !== 'number' || !Number.isFinite(f)) {
-        throw new DomainError(`invalid argument "element.amplitude": returned ${describeValue(f)} at direction ${i}; the element factor must be a finite real number.`);
-      }
-      out[i] = f;
-    }
-    return out;
-  }
-  throw new DomainError(`invalid argument "element": unknown kind ${describeValue((element as { kind: unknown }).kind)}; use 'isotropic', 'cosine' or 'custom' with an amplitude function.`);
+  for (let i = 0; i < m; i++) out[i] = elementFactorAt(element, directions[3 * i], directions[3 * i + 1], directions[3 * i + 2]);
+  return out;
 }
 
 /**

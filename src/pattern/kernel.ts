@@ -45,6 +45,13 @@ export interface ArrayFactorPlan {
   readonly planar: boolean;
   /** Progression step of rowB when planar, else NaN. */
   readonly rowStep: number;
+  /**
+   * Every row holds every column and the columns form a progression: the sum
+   * then pairs columns c and D−1−c, symmetric about the mid value x̄, so that
+   * wₐ e^{jδ} + w_b e^{−jδ} = (wₐ + w_b) cos δ + j (wₐ − w_b) sin δ
+   * halves the multiplications (exact).
+   */
+  readonly fullGrid: boolean;
 }
 
 function progressionStep(v: Float64Array): number {
@@ -113,7 +120,9 @@ export function planArrayFactor(positionsM: Float64Array): ArrayFactorPlan {
   const colCost = Number.isNaN(colStep) ? 8 * colValues.length : colValues.length;
   const rowCost = Number.isNaN(rowStep) ? 8 * rowCount : rowCount;
   const factored = colCost + rowCost + 1.5 * n < 8 * n;
-  return { count: n, factored, order, positions, axisA, axisB, axisC, colValues, colStep, colIndex, rowStart, rowB, rowC, planar, rowStep };
+  let fullGrid = factored && !Number.isNaN(colStep) && colValues.length >= 2 && rowCount * colValues.length === n;
+  for (let g = 0; fullGrid && g < n; g++) fullGrid = colIndex[g] === g % colValues.length;
+  return { count: n, factored, order, positions, axisA, axisB, axisC, colValues, colStep, colIndex, rowStart, rowB, rowC, planar, rowStep, fullGrid };
 }
 
 /** Fills re/im with exp(j(s·values[i] + offset)), by recurrence when `step` is a number. */
@@ -150,8 +159,15 @@ export interface KernelWork {
   colIm: Float64Array;
   rowRe: Float64Array;
   rowIm: Float64Array;
+  /** Row factors of the second direction of a pair (full-grid path). */
+  row2Re: Float64Array;
+  row2Im: Float64Array;
   cwRe: Float64Array;
   cwIm: Float64Array;
+  /** Full-grid path: pair sums P = wₐ + w_b and differences Q = wₐ − w_b, interleaved [Pr, Pi, Qr, Qi] per (row, pair). */
+  pairs: Float64Array;
+  /** Full-grid path: half-table of cos δ, sin δ for two directions. */
+  half: Float64Array;
 }
 
 /** Allocates the work buffers of a plan. */
@@ -160,7 +176,10 @@ export function kernelWork(plan: ArrayFactorPlan): KernelWork {
   return {
     colRe: new Float64Array(nc), colIm: new Float64Array(nc),
     rowRe: new Float64Array(nr), rowIm: new Float64Array(nr),
+    row2Re: new Float64Array(plan.fullGrid ? nr : 0), row2Im: new Float64Array(plan.fullGrid ? nr : 0),
     cwRe: new Float64Array(plan.count), cwIm: new Float64Array(plan.count),
+    pairs: new Float64Array(plan.fullGrid ? 4 * nr * Math.floor(nc / 2) : 0),
+    half: new Float64Array(plan.fullGrid ? 4 * Math.floor(nc / 2) : 0),
   };
 }
 
@@ -174,6 +193,18 @@ export function loadWeights(plan: ArrayFactorPlan, work: KernelWork, w: Float64A
     const on = enabled === undefined || enabled[i] ? 1 : 0;
     work.cwRe[g] = on * w[2 * i];
     work.cwIm[g] = -on * w[2 * i + 1];
+  }
+  if (plan.fullGrid) {
+    const d = plan.colValues.length, h = d >> 1, rows = plan.rowB.length;
+    for (let r = 0; r < rows; r++) {
+      for (let c = 0; c < h; c++) {
+        const a = r * d + c, b = r * d + d - 1 - c, o = 4 * (r * h + c);
+        work.pairs[o] = work.cwRe[a] + work.cwRe[b];
+        work.pairs[o + 1] = work.cwIm[a] + work.cwIm[b];
+        work.pairs[o + 2] = work.cwRe[a] - work.cwRe[b];
+        work.pairs[o + 3] = work.cwIm[a] - work.cwIm[b];
+      }
+    }
   }
 }
 
@@ -201,6 +232,10 @@ export function evaluateArrayFactor(
       out[2 * m] = ar;
       out[2 * m + 1] = ai;
     }
+    return;
+  }
+  if (plan.fullGrid) {
+    evaluateFullGrid(plan, work, directions, k, out, m0, m1);
     return;
   }
   const { colRe, colIm, rowRe, rowIm } = work;
@@ -236,5 +271,87 @@ export function evaluateArrayFactor(
     }
     out[2 * m] = accR;
     out[2 * m + 1] = accI;
+  }
+}
+
+/** Row factors exp(j k (b·r̂_b + c·r̂_c)) of one direction into re/im. */
+function fillRows(plan: ArrayFactorPlan, re: Float64Array, im: Float64Array, sb: number, sc: number): void {
+  if (plan.planar) {
+    fillPhases(re, im, plan.rowB, sb, sc * plan.rowC[0], plan.rowStep);
+    return;
+  }
+  for (let r = 0; r < plan.rowB.length; r++) {
+    const ph = sb * plan.rowB[r] + sc * plan.rowC[r];
+    re[r] = Math.cos(ph);
+    im[r] = Math.sin(ph);
+  }
+}
+
+/** Half-table cos δ_c, sin δ_c (δ_c = s·(c − (D−1)/2)·step, c < D/2) at half[4c + 2t], t = direction slot. */
+function fillHalf(half: Float64Array, h: number, d: number, s: number, step: number, slot: number): void {
+  const cs = Math.cos(s * step), sn = Math.sin(s * step);
+  let zr = 0, zi = 0;
+  for (let c = 0; c < h; c++) {
+    if (c % RESEED === 0) {
+      const ph = s * step * (c - (d - 1) / 2);
+      zr = Math.cos(ph);
+      zi = Math.sin(ph);
+    } else {
+      const t = zr * cs - zi * sn;
+      zi = zr * sn + zi * cs;
+      zr = t;
+    }
+    half[4 * c + 2 * slot] = zr;
+    half[4 * c + 2 * slot + 1] = zi;
+  }
+}
+
+/** Full-grid path, two directions per pass (shares the weight loads). */
+function evaluateFullGrid(plan: ArrayFactorPlan, work: KernelWork, directions: Float64Array, k: number, out: Float64Array, m0: number, m1: number): void {
+  const { pairs, half, rowRe, rowIm, row2Re, row2Im, cwRe, cwIm } = work;
+  const { colValues, colStep, axisA, axisB, axisC } = plan;
+  const d = colValues.length, h = d >> 1, odd = d & 1, rows = plan.rowB.length;
+  const mid = 0.5 * (colValues[0] + colValues[d - 1]);
+  for (let m = m0; m < m1; m += 2) {
+    const two = m + 1 < m1;
+    const m2 = two ? m + 1 : m;
+    const sa0 = k * directions[3 * m + axisA], sa1 = k * directions[3 * m2 + axisA];
+    fillHalf(half, h, d, sa0, colStep, 0);
+    fillHalf(half, h, d, sa1, colStep, 1);
+    fillRows(plan, rowRe, rowIm, k * directions[3 * m + axisB], k * directions[3 * m + axisC]);
+    fillRows(plan, row2Re, row2Im, k * directions[3 * m2 + axisB], k * directions[3 * m2 + axisC]);
+    let aR0 = 0, aI0 = 0, aR1 = 0, aI1 = 0;
+    for (let r = 0; r < rows; r++) {
+      let r0 = 0, i0 = 0, r1 = 0, i1 = 0;
+      let o = 4 * r * h;
+      for (let c = 0; c < h; c++, o += 4) {
+        const pr = pairs[o], pi = pairs[o + 1], qr = pairs[o + 2], qi = pairs[o + 3];
+        const c0 = half[4 * c], s0 = half[4 * c + 1], c1 = half[4 * c + 2], s1 = half[4 * c + 3];
+        r0 += pr * c0 - qi * s0;
+        i0 += pi * c0 + qr * s0;
+        r1 += pr * c1 - qi * s1;
+        i1 += pi * c1 + qr * s1;
+      }
+      if (odd) {
+        const g = r * d + h;
+        r0 += cwRe[g]; i0 += cwIm[g];
+        r1 += cwRe[g]; i1 += cwIm[g];
+      }
+      const fr0 = rowRe[r], fi0 = rowIm[r], fr1 = row2Re[r], fi1 = row2Im[r];
+      aR0 += r0 * fr0 - i0 * fi0;
+      aI0 += r0 * fi0 + i0 * fr0;
+      aR1 += r1 * fr1 - i1 * fi1;
+      aI1 += r1 * fi1 + i1 * fr1;
+    }
+    // column mid-point phase exp(j k r̂_a x̄)
+    const p0 = sa0 * mid, p1 = sa1 * mid;
+    const e0r = Math.cos(p0), e0i = Math.sin(p0);
+    out[2 * m] = aR0 * e0r - aI0 * e0i;
+    out[2 * m + 1] = aR0 * e0i + aI0 * e0r;
+    if (two) {
+      const e1r = Math.cos(p1), e1i = Math.sin(p1);
+      out[2 * m2] = aR1 * e1r - aI1 * e1i;
+      out[2 * m2 + 1] = aR1 * e1i + aI1 * e1r;
+    }
   }
 }

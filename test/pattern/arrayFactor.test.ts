@@ -58,7 +58,7 @@ describe('arrayFactor', () => {
   });
   it('factored (lattice) summation equals the textbook sum to 1e-13 relative: planar grid, ring, 3-D lattice, thinned', () => {
     const rnd = seededRandom(11);
-    const dirs = randomDirections(200, rnd);
+    const dirs = randomDirections(201, rnd); // odd count exercises the unpaired last direction
     const grid = rectangularGridLayout({ countX: 16, countY: 12, spacingXM: 0.5 * LAMBDA, spacingYM: 0.6 * LAMBDA });
     const pts: Array<[number, number, number]> = [];
     for (let i = 0; i < 6; i++) for (let j = 0; j < 7; j++) for (let l = 0; l < 5; l++) pts.push([0.4 * LAMBDA * i, 0.55 * LAMBDA * j, 0.3 * LAMBDA * l * l]);
@@ -68,8 +68,12 @@ describe('arrayFactor', () => {
     const line = uniformLineLayout(40, 0.5 * LAMBDA, { axis: 'y' });
     // the lattices must actually take the factored path for this test to mean anything
     for (const l of [grid, cube, line]) expect(planArrayFactor(l.positionsM).factored).toBe(true);
+    expect(planArrayFactor(grid.positionsM).fullGrid).toBe(true);
+    const oddGrid = rectangularGridLayout({ countX: 9, countY: 5, spacingXM: 0.7 * LAMBDA, spacingYM: 0.5 * LAMBDA });
+    expect(planArrayFactor(oddGrid.positionsM).fullGrid).toBe(true);
+    expect(planArrayFactor(thinned.positionsM).fullGrid).toBe(true);
     expect(planArrayFactor(ring.positionsM).factored).toBe(false);
-    for (const layout of [grid, cube, thinned, ring, line]) {
+    for (const layout of [grid, oddGrid, cube, thinned, ring, line]) {
       const w = randomMatrix(layout.count, 1, 17);
       const af = arrayFactor(layout, w, dirs, F);
       expect(relativeMaxError(af.data, referenceArrayFactor(layout, w, dirs, K))).toBeLessThan(1e-13);
