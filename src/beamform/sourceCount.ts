@@ -5,7 +5,8 @@
  */
 import { DomainError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
-import { hermitianEigen } from '../linalg/eigen.js';
+import { assertHermitian, hermitianEigen } from '../linalg/eigen.js';
+import { HERMITIAN_TOLERANCE } from './conditioning.js';
 import { assertInteger } from '../internal/validate.js';
 
 /**
@@ -50,6 +51,7 @@ export function estimateSourceCount(correlation: CMatrix, snapshotCount: number,
   if (criterion !== 'mdl' && criterion !== 'aic') {
     throw new DomainError(`invalid argument "criterion": expected 'mdl' or 'aic', received ${JSON.stringify(criterion)}.`);
   }
+  assertHermitian('correlation', correlation, HERMITIAN_TOLERANCE);
   const asc = hermitianEigen(correlation, { valuesOnly: true }).values;
   const n = asc.length;
   const l = new Float64Array(n);

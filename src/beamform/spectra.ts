@@ -6,11 +6,11 @@
  */
 import { DimensionError, DomainError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
-import { hermitianEigen } from '../linalg/eigen.js';
+import { assertHermitian, hermitianEigen } from '../linalg/eigen.js';
 import { solveLowerTriangular } from '../linalg/cholesky.js';
 import { assertFiniteCMatrix, assertInteger, assertShape } from '../internal/validate.js';
 import { gemmKernel } from '../internal/gemm.js';
-import { factorCorrelation } from './conditioning.js';
+import { HERMITIAN_TOLERANCE, factorCorrelation } from './conditioning.js';
 
 function checkGrid(correlation: CMatrix, steering: CMatrix): number {
   assertFiniteCMatrix('steering', steering);
@@ -19,6 +19,7 @@ function checkGrid(correlation: CMatrix, steering: CMatrix): number {
   }
   assertFiniteCMatrix('correlation', correlation);
   assertShape('correlation', correlation, steering.rows, steering.rows, 'one row and column per element, like "steering"');
+  assertHermitian('correlation', correlation, HERMITIAN_TOLERANCE);
   return steering.rows;
 }
 
@@ -101,7 +102,7 @@ export function caponSpectrum(correlation: CMatrix, steering: CMatrix, options: 
  * as N×K and N×(N−K) matrices.
  */
 export function splitSubspaces(name: string, correlation: CMatrix, sourceCount: number): { signal: CMatrix; noise: CMatrix; values: Float64Array } {
-  const n = correlation.rows;
+  const n = assertHermitian(name, correlation, HERMITIAN_TOLERANCE);
   assertInteger('sourceCount', sourceCount, 0, n - 1);
   const { values, vectors } = hermitianEigen(correlation);
   const v = vectors!;
@@ -122,7 +123,7 @@ export function splitSubspaces(name: string, correlation: CMatrix, sourceCount: 
       }
     }
   }
-  if (name && !(values[n - 1] > 0)) throw new DomainError(`invalid argument "${name}": it has no positive eigenvalue.`);
+  if (!(values[n - 1] > 0)) throw new DomainError(`invalid argument "${name}": it has no positive eigenvalue.`);
   return { signal, noise, values };
 }
 
@@ -148,7 +149,7 @@ export function splitSubspaces(name: string, correlation: CMatrix, sourceCount: 
 export function musicSpectrum(correlation: CMatrix, steering: CMatrix, sourceCount: number): Float64Array {
   const n = checkGrid(correlation, steering);
   assertInteger('sourceCount', sourceCount, 0, n - 1);
-  const { signal, noise } = splitSubspaces('', correlation, sourceCount);
+  const { signal, noise } = splitSubspaces('correlation', correlation, sourceCount);
   const k = steering.cols;
   const p = columnPowers(steering);
   const useSignal = sourceCount < n - sourceCount;

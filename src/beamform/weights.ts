@@ -84,6 +84,7 @@ export function conjugateFieldWeights(a: CMatrix, options: { normalization?: Bea
  * @category Beamforming
  */
 export function maxSnrWeights(a: CMatrix, noise: CMatrix, options: BeamWeightOptions = {}): CMatrix {
+  lookVector(a);
   return maxSnrWeightsForDirections(a, noise, options);
 }
 

@@ -99,6 +99,7 @@ describe('maximum-SNR beam for a signal of any rank', () => {
     expect(() => maxSnrWeightsForCorrelation(rs, rs)).toThrow(SingularMatrixError);
     expect(() => maxSnrWeightsForCorrelation(rs, subtract(rs, rs))).toThrow(NotPositiveDefiniteError);
     expect(maxSnrWeightsForCorrelation(rs, add(rs, identity(5)), {}).snr).toBeGreaterThan(0);
+    expect(() => maxSnrWeightsForCorrelation(randomMatrix(5, 5, 1), identity(5))).toThrow(/"signal"/);
     expect(Number.isFinite(maxSnrWeightsForCorrelation(rs, rs, { diagonalLoading: 1e-2 }).snr)).toBe(true);
   });
 });

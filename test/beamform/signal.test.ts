@@ -213,6 +213,12 @@ describe('source count and spectra: bad input', () => {
   it('typed errors', () => {
     const r = modelCorrelation([0.1], [1], 1);
     expect(() => estimateSourceCount(r, 0)).toThrow(DomainError);
+    const skew = modelCorrelation([0.1], [1], 1); skew.data[3] += 0.5; // entry (0, 1) no longer conj(entry (1, 0))
+    expect(() => estimateSourceCount(skew, 10)).toThrow(/"correlation"/);
+    expect(() => musicSpectrum(skew, lineSteering(N, [0.1]), 1)).toThrow(/"correlation"/);
+    expect(() => bartlettSpectrum(skew, lineSteering(N, [0.1]))).toThrow(DomainError);
+    expect(() => rootMusic(skew, 1, { spacingM: LAMBDA_M / 2, frequencyHz: FREQUENCY_HZ })).toThrow(/"correlation"/);
+    expect(() => simulateSnapshots({ steering: lineSteering(N, [0]), sourcePowers: [1], noiseCorrelation: skew, snapshotCount: 2, seed: 1 })).toThrow(/"noiseCorrelation"/);
     expect(() => estimateSourceCount(r, 10, 'bic' as never)).toThrow(DomainError);
     expect(() => estimateSourceCount(multiply(lineSteering(N, [0.1]), adjoint(lineSteering(N, [0.1]))), 10)).toThrow(DomainError);
     expect(() => musicSpectrum(r, lineSteering(9, [0.1]), 1)).toThrow(DimensionError);

@@ -139,6 +139,8 @@ describe('conditioning policy and bad input', () => {
   it('non-Hermitian or non-finite correlation: DomainError', () => {
     const bad = randomMatrix(5, 5, 9);
     expect(() => maxSnrWeights(a, bad)).toThrow(DomainError);
+    expect(() => maxSnrWeights(a, bad)).toThrow(/"noise"/); // the message names the caller's argument
+    expect(() => minimumVarianceWeights(a, bad)).toThrow(/"correlation"/);
     const nan = randomHpd(5, 3); nan.data[4] = NaN;
     expect(() => maxSnrWeights(a, nan)).toThrow(DomainError);
     expect(() => maxSnrWeights(a, randomHpd(5, 3), { diagonalLoading: -1 })).toThrow(DomainError);
