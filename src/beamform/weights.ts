@@ -85,7 +85,7 @@ export function conjugateFieldWeights(a: CMatrix, options: { normalization?: Bea
  */
 export function maxSnrWeights(a: CMatrix, noise: CMatrix, options: BeamWeightOptions = {}): CMatrix {
   lookVector(a);
-  return maxSnrWeightsForDirections(a, noise, options);
+  return solveBeams('a', a, 'noise', noise, options);
 }
 
 /**
@@ -104,15 +104,20 @@ export function maxSnrWeights(a: CMatrix, noise: CMatrix, options: BeamWeightOpt
  * @category Beamforming
  */
 export function maxSnrWeightsForDirections(steering: CMatrix, noise: CMatrix, options: BeamWeightOptions = {}): CMatrix {
-  assertFiniteCMatrix('steering', steering);
+  return solveBeams('steering', steering, 'noise', noise, options);
+}
+
+/** R⁻¹aₖ for every column under the conditioning policy; argument names for messages. */
+function solveBeams(steeringName: string, steering: CMatrix, matrixName: string, matrix: CMatrix, options: BeamWeightOptions): CMatrix {
+  assertFiniteCMatrix(steeringName, steering);
   if (steering.rows < 1 || steering.cols < 1) {
-    throw new DimensionError(`invalid argument "steering": expected N×K with N, K ≥ 1, received ${steering.rows}×${steering.cols}.`);
+    throw new DimensionError(`invalid argument "${steeringName}": expected N×K with N, K ≥ 1, received ${steering.rows}×${steering.cols}.`);
   }
   const mode = options.normalization ?? 'distortionless';
   assertNormalization(mode);
-  const f = factorCorrelation('noise', noise, steering.rows, options.diagonalLoading ?? 0);
+  const f = factorCorrelation(matrixName, matrix, steering.rows, options.diagonalLoading ?? 0);
   const w = choleskySolve(f, steering);
-  return finish(w, steering, mode, noise);
+  return finish(w, steering, mode, matrix);
 }
 
 /**
@@ -236,7 +241,7 @@ function gramian(y: CMatrix): CMatrix {
  */
 export function maxDirectivityWeights(a: CMatrix, isotropicCorrelation: CMatrix, options: BeamWeightOptions = {}): CMatrix {
   lookVector(a);
-  return maxSnrWeightsForDirections(a, isotropicCorrelation, options);
+  return solveBeams('a', a, 'isotropicCorrelation', isotropicCorrelation, options);
 }
 
 /**
@@ -264,5 +269,5 @@ export function maxGainWeights(a: CMatrix, isotropicCorrelation: CMatrix, lossCo
   assertShape('isotropicCorrelation', isotropicCorrelation, n, n, 'one row and column per element');
   assertFiniteCMatrix('lossCorrelation', lossCorrelation);
   assertShape('lossCorrelation', lossCorrelation, n, n, 'one row and column per element');
-  return maxSnrWeightsForDirections(a, add(isotropicCorrelation, lossCorrelation), options);
+  return solveBeams('a', a, 'isotropicCorrelation + lossCorrelation', add(isotropicCorrelation, lossCorrelation), options);
 }

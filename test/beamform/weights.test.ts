@@ -141,6 +141,7 @@ describe('conditioning policy and bad input', () => {
     expect(() => maxSnrWeights(a, bad)).toThrow(DomainError);
     expect(() => maxSnrWeights(a, bad)).toThrow(/"noise"/); // the message names the caller's argument
     expect(() => minimumVarianceWeights(a, bad)).toThrow(/"correlation"/);
+    expect(() => maxDirectivityWeights(a, zeros(5, 5))).toThrow(/"isotropicCorrelation"/);
     const nan = randomHpd(5, 3); nan.data[4] = NaN;
     expect(() => maxSnrWeights(a, nan)).toThrow(DomainError);
     expect(() => maxSnrWeights(a, randomHpd(5, 3), { diagonalLoading: -1 })).toThrow(DomainError);
