@@ -35,7 +35,7 @@ export interface SourceCountResult {
  * MDL(k) = −T(N−k) ln(g/a) + ½ k(2N−k) ln T,
  * and the estimate minimises the criterion over k = 0 … N−1 (M. Wax and T.
  * Kailath, "Detection of signals by information theoretic criteria", IEEE
- * Trans. ASSP 33(2), 1985, eqs. 16–17, from memory). MDL is consistent; AIC
+ * Trans. ASSP 33(2), 1985, from memory; equation numbers not held). MDL is consistent; AIC
  * tends to overestimate at large T. Assumes spatially white noise (pre-whiten
  * coloured noise) and T ≥ N.
  * @param correlation - Sample correlation matrix, N×N Hermitian (see {@link sampleCorrelation}).
