@@ -200,7 +200,7 @@ export function whiteNoiseGain(w: CMatrix, a: CMatrix): number {
 /**
  * Array gain: output SNR of the beam divided by the input SNR at one
  * reference element, SNR_out / (|a_ref|² / R_n,ref,ref) (H. L. Van Trees,
- * *Optimum Array Processing*, Wiley, 2002, §6.2, from memory).
+ * *Optimum Array Processing*, Wiley, 2002, from memory).
  * @param w - Weights, N×1 [dimensionless].
  * @param a - Signal response vector, N×1 [same units as the noise correlation's square root].
  * @param noise - Noise correlation matrix, N×N.

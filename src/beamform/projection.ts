@@ -139,7 +139,7 @@ export interface CorrelationBeamResult {
  * Maximises wᴴR_s w / wᴴR_n w (generalised Rayleigh quotient; the maximum SNR
  * is λ_max). Used for partially coherent or extended sources and for a
  * polarised/unpolarised source received by dual-polarised elements (Van Trees
- * 2002, §6.2, from memory). Computed by whitening with R_n = L Lᴴ (under the
+ * 2002, from memory). Computed by whitening with R_n = L Lᴴ (under the
  * module's conditioning policy, see {@link diagonalLoading}): the principal
  * eigenvector v of L⁻¹R_s L⁻ᴴ gives w = L⁻ᴴv. For rank-one R_s = a aᴴ it
  * reduces to {@link maxSnrWeights}.

@@ -43,7 +43,7 @@ function columnPowers(a: CMatrix): Float64Array {
  * steering gives p + σ²/N at its direction. Resolution is limited to about one
  * beamwidth (M. S. Bartlett, *An Introduction to Stochastic Processes*, 1956;
  * H. Krim and M. Viberg, "Two decades of array signal processing research",
- * IEEE Signal Processing Mag. 13(4), 1996, §4.1, from memory).
+ * IEEE Signal Processing Mag. 13(4), 1996, from memory).
  * @param correlation - Correlation matrix R, N×N Hermitian [W or V²].
  * @param steering - Steering vectors of the scan directions as columns, N×K.
  * @returns Spectrum per direction, length K [unit of R].
