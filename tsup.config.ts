@@ -8,7 +8,7 @@ export default defineConfig({
   clean: true,
   target: 'es2022',
   platform: 'neutral',
-  splitting: false,
+  splitting: true,
   treeshake: true,
   // The d3 modules ship as ESM only; bundle them so that the CJS build works everywhere.
   noExternal: [/^d3-/, 'internmap'],
