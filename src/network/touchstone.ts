@@ -96,15 +96,19 @@ class Scanner {
   skipSpace(comments: string[] | null): void {
     const t = this.text;
     const n = t.length;
-    while (this.pos < n) {
-      const c = t.charCodeAt(this.pos);
-      if (c === 10) { this.line++; this.pos++; } else if (c === 32 || c === 9 || c === 13) { this.pos++; } else if (c === 33) {
-        let e = t.indexOf('\n', this.pos);
+    let p = this.pos;
+    let line = this.line;
+    while (p < n) {
+      const c = t.charCodeAt(p);
+      if (c === 32 || c === 9 || c === 13) { p++; } else if (c === 10) { line++; p++; } else if (c === 33) {
+        let e = t.indexOf('\n', p);
         if (e < 0) e = n;
-        if (comments) comments.push(t.slice(this.pos + 1, e).replace(/\r$/, ''));
-        this.pos = e;
-      } else return;
+        if (comments) comments.push(t.slice(p + 1, e).replace(/\r$/, ''));
+        p = e;
+      } else break;
     }
+    this.pos = p;
+    this.line = line;
   }
 
   /** The rest of the current line (up to '!' or the line end), advancing past it but not past the newline. */
@@ -291,6 +295,8 @@ function readNetworkData(sc: Scanner, layout: Layout, opt: OptionLine, count: nu
   let last = -Infinity;
   const blockStart = sc.pos;
   const pair = new Float64Array(2);
+  const ri = opt.format === 'RI';
+  const sym = layout.symmetric !== 'full';
   for (;;) {
     sc.skipSpace(comments);
     if (sc.pos >= sc.text.length || !sc.atNumberStart()) break;
@@ -315,11 +321,11 @@ function readNetworkData(sc: Scanner, layout: Layout, opt: OptionLine, count: nu
       sc.skipSpace(comments);
       if (sc.pos >= sc.text.length) throw new ParseError(`unexpected end of file inside the data of frequency ${fr} Hz`, sc.eofLine());
       const b = sc.number('a network-data value');
-      pairToComplex(a, b, opt.format, pair, 0);
+      if (ri) { pair[0] = a; pair[1] = b; } else pairToComplex(a, b, opt.format, pair, 0);
       const q = layout.order[v];
       data[base + 2 * q] = pair[0];
       data[base + 2 * q + 1] = pair[1];
-      if (layout.symmetric !== 'full') {
+      if (sym) {
         const i = Math.floor(q / n), j = q % n;
         data[base + 2 * (j * n + i)] = pair[0];
         data[base + 2 * (j * n + i) + 1] = pair[1];
