@@ -23,7 +23,7 @@ import { adjoint, multiply, pick } from '../linalg/ops.js';
 import { solveSmallInPlace } from '../internal/batched.js';
 import { assertNonNegative, describeValue } from '../internal/validate.js';
 import { K_BOLTZMANN_J_PER_K } from '../units/constants.js';
-import { renormalizeStack } from './convert.js';
+import { convertMultiport, renormalizeStack } from './convert.js';
 import { type Multiport, assertMultiport, createMultiport, waveCoefficients, withFields } from './multiport.js';
 import { asPowerScattering, checkPortList, combineMultiports, toWaves } from './ports.js';
 
@@ -308,7 +308,7 @@ export function keepPorts(net: Multiport, ports: ReadonlyArray<number>, others: 
   // reduced ports are the kept ones in ascending order; reorder to the requested order
   const ascending = keep.slice().sort((a, b) => a - b);
   const order = keep.map((p) => ascending.indexOf(p));
-  const out = reduced.form === 'scattering' ? reduced : asPowerScattering(reduced);
+  const out = reduced.form === 'scattering' ? reduced : convertMultiport(reduced, 'scattering');
   return reorderScattering(out, order);
 }
 
