@@ -13,7 +13,7 @@ import { DimensionError, DomainError } from '../../src/errors.js';
 const F = C0_M_PER_S;
 const dipole = (x: number, y: number): WireDipole => ({ centerM: [x, y, 0], axis: [1, 0, 0], lengthM: 0.5, radiusM: 1e-4 });
 const dish = paraboloidReflector({ diameterM: 20, focalLengthM: 6 }); // f/D = 0.3: the wide dipole-over-ground pattern needs a deep dish
-const quad = sphereQuadrature(48, 64, { splitHemispheres: true });
+const quad = sphereQuadrature(48, 64, { splitAtHorizon: true });
 
 describe('rayHitsReflector', () => {
   it('a symmetric dish intercepts exactly the cone θ_f < θ0', () => {
@@ -39,7 +39,7 @@ describe('evaluateReflectorArrayFeed', () => {
   });
   it('one feed port: spillover and aperture efficiency equal the Kildal factorisation of the same feed pattern', () => {
     const r = evaluateReflectorArrayFeed({
-      dish, feed: single, feedQuadrature: sphereQuadrature(96, 96, { splitHemispheres: true }), skyTemperatureK: 5, groundTemperatureK: 290,
+      dish, feed: single, feedQuadrature: sphereQuadrature(96, 96, { splitAtHorizon: true }), skyTemperatureK: 5, groundTemperatureK: 290,
       bandwidthHz: 1e6, beams, loss: 'lossless', weights: columnVector([1]),
     });
     const k = feedEfficiencies(dish, beamformedFeedPattern(single.patterns, columnVector([1])), { thetaOrder: 200, phiOrder: 96 });
