@@ -260,13 +260,24 @@ export function determinant(a: CMatrix): Complex {
 }
 
 /**
+ * Result of {@link logDeterminant}: det A = exp(logAbs)·exp(j·phaseRad).
+ * @category Complex core
+ */
+export interface LogDeterminantResult {
+  /** ln|det A|; −Infinity for an exactly singular matrix. */
+  readonly logAbs: number;
+  /** arg(det A) in (−π, π] [rad]. */
+  readonly phaseRad: number;
+}
+
+/**
  * Natural logarithm of the determinant, robust against overflow:
  * ln|det A| and the phase arg(det A).
  * @param a - Square matrix, n×n.
  * @returns `{ logAbs, phaseRad }` with det A = exp(logAbs)·exp(j·phaseRad); logAbs = −Infinity when singular.
  * @category Complex core
  */
-export function logDeterminant(a: CMatrix): { logAbs: number; phaseRad: number } {
+export function logDeterminant(a: CMatrix): LogDeterminantResult {
   const f = luFactor(a);
   const { n } = f;
   const d = f.lu.data;

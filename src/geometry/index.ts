@@ -1,0 +1,16 @@
+export type { Vector3, ArrayLayout, ArrayLayoutOptions } from './layout.js';
+export {
+  arrayLayout, withEnabledMask, activeLayout, activeCount, metresFromWavelengths, wavelengthsFromMetres,
+  layoutCentroid, layoutDiameterM,
+} from './layout.js';
+export type { LineAxis, UniformLineOptions, RectangularGridSpec, LatticeBoundary, LatticeOptions, RingSpec } from './builders.js';
+export { uniformLineLayout, rectangularGridLayout, latticeLayout, triangularLatticeLayout, ringLayout } from './builders.js';
+export type { SphericalAngles, AzimuthElevation } from './directions.js';
+export {
+  UNIT_VECTOR_TOLERANCE, unitVectorFromAngles, unitVectorFromDegrees, anglesFromUnitVector, uvFromAngles, unitVectorFromUv,
+  anglesFromUv, unitVectorFromAzEl, azElFromUnitVector, unitVectorsFromAngles,
+} from './directions.js';
+export type { ThetaPhiGrid, UvGrid, PlaneCut } from './grids.js';
+export { evenlySpaced, thetaPhiGrid, uvGrid, visibleDirections, planeCut } from './grids.js';
+export type { GaussLegendreRule, SphereQuadrature, SphereQuadratureOptions, SphereQuadratureOrderOptions, SphereQuadratureOrder } from './quadrature.js';
+export { gaussLegendre, sphereQuadrature, sphereQuadratureOrder, sphereQuadratureForLayout } from './quadrature.js';
