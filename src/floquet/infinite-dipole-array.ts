@@ -8,7 +8,7 @@ import { DomainError } from '../errors.js';
 import { assertFiniteArray, assertInRange } from '../internal/validate.js';
 import { wavenumberRadPerM } from '../units/convert.js';
 import { type DipoleSpectrum, type StripDipole, currentSpectrum, dipoleSpectrum, widthSpectrum } from './dipole-spectrum.js';
-import { gaussLegendreRule } from './gauss-legendre.js';
+import { type GaussLegendreRule, gaussLegendre } from '../geometry/quadrature.js';
 import type { PlanarLattice } from './lattice.js';
 import { type ScanDirection, assertScan } from './modes.js';
 import { type ArrayBacking, type SpectralMedium, assertBacking, layeredImpedancesInto, spectralMedium } from './spectral-green.js';
@@ -79,6 +79,17 @@ export interface InfiniteDipoleArray {
 const GL_PANEL = 8;
 const GL_FAR = 16;
 const HUMPS = 6;
+const rules = new Map<number, { x: Float64Array; w: Float64Array }>();
+/** Cached Gauss–Legendre rule from the geometry module. */
+function gaussLegendreRule(n: number): { x: Float64Array; w: Float64Array } {
+  let r = rules.get(n);
+  if (!r) {
+    const g: GaussLegendreRule = gaussLegendre(n);
+    r = { x: g.nodes, w: g.weights };
+    rules.set(n, r);
+  }
+  return r;
+}
 
 /**
  * Row kernel K(k_x, k_y) = (k_x² Z_TM(β) + k_y² Z_TE(β))/β² times sinc²(k_y w/2), β = |k_t| [Ω·…].
