@@ -20,9 +20,24 @@ import { ETA0_OHM } from '../units/constants.js';
  * @category Floquet
  */
 export type ArrayBacking =
-  | { readonly kind: 'freeSpace' }
-  | { readonly kind: 'groundPlane'; readonly heightM: number }
-  | { readonly kind: 'groundedSlab'; readonly relativePermittivity: number; readonly thicknessM: number };
+  | {
+    /** Dipoles in free space. */
+    readonly kind: 'freeSpace';
+  }
+  | {
+    /** Dipoles over a PEC ground plane. */
+    readonly kind: 'groundPlane';
+    /** Height of the dipoles above the plane [m], > 0. */
+    readonly heightM: number;
+  }
+  | {
+    /** Dipoles printed on a grounded dielectric slab. */
+    readonly kind: 'groundedSlab';
+    /** Relative permittivity εr ≥ 1 (lossless). */
+    readonly relativePermittivity: number;
+    /** Slab thickness t [m], > 0. */
+    readonly thicknessM: number;
+  };
 
 /** Validates a backing description. @internal */
 export function assertBacking(backing: ArrayBacking): void {
