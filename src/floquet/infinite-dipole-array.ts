@@ -615,7 +615,7 @@ export function infiniteArrayActiveImpedance(array: InfiniteDipoleArray, scan: S
  * @param thetaRad - Scan polar angles [rad], each in [0, π/2).
  * @param phiRad - Scan azimuths [rad], same length.
  * @returns `out`.
- * @throws {@link DomainError} for a scan outside visible space or non-finite angles; {@link DimensionError}-free: lengths are checked as DomainError.
+ * @throws {@link DomainError} for a scan outside visible space, non-finite angles, or mismatched lengths.
  * @category Floquet
  */
 export function infiniteArrayActiveImpedanceInto<T extends Float64Array>(out: T, array: InfiniteDipoleArray, thetaRad: Float64Array, phiRad: Float64Array): T {

@@ -40,16 +40,21 @@ describe('grounded-slab surface waves', () => {
   });
 });
 
+/** Blindness search for 0.3λ × 0.01λ dipoles in λ/2 cells on a grounded slab (εr, t/λ), 1° grid. */
+function printedBlindness(er: number, tOverLambda: number, phiRad: number) {
+  const arr = infiniteDipoleArray({
+    lattice: rectangularLattice(0.5 * LAMBDA, 0.5 * LAMBDA),
+    element: { lengthM: 0.3 * LAMBDA, widthM: 0.01 * LAMBDA },
+    backing: { kind: 'groundedSlab', relativePermittivity: er, thicknessM: tOverLambda * LAMBDA },
+    frequencyHz: F,
+    relativeTolerance: 1e-4,
+  });
+  return findScanBlindness(arr, phiRad, { stepRad: (1 * Math.PI) / 180, thetaMaxRad: (85 * Math.PI) / 180 });
+}
+
 describe('scan blindness of printed dipoles (Pozar & Schaubert, IEEE Trans. Antennas Propag. 32(6), 1984, for the phenomenon)', () => {
   it('E-plane blindness (εr = 12.8, t = 0.06λ, a = b = λ/2) at the TM0 phase-matching angle within 1°', () => {
-    const arr = infiniteDipoleArray({
-      lattice: rectangularLattice(0.5 * LAMBDA, 0.5 * LAMBDA),
-      element: { lengthM: 0.3 * LAMBDA, widthM: 0.01 * LAMBDA },
-      backing: { kind: 'groundedSlab', relativePermittivity: 12.8, thicknessM: 0.06 * LAMBDA },
-      frequencyHz: F,
-      relativeTolerance: 1e-4,
-    });
-    const r = findScanBlindness(arr, 0, { stepRad: (1 * Math.PI) / 180, thetaMaxRad: (85 * Math.PI) / 180 });
+    const r = printedBlindness(12.8, 0.06, 0);
     expect(r.blindAngles).toHaveLength(1);
     const pred = r.predictions.find((p) => p.surfaceWave === 'TM0' && p.n === 0)!;
     expect(Math.abs(r.blindAngles[0].thetaRad - pred.thetaRad)).toBeLessThan(Math.PI / 180);
@@ -58,14 +63,7 @@ describe('scan blindness of printed dipoles (Pozar & Schaubert, IEEE Trans. Ante
     expect(r.blindAngles[0].embeddedGain).toBeLessThan(1e-3);
   });
   it('H-plane blindness from TE1 (εr = 4, t = 0.2λ) at its phase-matching angle; TM0 (0, ±1) does not couple to x-dipoles', () => {
-    const arr = infiniteDipoleArray({
-      lattice: rectangularLattice(0.5 * LAMBDA, 0.5 * LAMBDA),
-      element: { lengthM: 0.3 * LAMBDA, widthM: 0.01 * LAMBDA },
-      backing: { kind: 'groundedSlab', relativePermittivity: 4, thicknessM: 0.2 * LAMBDA },
-      frequencyHz: F,
-      relativeTolerance: 1e-4,
-    });
-    const r = findScanBlindness(arr, Math.PI / 2, { stepRad: (1 * Math.PI) / 180, thetaMaxRad: (85 * Math.PI) / 180 });
+    const r = printedBlindness(4, 0.2, Math.PI / 2);
     expect(r.blindAngles).toHaveLength(1);
     const te1 = r.predictions.find((p) => p.surfaceWave === 'TE1')!;
     expect(Math.abs(r.blindAngles[0].thetaRad - te1.thetaRad)).toBeLessThan(Math.PI / 180);
