@@ -17,9 +17,10 @@ describe('infinite dipole array: accelerated Floquet sum', () => {
   // Reference: independent numpy direct double sum |m|,|n| ≤ 1600 with Richardson extrapolation
   // (test/floquet/fixtures/generate_floquet_brute.py; spread between extrapolations ≤ 5e-7 Ω).
   for (const c of fixture.cases) {
-    it(`matches the numpy brute-force sum to 1e-6: ${c.backing.kind}, w = ${(c.widthM / LAMBDA).toFixed(2)}λ`, () => {
+    const skew = (c as { skewM?: number }).skewM ?? 0;
+    it(`matches the numpy brute-force sum to 1e-6: ${c.backing.kind}, w = ${(c.widthM / LAMBDA).toFixed(2)}λ${skew ? ', triangular lattice' : ''}`, () => {
       const arr = infiniteDipoleArray({
-        lattice: rectangularLattice(c.dxM, c.dyM),
+        lattice: planarLattice([c.dxM, 0], [skew, c.dyM]),
         element: { lengthM: c.lengthM, widthM: c.widthM, effectiveWavenumberRadPerM: c.keRadPerM },
         backing: c.backing as ArrayBacking,
         frequencyHz: c.frequencyHz,
