@@ -104,8 +104,10 @@ export function layeredImpedancesInto(out: Float64Array, med: SpectralMedium, be
   const eta = med.eta;
   // kz0 = sqrt(k0² − β²), Im ≤ 0.
   const d0 = k0 * k0 - beta * beta;
-  const kzr = d0 >= 0 ? Math.sqrt(d0) : 0;
-  const kzi = d0 >= 0 ? 0 : -Math.sqrt(-d0);
+  const kzr = d0 > 0 ? Math.sqrt(d0) : 0;
+  // At a grating-lobe onset (β = k0 exactly) the free-space TE impedance is infinite (Wood
+  // anomaly); step 1e-12 k0 onto the evanescent side so the result is large but finite, not NaN.
+  const kzi = d0 > 0 ? 0 : -Math.max(Math.sqrt(-d0), 1e-12 * k0);
   // Upward mode impedances: Z_TM,up = η kz0/k0, Z_TE,up = η k0/kz0.
   const tmUr = (eta * kzr) / k0, tmUi = (eta * kzi) / k0;
   const kz2 = kzr * kzr + kzi * kzi;

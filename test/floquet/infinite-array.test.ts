@@ -162,3 +162,16 @@ describe('energy conservation and embedded element gain', () => {
     expect(() => infiniteArrayScanPerformance(arr, { thetaRad: 0.6, phiRad: 0.3 }, -50)).toThrow(DomainError);
   });
 });
+
+describe('layered-medium impedances at a grating-lobe onset', () => {
+  it('β = k₀ exactly gives a large finite TE impedance, not NaN (Wood anomaly of a free-standing array)', async () => {
+    const { layeredImpedancesInto, spectralMedium } = await import('../../src/floquet/spectral-green.js');
+    const out = new Float64Array(8);
+    for (const backing of [{ kind: 'freeSpace' }, { kind: 'groundPlane', heightM: 0.1 }, { kind: 'groundedSlab', relativePermittivity: 3, thicknessM: 0.01 }] as ArrayBacking[]) {
+      layeredImpedancesInto(out, spectralMedium(backing, K), K);
+      for (let i = 0; i < 4; i++) expect(Number.isFinite(out[i])).toBe(true);
+    }
+    layeredImpedancesInto(out, spectralMedium({ kind: 'freeSpace' }, K), K);
+    expect(Math.hypot(out[2], out[3])).toBeGreaterThan(1e9);
+  });
+});
