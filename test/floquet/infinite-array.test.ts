@@ -48,6 +48,20 @@ describe('infinite dipole array: accelerated Floquet sum', () => {
     expect(za.sub(zb).abs() / zb.abs()).toBeLessThan(1e-4);
   });
 
+  it('cosine current = piecewise-sinusoidal current with k_e = π/L; slab default k_e = k₀√((εr + 1)/2)', () => {
+    const L = 0.4 * LAMBDA;
+    const slab: ArrayBacking = { kind: 'groundedSlab', relativePermittivity: 3, thicknessM: 0.05 * LAMBDA };
+    const scan = { thetaRad: 0.4, phiRad: 0.2 };
+    const z = (element: { lengthM: number; widthM: number; current?: 'cosine' | 'piecewiseSinusoidal'; effectiveWavenumberRadPerM?: number }) =>
+      infiniteArrayActiveImpedance(infiniteDipoleArray({ lattice, element, backing: slab, frequencyHz: F, relativeTolerance: 1e-5 }), scan).impedanceOhm;
+    const cos = z({ lengthM: L, widthM: 0.01 * LAMBDA, current: 'cosine' });
+    const pws = z({ lengthM: L, widthM: 0.01 * LAMBDA, effectiveWavenumberRadPerM: Math.PI / L });
+    expect(cos.sub(pws).abs() / cos.abs()).toBeLessThan(1e-12);
+    const dflt = z({ lengthM: L, widthM: 0.01 * LAMBDA });
+    const expl = z({ lengthM: L, widthM: 0.01 * LAMBDA, effectiveWavenumberRadPerM: K * Math.sqrt(2) });
+    expect(dflt.sub(expl).abs() / dflt.abs()).toBeLessThan(1e-12);
+  });
+
   it('mirror symmetry: Z(θ, φ) = Z(θ, −φ) = Z(θ, π − φ) (rectangular), Z(θ, φ) = Z(θ, −φ) (triangular)', () => {
     const arr = make({ kind: 'groundPlane', heightM: 0.2 * LAMBDA });
     const z = (phi: number) => infiniteArrayActiveImpedance(arr, { thetaRad: 0.7, phiRad: phi }).impedanceOhm;
