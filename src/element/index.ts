@@ -19,3 +19,5 @@ export {
   isotropicRadiation, radiationResistanceMatrix,
 } from './radiation.js';
 export { parsePatternJson, formatPatternJson, parsePatternCsv, formatPatternCsv } from './patternFormats.js';
+export type { DipolesFromLayoutOptions } from './fromLayout.js';
+export { dipolesFromLayout } from './fromLayout.js';

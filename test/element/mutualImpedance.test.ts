@@ -146,6 +146,18 @@ describe('dipoleMutualImpedance and the array matrix', () => {
       }
     }
   });
+  it('regular lattice over ground: reuse of repeated pair geometries gives the pair-by-pair values', () => {
+    const ds: WireDipole[] = [];
+    for (let ix = 0; ix < 4; ix++) for (let iy = 0; iy < 3; iy++) ds.push(dip([(ix - 1.5) * 0.37, (iy - 1) * 0.41, 0.2], [1, 0, 0], 0.3));
+    ds.push(dip([0.1, 0.9, 0.35], [0.3, 1, 0.2], 0.4));
+    const plane = { zM: 0 };
+    const z = dipoleArrayImpedanceMatrix(ds, F, { groundPlane: plane });
+    for (let i = 0; i < ds.length; i++) for (let j = i + 1; j < ds.length; j++) {
+      const p = dipoleMutualImpedance(ds[i], ds[j], F, { groundPlane: plane });
+      const a = entry(z, i, j);
+      close(a.re, a.im, p.re, p.im, 1e-9);
+    }
+  });
   it('coincident elements: typed error naming the pair', () => {
     const ds = [dip([0, 0, 0]), dip([0.5, 0, 0]), dip([0.5, 0, 0.1])];
     let caught: unknown;
