@@ -7,11 +7,13 @@ export {
   dipoleSelfImpedance, sideBySideMutualImpedance, collinearMutualImpedance, echelonMutualImpedance,
   dipoleMutualImpedance, dipoleArrayImpedanceMatrix,
 } from './mutualImpedance.js';
-export type { PatternExcitation, EmbeddedPatternSet } from './patternSet.js';
+export type {
+  PatternExcitation, OpenCircuitExcitation, ShortCircuitExcitation, LoadedExcitation, Ludwig3Result, EmbeddedPatternSet,
+} from './patternSet.js';
 export {
   embeddedPatternSet, dipoleEmbeddedPatterns, convertPatternExcitation, ludwig3Components, translatePhaseReference,
 } from './patternSet.js';
-export type { PatternInterpolator } from './patternInterpolation.js';
+export type { PatternInterpolator, PatternSamples } from './patternInterpolation.js';
 export { patternInterpolator, rotatePatternSet } from './patternInterpolation.js';
 export type { RadiationMethod, RadiationOptions, RadiationProperties } from './radiation.js';
 export {

@@ -9,6 +9,17 @@ import { assertFiniteArray, describeValue } from '../internal/validate.js';
 import { embeddedPatternSet, setWavenumber, type EmbeddedPatternSet } from './patternSet.js';
 
 /**
+ * θ̂ and φ̂ components of N ports at M directions.
+ * @category Elements
+ */
+export interface PatternSamples {
+  /** f·θ̂ [V], N×M. */
+  readonly thetaComponentV: CMatrix;
+  /** f·φ̂ [V], N×M. */
+  readonly phiComponentV: CMatrix;
+}
+
+/**
  * A set prepared for repeated interpolation (see {@link patternInterpolator}).
  * @category Elements
  */
@@ -22,7 +33,7 @@ export interface PatternInterpolator {
    * @returns f·θ̂ and f·φ̂ [V], each N×M.
    * @throws {@link DomainError} for NaN angles, unequal lengths, or θ outside the grid.
    */
-  evaluate(thetaRad: ArrayLike<number>, phiRad: ArrayLike<number>): { thetaComponentV: CMatrix; phiComponentV: CMatrix };
+  evaluate(thetaRad: ArrayLike<number>, phiRad: ArrayLike<number>): PatternSamples;
   /**
    * Allocation-free form of `evaluate`: writes into `thetaOut`/`phiOut` (N×M, not aliasing the set) and returns them.
    * @param thetaOut - Output f·θ̂ [V], N×M.
@@ -31,7 +42,7 @@ export interface PatternInterpolator {
    * @param phiRad - Azimuths [rad].
    * @returns The two outputs.
    */
-  evaluateInto(thetaOut: CMatrix, phiOut: CMatrix, thetaRad: ArrayLike<number>, phiRad: ArrayLike<number>): { thetaComponentV: CMatrix; phiComponentV: CMatrix };
+  evaluateInto(thetaOut: CMatrix, phiOut: CMatrix, thetaRad: ArrayLike<number>, phiRad: ArrayLike<number>): PatternSamples;
 }
 
 interface Prepared {
@@ -173,7 +184,7 @@ export function patternInterpolator(set: EmbeddedPatternSet): PatternInterpolato
   embeddedPatternSet(set);
   const pr = prepare(set);
   const order = { v: 4 };
-  const evaluateInto = (thetaOut: CMatrix, phiOut: CMatrix, thetaRad: ArrayLike<number>, phiRad: ArrayLike<number>) => {
+  const evaluateInto = (thetaOut: CMatrix, phiOut: CMatrix, thetaRad: ArrayLike<number>, phiRad: ArrayLike<number>): PatternSamples => {
     const m = thetaRad.length, n = pr.n;
     if (phiRad.length !== m || thetaOut.rows !== n || thetaOut.cols !== m || phiOut.rows !== n || phiOut.cols !== m) {
       throw new DomainError(`invalid arguments: expected ${m} φ values and ${n}×${m} outputs, received ${phiRad.length} φ values and outputs ${thetaOut.rows}×${thetaOut.cols}, ${phiOut.rows}×${phiOut.cols}.`);

@@ -31,10 +31,53 @@ import { assertAboveGround, dipoleGeometry, type WireDipole } from './types.js';
  *   "all other ports matched/loaded" solver export; Z_L = 50 Ω is common practice).
  * @category Elements
  */
-export type PatternExcitation =
-  | { readonly kind: 'open-circuit-current'; readonly driveCurrentA: number }
-  | { readonly kind: 'short-circuit-voltage'; readonly driveVoltageV: number }
-  | { readonly kind: 'loaded-voltage'; readonly driveVoltageV: number; readonly loadOhm: CMatrix };
+export type PatternExcitation = OpenCircuitExcitation | ShortCircuitExcitation | LoadedExcitation;
+
+/**
+ * Port driven by current I₀, all other ports open (the phasewise default).
+ * @category Elements
+ */
+export interface OpenCircuitExcitation {
+  /** Tag. */
+  readonly kind: 'open-circuit-current';
+  /** Drive current I₀ [A, RMS], > 0. */
+  readonly driveCurrentA: number;
+}
+
+/**
+ * Port driven by an ideal voltage source V₀, all other ports shorted.
+ * @category Elements
+ */
+export interface ShortCircuitExcitation {
+  /** Tag. */
+  readonly kind: 'short-circuit-voltage';
+  /** Source EMF V₀ [V, RMS], > 0. */
+  readonly driveVoltageV: number;
+}
+
+/**
+ * Port driven by EMF V₀ behind its load Z_L,n; every other port m terminated in Z_L,m.
+ * @category Elements
+ */
+export interface LoadedExcitation {
+  /** Tag. */
+  readonly kind: 'loaded-voltage';
+  /** Source EMF V₀ [V, RMS], > 0. */
+  readonly driveVoltageV: number;
+  /** Load (and source) impedance of each port [Ω], N×1. */
+  readonly loadOhm: CMatrix;
+}
+
+/**
+ * Co- and cross-polar components (Ludwig 3) of a set of patterns.
+ * @category Elements
+ */
+export interface Ludwig3Result {
+  /** Co-polar component [V], P×M. */
+  readonly co: CMatrix;
+  /** Cross-polar component [V], P×M. */
+  readonly cross: CMatrix;
+}
 
 /**
  * Per-port far-field patterns sampled on a θ-φ grid.
@@ -302,7 +345,7 @@ function diagonalOf(col: CMatrix): CMatrix {
  * @throws {@link DimensionError} for mismatched shapes; {@link DomainError} for a bad reference or NaN angles.
  * @category Elements
  */
-export function ludwig3Components(thetaComponentV: CMatrix, phiComponentV: CMatrix, phiRad: ArrayLike<number>, reference: 'x' | 'y' = 'x'): { co: CMatrix; cross: CMatrix } {
+export function ludwig3Components(thetaComponentV: CMatrix, phiComponentV: CMatrix, phiRad: ArrayLike<number>, reference: 'x' | 'y' = 'x'): Ludwig3Result {
   assertFiniteCMatrix('thetaComponentV', thetaComponentV);
   assertFiniteCMatrix('phiComponentV', phiComponentV);
   const { rows, cols } = thetaComponentV;
