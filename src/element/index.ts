@@ -8,12 +8,12 @@ export {
   dipoleMutualImpedance, dipoleArrayImpedanceMatrix,
 } from './mutualImpedance.js';
 export type {
-  PatternExcitation, OpenCircuitExcitation, ShortCircuitExcitation, LoadedExcitation, Ludwig3Result, EmbeddedPatternSet,
+  PatternExcitation, OpenCircuitExcitation, ShortCircuitExcitation, LoadedExcitation, Ludwig3Result, EmbeddedPatternSet, PatternSamples,
 } from './patternSet.js';
 export {
-  embeddedPatternSet, dipoleEmbeddedPatterns, convertPatternExcitation, ludwig3Components, translatePhaseReference,
+  embeddedPatternSet, dipoleEmbeddedPatterns, dipoleArrayFarFields, convertPatternExcitation, ludwig3Components, translatePhaseReference,
 } from './patternSet.js';
-export type { PatternInterpolator, PatternSamples } from './patternInterpolation.js';
+export type { PatternInterpolator } from './patternInterpolation.js';
 export { patternInterpolator, rotatePatternSet } from './patternInterpolation.js';
 export type { RadiationMethod, RadiationOptions, RadiationProperties } from './radiation.js';
 export {

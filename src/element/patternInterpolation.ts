@@ -6,18 +6,7 @@
 import { DomainError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
 import { assertFiniteArray, describeValue } from '../internal/validate.js';
-import { embeddedPatternSet, setWavenumber, type EmbeddedPatternSet } from './patternSet.js';
-
-/**
- * θ̂ and φ̂ components of N ports at M directions.
- * @category Elements
- */
-export interface PatternSamples {
-  /** f·θ̂ [V], N×M. */
-  readonly thetaComponentV: CMatrix;
-  /** f·φ̂ [V], N×M. */
-  readonly phiComponentV: CMatrix;
-}
+import { embeddedPatternSet, setWavenumber, type EmbeddedPatternSet, type PatternSamples } from './patternSet.js';
 
 /**
  * A set prepared for repeated interpolation (see {@link patternInterpolator}).

@@ -14,7 +14,7 @@ import {
 } from '../internal/validate.js';
 import { C0_M_PER_S } from '../units/constants.js';
 import {
-  accumulateElementFarField, checkFarFieldOptions, SINUSOIDAL_CURRENT, type FarFieldOptions,
+  accumulateElementFarField, checkDirections, checkFarFieldOptions, SINUSOIDAL_CURRENT, type FarFieldOptions,
 } from './farField.js';
 import { assertAboveGround, dipoleGeometry, type WireDipole } from './types.js';
 
@@ -66,6 +66,17 @@ export interface LoadedExcitation {
   readonly driveVoltageV: number;
   /** Load (and source) impedance of each port [Ω], N×1. */
   readonly loadOhm: CMatrix;
+}
+
+/**
+ * θ̂ and φ̂ components of N ports at M directions.
+ * @category Elements
+ */
+export interface PatternSamples {
+  /** f·θ̂ [V], N×M. */
+  readonly thetaComponentV: CMatrix;
+  /** f·φ̂ [V], N×M. */
+  readonly phiComponentV: CMatrix;
 }
 
 /**
@@ -255,6 +266,37 @@ export function dipoleEmbeddedPatterns(
     thetaComponentV: { rows: n, cols: m, data: tData }, phiComponentV: { rows: n, cols: m, data: pData },
     excitation: { kind: 'open-circuit-current', driveCurrentA: i0 }, phaseCentersM: centres,
   });
+}
+
+/**
+ * Open-circuit embedded patterns of a dipole array (single-mode assumption, as
+ * in {@link dipoleEmbeddedPatterns}) at an arbitrary list of directions.
+ *
+ * @param dipoles - The N dipoles.
+ * @param frequencyHz - Frequency [Hz], > 0.
+ * @param thetaRad - Polar angles [rad], length M.
+ * @param phiRad - Azimuths [rad], length M.
+ * @param options - Drive current I₀ [A] and ground plane.
+ * @returns f·θ̂ and f·φ̂ [V], each N×M (row n = port n).
+ * @throws {@link DomainError} for bad dipoles or angles.
+ * @category Elements
+ */
+export function dipoleArrayFarFields(
+  dipoles: ReadonlyArray<WireDipole>, frequencyHz: number, thetaRad: ArrayLike<number>, phiRad: ArrayLike<number>, options: FarFieldOptions = {},
+): PatternSamples {
+  const k = checkDirections(frequencyHz, thetaRad, phiRad);
+  const i0 = checkFarFieldOptions(options);
+  if (!Array.isArray(dipoles) || dipoles.length === 0) {
+    throw new DomainError(`invalid argument "dipoles": expected a non-empty array of WireDipole, received ${describeValue(dipoles)}.`);
+  }
+  const n = dipoles.length, m = thetaRad.length;
+  const t = new Float64Array(2 * n * m), p = new Float64Array(2 * n * m);
+  dipoles.forEach((d, i) => {
+    const g = dipoleGeometry(`dipoles[${i}]`, d, k);
+    if (options.groundPlane) assertAboveGround(`dipoles[${i}]`, g, options.groundPlane);
+    accumulateElementFarField(t, p, i * m, g, SINUSOIDAL_CURRENT, k, i0, thetaRad, phiRad, options.groundPlane);
+  });
+  return { thetaComponentV: { rows: n, cols: m, data: t }, phiComponentV: { rows: n, cols: m, data: p } };
 }
 
 /**
