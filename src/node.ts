@@ -4,4 +4,5 @@
  * @module
  */
 export { readYFactorCsv, readOnOffCsv } from './measure/node.js';
+export { readTouchstoneFile, writeTouchstoneFile } from './network/node.js';
 export { readPatternFile, writePatternFile } from './element/node.js';

@@ -9,13 +9,24 @@ import { quadraticForm } from '../linalg/ops.js';
 import { JANSKY_W_PER_M2_HZ, K_BOLTZMANN_J_PER_K } from '../units/constants.js';
 
 /**
+ * Plane-parallel atmospheric attenuation of a calibrator: S is multiplied by exp(−τ/sin el).
+ * @category Measurement
+ */
+export interface AtmosphereCorrection {
+  /** Zenith opacity τ [Np], ≥ 0. */
+  zenithOpacityNp: number;
+  /** Source elevation above the horizon [rad], in [0.001, π/2]. */
+  elevationRad: number;
+}
+
+/**
  * Optional corrections to the calibrator's flux density. None is applied
  * unless given; every applied factor is reported in the result.
  * @category Measurement
  */
 export interface FluxCorrections {
   /** Atmospheric attenuation: zenith opacity τ [Np] and source elevation [rad]; S is multiplied by exp(−τ/sin el) (plane-parallel atmosphere). */
-  atmosphere?: { zenithOpacityNp: number; elevationRad: number };
+  atmosphere?: AtmosphereCorrection;
   /** Source-size correction factor K ≥ 1 for a calibrator partly resolved by the beam; S is divided by K. */
   sourceSizeFactor?: number;
 }

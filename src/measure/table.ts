@@ -95,6 +95,24 @@ export function parseOnOffCsv(text: string): OnOffRow[] {
 }
 
 /**
+ * A reduced Y-factor table row: the channel name and its {@link YFactorResult}.
+ * @category Measurement
+ */
+export interface YFactorTableResult extends YFactorResult {
+  /** Channel name from the table. */
+  channel: string;
+}
+
+/**
+ * A reduced on/off table row: the beam name and its {@link OnOffResult}.
+ * @category Measurement
+ */
+export interface OnOffTableResult extends OnOffResult {
+  /** Beam name from the table. */
+  beam: string;
+}
+
+/**
  * Options of {@link reduceYFactorTable}.
  * @category Measurement
  */
@@ -118,7 +136,7 @@ export interface YFactorTableOptions {
  * @throws {@link DomainError} naming the row for non-positive powers or Y ≤ 1.
  * @category Measurement
  */
-export function reduceYFactorTable(rows: readonly YFactorRow[], options: YFactorTableOptions): Array<YFactorResult & { channel: string }> {
+export function reduceYFactorTable(rows: readonly YFactorRow[], options: YFactorTableOptions): YFactorTableResult[] {
   if (!Array.isArray(rows)) throw new DimensionError('invalid argument "rows": expected an array of {channel, hot, cold}.');
   return rows.map((r, i) => {
     try {
@@ -139,7 +157,7 @@ export function reduceYFactorTable(rows: readonly YFactorRow[], options: YFactor
  * @throws {@link DomainError} naming the row for invalid powers.
  * @category Measurement
  */
-export function reduceOnOffTable(rows: readonly OnOffRow[], fluxDensityWPerM2Hz: number, corrections?: FluxCorrections): Array<OnOffResult & { beam: string }> {
+export function reduceOnOffTable(rows: readonly OnOffRow[], fluxDensityWPerM2Hz: number, corrections?: FluxCorrections): OnOffTableResult[] {
   if (!Array.isArray(rows)) throw new DimensionError('invalid argument "rows": expected an array of {beam, on, off}.');
   return rows.map((r, i) => {
     try {

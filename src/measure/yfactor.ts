@@ -35,6 +35,21 @@ export interface YFactorInput {
 }
 
 /**
+ * Contributions to the variance of a Y-factor receiver temperature [K²].
+ * @category Measurement
+ */
+export interface YFactorVarianceBudget {
+  /** From the hot-power uncertainty [K²]. */
+  hotPower: number;
+  /** From the cold-power uncertainty [K²]. */
+  coldPower: number;
+  /** From the hot-load temperature uncertainty [K²]. */
+  hotTemperature: number;
+  /** From the cold-load temperature uncertainty [K²]. */
+  coldTemperature: number;
+}
+
+/**
  * Result of {@link yFactorReceiverTemperature}.
  * @category Measurement
  */
@@ -45,8 +60,8 @@ export interface YFactorResult {
   receiverTemperatureK: number;
   /** First-order one-sigma uncertainty of the receiver temperature [K] (uncorrelated inputs). */
   receiverTemperatureSigmaK: number;
-  /** Contributions to the variance [K²]: hot power, cold power, hot temperature, cold temperature. */
-  varianceBudgetK2: { hotPower: number; coldPower: number; hotTemperature: number; coldTemperature: number };
+  /** Contributions to the variance of the receiver temperature [K²]. */
+  varianceBudgetK2: YFactorVarianceBudget;
   /** Noise figure 10·log10(1 + T_rec/T0) [dB] (T0 = 290 K). */
   noiseFigureDb: number;
 }
