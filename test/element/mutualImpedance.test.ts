@@ -177,3 +177,18 @@ describe('dipoleMutualImpedance and the array matrix', () => {
     expect(() => dipoleArrayImpedanceMatrix([dip([0, 0, 0], [0, 0, 0])], F)).toThrow(/non-zero direction/);
   });
 });
+
+describe('reciprocity (property)', () => {
+  it('Z(a, b) = Z(b, a) for random pairs with centres ≥ 1.2 λ apart (wires ≥ 0.5 λ)', async () => {
+    const fc = (await import('fast-check')).default;
+    const coord = fc.double({ min: -1, max: 1, noNaN: true });
+    const axis = fc.tuple(coord, coord, coord).filter(([x, y, z]) => Math.hypot(x, y, z) > 0.2);
+    fc.assert(fc.property(axis, axis, fc.tuple(coord, coord, coord), fc.double({ min: 0.2, max: 0.7, noNaN: true }), fc.double({ min: 0.2, max: 0.7, noNaN: true }),
+      (a1, a2, c, l1, l2) => {
+        const a = dip([0, 0, 0], a1 as unknown as Vector3, l1);
+        const b = dip([Math.abs(2 * c[0]) + 1.2, c[1], c[2]], a2 as unknown as Vector3, l2);
+        const ab = dipoleMutualImpedance(a, b, F), ba = dipoleMutualImpedance(b, a, F);
+        return Math.hypot(ab.re - ba.re, ab.im - ba.im) <= 1e-9 * Math.hypot(ab.re, ab.im) + 1e-9;
+      }), { seed: 42, numRuns: 40 });
+  });
+});
