@@ -20,7 +20,8 @@ import { assertAboveGround, dipoleGeometry, type WireDipole } from './types.js';
  * The open-circuit embedded patterns of a dipole array (single-mode
  * assumption, see {@link dipoleEmbeddedPatterns}) as an on-demand pattern
  * source for the reception module: exact values at any direction, computed per
- * block.
+ * block. Over a ground plane integrate with an even number of θ nodes (see
+ * {@link radiationResistanceMatrix}).
  *
  * @param dipoles - The N dipoles.
  * @param frequencyHz - Frequency [Hz], > 0.
