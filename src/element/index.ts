@@ -23,4 +23,3 @@ export {
 export { parsePatternJson, formatPatternJson, parsePatternCsv, formatPatternCsv } from './patternFormats.js';
 export type { DipolesFromLayoutOptions } from './fromLayout.js';
 export { dipolesFromLayout } from './fromLayout.js';
-export { dipolePatternSource, patternSetSource } from './patternSources.js';
