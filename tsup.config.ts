@@ -1,7 +1,7 @@
 import { defineConfig } from 'tsup';
 
 export default defineConfig({
-  entry: { index: 'src/index.ts', plot: 'src/plot/index.ts' },
+  entry: { index: 'src/index.ts', plot: 'src/plot/index.ts', node: 'src/node.ts' },
   format: ['esm', 'cjs'],
   dts: true,
   sourcemap: true,

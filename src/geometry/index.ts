@@ -12,5 +12,5 @@ export {
 } from './directions.js';
 export type { ThetaPhiGrid, UvGrid, PlaneCut } from './grids.js';
 export { evenlySpaced, thetaPhiGrid, uvGrid, visibleDirections, planeCut } from './grids.js';
-export type { GaussLegendreRule, SphereQuadrature, SphereQuadratureOrderOptions, SphereQuadratureOrder } from './quadrature.js';
+export type { GaussLegendreRule, SphereQuadrature, SphereQuadratureOptions, SphereQuadratureOrderOptions, SphereQuadratureOrder } from './quadrature.js';
 export { gaussLegendre, sphereQuadrature, sphereQuadratureOrder, sphereQuadratureForLayout } from './quadrature.js';

@@ -89,7 +89,7 @@ export function gaussLegendre(n: number): GaussLegendreRule {
  * @category Geometry
  */
 export interface SphereQuadrature {
-  /** Number of θ nodes. */
+  /** Number of θ nodes (all of them, both hemispheres when split). */
   readonly thetaCount: number;
   /** Number of φ nodes. */
   readonly phiCount: number;
@@ -106,10 +106,25 @@ export interface SphereQuadrature {
 }
 
 /**
+ * Options of {@link sphereQuadrature}.
+ * @category Geometry
+ */
+export interface SphereQuadratureOptions {
+  /**
+   * Apply the θ rule separately on each hemisphere (cosθ ∈ [0, 1] and [−1, 0]),
+   * doubling the θ nodes. Use it for integrands with a kink at the horizon
+   * (elements that radiate into z > 0 only), where a single Gauss–Legendre rule
+   * converges slowly. @defaultValue false
+   */
+  splitAtHorizon?: boolean;
+}
+
+/**
  * The product rule with the given numbers of θ and φ nodes.
  * @param thetaCount - Gauss–Legendre nodes in cosθ, integer ≥ 1.
  * @param phiCount - Trapezoid nodes in φ, integer ≥ 1.
- * @returns The rule.
+ * @param options - Hemisphere split.
+ * @returns The rule (thetaCount doubles when split).
  * @throws {@link DomainError} for bad counts.
  * @example
  * ```ts
@@ -118,15 +133,26 @@ export interface SphereQuadrature {
  * ```
  * @category Geometry
  */
-export function sphereQuadrature(thetaCount: number, phiCount: number): SphereQuadrature {
+export function sphereQuadrature(thetaCount: number, phiCount: number, options: SphereQuadratureOptions = {}): SphereQuadrature {
   assertInteger('thetaCount', thetaCount, 1, 100000);
   assertInteger('phiCount', phiCount, 1, 10000000);
   const gl = gaussLegendre(thetaCount);
-  const count = thetaCount * phiCount;
-  const thetaRad = new Float64Array(thetaCount), st = new Float64Array(thetaCount), ct = new Float64Array(thetaCount);
-  for (let i = 0; i < thetaCount; i++) {
-    // ascending θ ⇔ descending cosθ
-    const x = gl.nodes[thetaCount - 1 - i];
+  // cosθ nodes (descending ⇔ θ ascending) and their weights; split rules map the n-point rule onto [0, 1] and [−1, 0]
+  let xs: number[], ws: number[];
+  if (options.splitAtHorizon) {
+    xs = []; ws = [];
+    for (let i = thetaCount - 1; i >= 0; i--) { xs.push((1 + gl.nodes[i]) / 2); ws.push(gl.weights[i] / 2); }
+    for (let i = thetaCount - 1; i >= 0; i--) { xs.push((gl.nodes[i] - 1) / 2); ws.push(gl.weights[i] / 2); }
+  } else {
+    xs = Array.from(gl.nodes).reverse();
+    ws = Array.from(gl.weights).reverse();
+  }
+  const nt = xs.length;
+  thetaCount = nt;
+  const count = nt * phiCount;
+  const thetaRad = new Float64Array(nt), st = new Float64Array(nt), ct = new Float64Array(nt);
+  for (let i = 0; i < nt; i++) {
+    const x = xs[i];
     ct[i] = x;
     st[i] = Math.sqrt((1 - x) * (1 + x));
     thetaRad[i] = Math.acos(x);
@@ -143,7 +169,7 @@ export function sphereQuadrature(thetaCount: number, phiCount: number): SphereQu
       directions[3 * k] = st[i] * cp;
       directions[3 * k + 1] = st[i] * sp;
       directions[3 * k + 2] = ct[i];
-      weights[k] = gl.weights[thetaCount - 1 - i] * dphi;
+      weights[k] = ws[i] * dphi;
     }
   }
   return { thetaCount, phiCount, count, thetaRad, phiRad, directions, weights };
@@ -237,7 +263,7 @@ export function sphereQuadratureOrder(electricalDiameterRad: number, options: Sp
  * (D from {@link layoutDiameterM}, a = kD, counts from {@link sphereQuadratureOrder}).
  * @param layout - The array layout.
  * @param frequencyHz - Frequency [Hz], > 0.
- * @param options - Tolerance and extra degree.
+ * @param options - Tolerance, extra degree and hemisphere split.
  * @returns The rule and its error bound.
  * @throws {@link DomainError} for a bad frequency or options.
  * @category Geometry
@@ -245,11 +271,11 @@ export function sphereQuadratureOrder(electricalDiameterRad: number, options: Sp
 export function sphereQuadratureForLayout(
   layout: ArrayLayout,
   frequencyHz: number,
-  options: SphereQuadratureOrderOptions = {},
+  options: SphereQuadratureOrderOptions & SphereQuadratureOptions = {},
 ): SphereQuadrature & { readonly errorEstimate: number } {
   assertPositive('frequencyHz', frequencyHz, 'Hz');
   const a = wavenumberRadPerM(frequencyHz) * layoutDiameterM(layout);
   const order = sphereQuadratureOrder(a, options);
   if (!Number.isFinite(order.errorEstimate)) throw new DomainError('sphereQuadratureForLayout: the error bound overflowed; reduce the tolerance demand.');
-  return { ...sphereQuadrature(order.thetaCount, order.phiCount), errorEstimate: order.errorEstimate };
+  return { ...sphereQuadrature(order.thetaCount, order.phiCount, { splitAtHorizon: options.splitAtHorizon ?? false }), errorEstimate: order.errorEstimate };
 }

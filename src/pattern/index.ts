@@ -1,0 +1,18 @@
+export { steeringVector, steeringVectorInto, steeringMatrix, steeringMatrixInto } from './steering.js';
+export { arrayFactor, arrayFactorInto, arrayFactorMagnitude, magnitudesInto } from './arrayFactor.js';
+export type { ElementFactor } from './element.js';
+export { elementFactorValues, totalPattern } from './element.js';
+export type { PatternEvaluator } from './evaluator.js';
+export { patternEvaluator } from './evaluator.js';
+export type { CutFigures, CutFiguresOptions } from './cutFigures.js';
+export { cutFigures } from './cutFigures.js';
+export type { LinearArrayFigures } from './linearArray.js';
+export { linearArrayField, linearArrayFigures } from './linearArray.js';
+export type { DirectivityResult, DirectivityOptions } from './directivity.js';
+export { directivity, isotropicDirectivity, scanLossDb } from './directivity.js';
+export type { GratingLobe } from './gratingLobes.js';
+export { gratingLobes, lineGratingLobes } from './gratingLobes.js';
+export type { UvPatternFigures } from './uvFigures.js';
+export { uvPatternFigures } from './uvFigures.js';
+export type { FftGridArrayFactor } from './gridPaths.js';
+export { separableGridArrayFactor, fftGridArrayFactor, fftGridArrayFactorInto } from './gridPaths.js';

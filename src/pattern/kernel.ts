@@ -1,0 +1,357 @@
+/**
+ * The array-factor summation kernel shared by the pattern functions.
+ *
+ * AF(r̂) = Σₙ conj(wₙ) exp(j k r̂·rₙ) is evaluated either
+ * - plainly: one cos/sin pair per element and direction; or
+ * - factored: when the positions take few distinct values along one axis
+ *   ("columns") and few distinct values across the other two ("rows"), as on
+ *   any lattice, exp(j k r̂·rₙ) = E_col(n)·E_row(n) exactly; per direction the
+ *   column and row tables cost one cos/sin pair per distinct value — or one
+ *   complex multiplication per value when the values form an arithmetic
+ *   progression (a recurrence re-seeded with a direct cos/sin every 16 steps,
+ *   so its rounding stays below ~20 ulp) — and the sum costs one complex
+ *   multiply-add per element.
+ * The cheaper of the two is chosen from a simple cost model.
+ * @internal
+ * @module
+ */
+
+/** Re-seed period of the phase recurrence. */
+const RESEED = 16;
+
+/** Precomputed summation plan of one layout. */
+export interface ArrayFactorPlan {
+  readonly count: number;
+  readonly factored: boolean;
+  /** Grouped position g → element index. */
+  readonly order: Int32Array;
+  /** Plain path: positions in grouped order (xyz-interleaved). */
+  readonly positions: Float64Array;
+  /** Axis permutation: inner (column) axis a, row axes b and c. */
+  readonly axisA: number;
+  readonly axisB: number;
+  readonly axisC: number;
+  /** Distinct a-values (ascending), progression step or NaN. */
+  readonly colValues: Float64Array;
+  readonly colStep: number;
+  /** Column index of each grouped element. */
+  readonly colIndex: Int32Array;
+  /** Row starts (length rows + 1) in grouped order. */
+  readonly rowStart: Int32Array;
+  /** b and c coordinate of each row. */
+  readonly rowB: Float64Array;
+  readonly rowC: Float64Array;
+  /** All rows share one c value (then rows are sorted by b). */
+  readonly planar: boolean;
+  /** Progression step of rowB when planar, else NaN. */
+  readonly rowStep: number;
+  /**
+   * Every row holds every column and the columns form a progression: the sum
+   * then pairs columns c and D−1−c, symmetric about the mid value x̄, so that
+   * wₐ e^{jδ} + w_b e^{−jδ} = (wₐ + w_b) cos δ + j (wₐ − w_b) sin δ
+   * halves the multiplications (exact).
+   */
+  readonly fullGrid: boolean;
+}
+
+function progressionStep(v: Float64Array): number {
+  const d = v.length;
+  if (d === 1) return 0;
+  const step = (v[d - 1] - v[0]) / (d - 1);
+  const tol = 1e-13 * Math.max(Math.abs(v[0]), Math.abs(v[d - 1]), Math.abs(step));
+  for (let i = 1; i < d - 1; i++) if (Math.abs(v[i] - (v[0] + i * step)) > tol) return NaN;
+  return step;
+}
+
+function distinct(values: Float64Array): Float64Array {
+  return Float64Array.from(new Set(values)).sort();
+}
+
+/** Builds the plan of a layout (positions xyz-interleaved, N ≥ 1). */
+export function planArrayFactor(positionsM: Float64Array): ArrayFactorPlan {
+  const n = positionsM.length / 3;
+  const coord = [0, 1, 2].map((a) => {
+    const c = new Float64Array(n);
+    for (let i = 0; i < n; i++) c[i] = positionsM[3 * i + a];
+    return c;
+  });
+  const counts = coord.map((c) => new Set(c).size);
+  const axisA = counts.indexOf(Math.max(...counts));
+  const rest = [0, 1, 2].filter((a) => a !== axisA);
+  const [axisC, axisB] = counts[rest[0]] <= counts[rest[1]] ? [rest[0], rest[1]] : [rest[1], rest[0]];
+  const ca = coord[axisA], cb = coord[axisB], cc = coord[axisC];
+  const colValues = distinct(ca);
+  const colStep = progressionStep(colValues);
+  const colOf = new Map<number, number>();
+  colValues.forEach((v, i) => colOf.set(v, i));
+  const planar = counts[axisC] === 1;
+  // rows keyed by (b, c)
+  const rowKey = new Map<string, number>();
+  const rowsB: number[] = [], rowsC: number[] = [];
+  const rowOfElem = new Int32Array(n);
+  for (let i = 0; i < n; i++) {
+    const key = `${cb[i]}|${cc[i]}`;
+    let r = rowKey.get(key);
+    if (r === undefined) { r = rowsB.length; rowKey.set(key, r); rowsB.push(cb[i]); rowsC.push(cc[i]); }
+    rowOfElem[i] = r;
+  }
+  const rowCount = rowsB.length;
+  // sort rows by (c, b)
+  const rowPerm = Array.from({ length: rowCount }, (_, r) => r).sort((p, q) => rowsC[p] - rowsC[q] || rowsB[p] - rowsB[q]);
+  const rowRank = new Int32Array(rowCount);
+  rowPerm.forEach((r, i) => { rowRank[r] = i; });
+  const rowB = Float64Array.from(rowPerm.map((r) => rowsB[r]));
+  const rowC = Float64Array.from(rowPerm.map((r) => rowsC[r]));
+  const rowStep = planar ? progressionStep(rowB) : NaN;
+  const elems = Array.from({ length: n }, (_, i) => i).sort((p, q) => rowRank[rowOfElem[p]] - rowRank[rowOfElem[q]] || ca[p] - ca[q]);
+  const order = Int32Array.from(elems);
+  const colIndex = new Int32Array(n);
+  const rowStart = new Int32Array(rowCount + 1);
+  const positions = new Float64Array(3 * n);
+  for (let g = 0; g < n; g++) {
+    const i = order[g];
+    colIndex[g] = colOf.get(ca[i])!;
+    rowStart[rowRank[rowOfElem[i]] + 1]++;
+    positions[3 * g] = positionsM[3 * i];
+    positions[3 * g + 1] = positionsM[3 * i + 1];
+    positions[3 * g + 2] = positionsM[3 * i + 2];
+  }
+  for (let r = 0; r < rowCount; r++) rowStart[r + 1] += rowStart[r];
+  const colCost = Number.isNaN(colStep) ? 8 * colValues.length : colValues.length;
+  const rowCost = Number.isNaN(rowStep) ? 8 * rowCount : rowCount;
+  const factored = colCost + rowCost + 1.5 * n < 8 * n;
+  let fullGrid = factored && !Number.isNaN(colStep) && colValues.length >= 2 && rowCount * colValues.length === n;
+  for (let g = 0; fullGrid && g < n; g++) fullGrid = colIndex[g] === g % colValues.length;
+  return { count: n, factored, order, positions, axisA, axisB, axisC, colValues, colStep, colIndex, rowStart, rowB, rowC, planar, rowStep, fullGrid };
+}
+
+/** Fills re/im with exp(j(s·values[i] + offset)), by recurrence when `step` is a number. */
+function fillPhases(re: Float64Array, im: Float64Array, values: Float64Array, s: number, offset: number, step: number): void {
+  const d = values.length;
+  if (Number.isNaN(step)) {
+    for (let i = 0; i < d; i++) {
+      const ph = s * values[i] + offset;
+      re[i] = Math.cos(ph);
+      im[i] = Math.sin(ph);
+    }
+    return;
+  }
+  const cs = Math.cos(s * step), sn = Math.sin(s * step);
+  let zr = 0, zi = 0;
+  for (let i = 0; i < d; i++) {
+    if (i % RESEED === 0) {
+      const ph = s * values[i] + offset;
+      zr = Math.cos(ph);
+      zi = Math.sin(ph);
+    } else {
+      const t = zr * cs - zi * sn;
+      zi = zr * sn + zi * cs;
+      zr = t;
+    }
+    re[i] = zr;
+    im[i] = zi;
+  }
+}
+
+/** Work buffers of the factored kernel. */
+export interface KernelWork {
+  colRe: Float64Array;
+  colIm: Float64Array;
+  rowRe: Float64Array;
+  rowIm: Float64Array;
+  /** Row factors of the second direction of a pair (full-grid path). */
+  row2Re: Float64Array;
+  row2Im: Float64Array;
+  cwRe: Float64Array;
+  cwIm: Float64Array;
+  /** Full-grid path: pair sums P = wₐ + w_b and differences Q = wₐ − w_b, interleaved [Pr, Pi, Qr, Qi] per (row, pair). */
+  pairs: Float64Array;
+  /** Full-grid path: half-table of cos δ, sin δ for two directions. */
+  half: Float64Array;
+}
+
+/** Allocates the work buffers of a plan. */
+export function kernelWork(plan: ArrayFactorPlan): KernelWork {
+  const nc = plan.colValues.length, nr = plan.rowB.length;
+  return {
+    colRe: new Float64Array(nc), colIm: new Float64Array(nc),
+    rowRe: new Float64Array(nr), rowIm: new Float64Array(nr),
+    row2Re: new Float64Array(plan.fullGrid ? nr : 0), row2Im: new Float64Array(plan.fullGrid ? nr : 0),
+    cwRe: new Float64Array(plan.count), cwIm: new Float64Array(plan.count),
+    pairs: new Float64Array(plan.fullGrid ? 4 * nr * Math.floor(nc / 2) : 0),
+    half: new Float64Array(plan.fullGrid ? 4 * Math.floor(nc / 2) : 0),
+  };
+}
+
+/**
+ * Loads conj(w)·mask in grouped order into work.cwRe/cwIm.
+ * `w` is interleaved re/im of length 2N in element order.
+ */
+export function loadWeights(plan: ArrayFactorPlan, work: KernelWork, w: Float64Array, enabled?: Uint8Array): void {
+  for (let g = 0; g < plan.count; g++) {
+    const i = plan.order[g];
+    const on = enabled === undefined || enabled[i] ? 1 : 0;
+    work.cwRe[g] = on * w[2 * i];
+    work.cwIm[g] = -on * w[2 * i + 1];
+  }
+  if (plan.fullGrid) {
+    const d = plan.colValues.length, h = d >> 1, rows = plan.rowB.length;
+    for (let r = 0; r < rows; r++) {
+      for (let c = 0; c < h; c++) {
+        const a = r * d + c, b = r * d + d - 1 - c, o = 4 * (r * h + c);
+        work.pairs[o] = work.cwRe[a] + work.cwRe[b];
+        work.pairs[o + 1] = work.cwIm[a] + work.cwIm[b];
+        work.pairs[o + 2] = work.cwRe[a] - work.cwRe[b];
+        work.pairs[o + 3] = work.cwIm[a] - work.cwIm[b];
+      }
+    }
+  }
+}
+
+/**
+ * AF for directions[3m…] (m in [m0, m1)) written to out[2m], out[2m+1].
+ * `k` is the wavenumber [rad/m]; weights must be loaded first.
+ */
+export function evaluateArrayFactor(
+  plan: ArrayFactorPlan, work: KernelWork, directions: Float64Array, k: number, out: Float64Array, m0: number, m1: number,
+): void {
+  const { cwRe, cwIm } = work;
+  const n = plan.count;
+  if (!plan.factored) {
+    const p = plan.positions;
+    for (let m = m0; m < m1; m++) {
+      const ux = k * directions[3 * m], uy = k * directions[3 * m + 1], uz = k * directions[3 * m + 2];
+      let ar = 0, ai = 0;
+      for (let g = 0; g < n; g++) {
+        const ph = ux * p[3 * g] + uy * p[3 * g + 1] + uz * p[3 * g + 2];
+        const c = Math.cos(ph), s = Math.sin(ph);
+        const wr = cwRe[g], wi = cwIm[g];
+        ar += wr * c - wi * s;
+        ai += wr * s + wi * c;
+      }
+      out[2 * m] = ar;
+      out[2 * m + 1] = ai;
+    }
+    return;
+  }
+  if (plan.fullGrid) {
+    evaluateFullGrid(plan, work, directions, k, out, m0, m1);
+    return;
+  }
+  const { colRe, colIm, rowRe, rowIm } = work;
+  const { colIndex, rowStart, rowB, rowC, colValues, colStep, rowStep, planar, axisA, axisB, axisC } = plan;
+  const rows = rowB.length;
+  const c0 = rowC[0];
+  for (let m = m0; m < m1; m++) {
+    const sa = k * directions[3 * m + axisA], sb = k * directions[3 * m + axisB], sc = k * directions[3 * m + axisC];
+    fillPhases(colRe, colIm, colValues, sa, 0, colStep);
+    if (planar) {
+      fillPhases(rowRe, rowIm, rowB, sb, sc * c0, rowStep);
+    } else {
+      for (let r = 0; r < rows; r++) {
+        const ph = sb * rowB[r] + sc * rowC[r];
+        rowRe[r] = Math.cos(ph);
+        rowIm[r] = Math.sin(ph);
+      }
+    }
+    let accR = 0, accI = 0;
+    for (let r = 0; r < rows; r++) {
+      let ar = 0, ai = 0;
+      const end = rowStart[r + 1];
+      for (let g = rowStart[r]; g < end; g++) {
+        const ci = colIndex[g];
+        const er = colRe[ci], ei = colIm[ci];
+        const wr = cwRe[g], wi = cwIm[g];
+        ar += wr * er - wi * ei;
+        ai += wr * ei + wi * er;
+      }
+      const rr = rowRe[r], ri = rowIm[r];
+      accR += ar * rr - ai * ri;
+      accI += ar * ri + ai * rr;
+    }
+    out[2 * m] = accR;
+    out[2 * m + 1] = accI;
+  }
+}
+
+/** Row factors exp(j k (b·r̂_b + c·r̂_c)) of one direction into re/im. */
+function fillRows(plan: ArrayFactorPlan, re: Float64Array, im: Float64Array, sb: number, sc: number): void {
+  if (plan.planar) {
+    fillPhases(re, im, plan.rowB, sb, sc * plan.rowC[0], plan.rowStep);
+    return;
+  }
+  for (let r = 0; r < plan.rowB.length; r++) {
+    const ph = sb * plan.rowB[r] + sc * plan.rowC[r];
+    re[r] = Math.cos(ph);
+    im[r] = Math.sin(ph);
+  }
+}
+
+/** Half-table cos δ_c, sin δ_c (δ_c = s·(c − (D−1)/2)·step, c < D/2) at half[4c + 2t], t = direction slot. */
+function fillHalf(half: Float64Array, h: number, d: number, s: number, step: number, slot: number): void {
+  const cs = Math.cos(s * step), sn = Math.sin(s * step);
+  let zr = 0, zi = 0;
+  for (let c = 0; c < h; c++) {
+    if (c % RESEED === 0) {
+      const ph = s * step * (c - (d - 1) / 2);
+      zr = Math.cos(ph);
+      zi = Math.sin(ph);
+    } else {
+      const t = zr * cs - zi * sn;
+      zi = zr * sn + zi * cs;
+      zr = t;
+    }
+    half[4 * c + 2 * slot] = zr;
+    half[4 * c + 2 * slot + 1] = zi;
+  }
+}
+
+/** Full-grid path, two directions per pass (shares the weight loads). */
+function evaluateFullGrid(plan: ArrayFactorPlan, work: KernelWork, directions: Float64Array, k: number, out: Float64Array, m0: number, m1: number): void {
+  const { pairs, half, rowRe, rowIm, row2Re, row2Im, cwRe, cwIm } = work;
+  const { colValues, colStep, axisA, axisB, axisC } = plan;
+  const d = colValues.length, h = d >> 1, odd = d & 1, rows = plan.rowB.length;
+  const mid = 0.5 * (colValues[0] + colValues[d - 1]);
+  for (let m = m0; m < m1; m += 2) {
+    const two = m + 1 < m1;
+    const m2 = two ? m + 1 : m;
+    const sa0 = k * directions[3 * m + axisA], sa1 = k * directions[3 * m2 + axisA];
+    fillHalf(half, h, d, sa0, colStep, 0);
+    fillHalf(half, h, d, sa1, colStep, 1);
+    fillRows(plan, rowRe, rowIm, k * directions[3 * m + axisB], k * directions[3 * m + axisC]);
+    fillRows(plan, row2Re, row2Im, k * directions[3 * m2 + axisB], k * directions[3 * m2 + axisC]);
+    let aR0 = 0, aI0 = 0, aR1 = 0, aI1 = 0;
+    for (let r = 0; r < rows; r++) {
+      let r0 = 0, i0 = 0, r1 = 0, i1 = 0;
+      let o = 4 * r * h;
+      for (let c = 0; c < h; c++, o += 4) {
+        const pr = pairs[o], pi = pairs[o + 1], qr = pairs[o + 2], qi = pairs[o + 3];
+        const c0 = half[4 * c], s0 = half[4 * c + 1], c1 = half[4 * c + 2], s1 = half[4 * c + 3];
+        r0 += pr * c0 - qi * s0;
+        i0 += pi * c0 + qr * s0;
+        r1 += pr * c1 - qi * s1;
+        i1 += pi * c1 + qr * s1;
+      }
+      if (odd) {
+        const g = r * d + h;
+        r0 += cwRe[g]; i0 += cwIm[g];
+        r1 += cwRe[g]; i1 += cwIm[g];
+      }
+      const fr0 = rowRe[r], fi0 = rowIm[r], fr1 = row2Re[r], fi1 = row2Im[r];
+      aR0 += r0 * fr0 - i0 * fi0;
+      aI0 += r0 * fi0 + i0 * fr0;
+      aR1 += r1 * fr1 - i1 * fi1;
+      aI1 += r1 * fi1 + i1 * fr1;
+    }
+    // column mid-point phase exp(j k r̂_a x̄)
+    const p0 = sa0 * mid, p1 = sa1 * mid;
+    const e0r = Math.cos(p0), e0i = Math.sin(p0);
+    out[2 * m] = aR0 * e0r - aI0 * e0i;
+    out[2 * m + 1] = aR0 * e0i + aI0 * e0r;
+    if (two) {
+      const e1r = Math.cos(p1), e1i = Math.sin(p1);
+      out[2 * m2] = aR1 * e1r - aI1 * e1i;
+      out[2 * m2 + 1] = aR1 * e1i + aI1 * e1r;
+    }
+  }
+}
