@@ -19,5 +19,5 @@ export { circularTaylorAperture, circularTaylorTaper } from './circularTaylor.js
 export { separableTaper } from './separable.js';
 export type { NullSynthesisResult } from './nulls.js';
 export { schelkunoffNulls, projectNulls, nullsOnLayout } from './nulls.js';
-export type { LineTaperFigures, LineTaperFiguresOptions } from './figures.js';
-export { lineTaperFigures } from './figures.js';
+export type { LineTaperFigures, LineTaperFiguresOptions, PlanarTaperFigures, PlanarTaperFiguresOptions } from './figures.js';
+export { lineTaperFigures, planarTaperFigures } from './figures.js';
