@@ -4,7 +4,7 @@
  */
 import { DimensionError, DomainError } from '../errors.js';
 import { layoutDiameterM, assertLayout, type ArrayLayout, type Vector3 } from '../geometry/layout.js';
-import { assertFiniteArray, describeValue } from '../internal/validate.js';
+import { assertFiniteArray, assertPositive, describeValue } from '../internal/validate.js';
 import { isotropicDirectivity } from '../pattern/directivity.js';
 import { patternEvaluator } from '../pattern/evaluator.js';
 import { fromParts, type CMatrix } from '../linalg/cmatrix.js';
@@ -88,6 +88,8 @@ export function lineTaperFigures(weights: TaperWeights, spacingM: number, freque
   if (kind !== 'sum' && kind !== 'difference') {
     throw new DomainError(`invalid option "kind": expected 'sum' or 'difference', received ${describeValue(kind)}.`);
   }
+  assertPositive('spacingM', spacingM, 'm');
+  assertPositive('frequencyHz', frequencyHz, 'Hz');
   const n = sums.count;
   const w: CMatrix = weights instanceof Float64Array ? fromParts(weights, null, n) : weights;
   const samples = options.samples ?? Math.max(4001, Math.ceil((12 * Math.PI * n * spacingM) / wavelengthM(frequencyHz)));
@@ -166,6 +168,7 @@ export interface PlanarTaperFigures {
  */
 export function planarTaperFigures(layout: ArrayLayout, weights: TaperWeights, frequencyHz: number, options: PlanarTaperFiguresOptions = {}): PlanarTaperFigures {
   assertLayout('layout', layout);
+  assertPositive('frequencyHz', frequencyHz, 'Hz');
   const sums = weightSums('weights', weights);
   if (sums.count !== layout.count) {
     throw new DimensionError(`invalid argument "weights": expected ${layout.count} weights (one per element of "layout"), received ${sums.count}.`);

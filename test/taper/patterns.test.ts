@@ -3,6 +3,7 @@
  * (AF = wᴴa, docs/conventions.md) and cut-figure routine.
  */
 import { describe, expect, it } from 'vitest';
+import { DimensionError, DomainError } from '../../src/errors.js';
 import { latticeLayout, rectangularGridLayout } from '../../src/geometry/builders.js';
 import { fromParts } from '../../src/linalg/cmatrix.js';
 import { linearArrayField } from '../../src/pattern/linearArray.js';
@@ -96,6 +97,20 @@ describe('Bayliss achieved difference pattern', () => {
     expect(field(0) / field(f.peakThetaRad)).toBeLessThan(1e-12);
     expect(f.firstNullsRad[0]).toBe(0);
     expect(f.firstNullsRad[1]).toBeGreaterThan(f.peakThetaRad);
+  });
+});
+
+describe('figure argument checks', () => {
+  it('typed errors for bad weights, spacing, frequency, kind and layout mismatch', () => {
+    const w = uniformTaper(8);
+    expect(() => lineTaperFigures(uniformTaper(1), HALF, F_HZ)).toThrow(DomainError);
+    expect(() => lineTaperFigures(w, 0, F_HZ)).toThrow(DomainError);
+    expect(() => lineTaperFigures(w, HALF, Number.NaN)).toThrow(DomainError);
+    expect(() => lineTaperFigures(w, HALF, F_HZ, { kind: 'delta' as never })).toThrow(DomainError);
+    expect(() => lineTaperFigures(Float64Array.of(1, Number.NaN), HALF, F_HZ)).toThrow(DomainError);
+    const layout = rectangularGridLayout({ countX: 2, countY: 2, spacingXM: HALF, spacingYM: HALF });
+    expect(() => planarTaperFigures(layout, w, F_HZ)).toThrow(DimensionError);
+    expect(() => planarTaperFigures(layout, uniformTaper(4), -1)).toThrow(DomainError);
   });
 });
 
