@@ -191,19 +191,18 @@ export function fftGridArrayFactorInto<T extends CMatrix>(out: T, grid: Rectangu
   colIn.fill(0);
   const d = out.data;
   for (let p = 0; p < P; p++) {
+    // conj(G)·φu = conj(G·conj(φu)), and G·conj(φu) is the transform of the column times conj(φu)
+    const ur = phaseU[2 * p], ui = -phaseU[2 * p + 1];
     for (let iy = 0; iy < ny; iy++) {
-      colIn[2 * iy] = rows[2 * (P * iy + p)];
-      colIn[2 * iy + 1] = rows[2 * (P * iy + p) + 1];
+      const xr = rows[2 * (P * iy + p)], xi = rows[2 * (P * iy + p) + 1];
+      colIn[2 * iy] = xr * ur - xi * ui;
+      colIn[2 * iy + 1] = xr * ui + xi * ur;
     }
     fv.transform(colOut, colIn);
-    const ur = phaseU[2 * p], ui = phaseU[2 * p + 1];
-    for (let q = 0; q < Q; q++) {
-      // conj(G)·e^{jαu}·e^{jαv}
-      const gr = colOut[2 * q], gi = -colOut[2 * q + 1];
-      const pr = ur * phaseV[2 * q] - ui * phaseV[2 * q + 1], pi = ur * phaseV[2 * q + 1] + ui * phaseV[2 * q];
-      const o = 2 * (q * P + p);
-      d[o] = gr * pr - gi * pi;
-      d[o + 1] = gr * pi + gi * pr;
+    for (let q = 0, o = 2 * p; q < Q; q++, o += 2 * P) {
+      const gr = colOut[2 * q], gi = -colOut[2 * q + 1], vr = phaseV[2 * q], vi = phaseV[2 * q + 1];
+      d[o] = gr * vr - gi * vi;
+      d[o + 1] = gr * vi + gi * vr;
     }
   }
   return out;
