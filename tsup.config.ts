@@ -1,7 +1,7 @@
 import { defineConfig } from 'tsup';
 
 export default defineConfig({
-  entry: { index: 'src/index.ts' },
+  entry: { index: 'src/index.ts', plot: 'src/plot/index.ts', node: 'src/node.ts' },
   format: ['esm', 'cjs'],
   dts: true,
   sourcemap: true,
@@ -10,4 +10,6 @@ export default defineConfig({
   platform: 'neutral',
   splitting: false,
   treeshake: true,
+  // The d3 modules ship as ESM only; bundle them so that the CJS build works everywhere.
+  noExternal: [/^d3-/, 'internmap'],
 });

@@ -5,8 +5,9 @@
  */
 
 /**
- * C[m×n] (+)= A[m×k]·B[k×n], all interleaved row-major with the given leading
- * dimensions (in complex elements) and offsets (in complex elements).
+ * C[m×n] (+)= alpha·A[m×k]·B[k×n] (alpha real), all interleaved row-major with
+ * the given leading dimensions (in complex elements) and offsets (in complex
+ * elements). With `accumulate` false, C is overwritten (alpha still applies).
  * The k-loop is unrolled by four so each row of C is loaded and stored once
  * per four rank-one updates; the inner loop walks a row of B contiguously.
  * C must not alias A or B.
@@ -17,6 +18,7 @@ export function gemmKernel(
   b: Float64Array, offB: number, ldb: number,
   c: Float64Array, offC: number, ldc: number,
   accumulate: boolean,
+  alpha = 1,
 ): void {
   if (!accumulate) {
     for (let i = 0; i < m; i++) c.fill(0, 2 * (offC + i * ldc), 2 * (offC + i * ldc + n));
@@ -28,8 +30,8 @@ export function gemmKernel(
     let p = 0;
     for (; p + 3 < k; p += 4) {
       const ap = ai + 2 * p;
-      const a0r = a[ap], a0i = a[ap + 1], a1r = a[ap + 2], a1i = a[ap + 3];
-      const a2r = a[ap + 4], a2i = a[ap + 5], a3r = a[ap + 6], a3i = a[ap + 7];
+      const a0r = alpha * a[ap], a0i = alpha * a[ap + 1], a1r = alpha * a[ap + 2], a1i = alpha * a[ap + 3];
+      const a2r = alpha * a[ap + 4], a2i = alpha * a[ap + 5], a3r = alpha * a[ap + 6], a3i = alpha * a[ap + 7];
       const b0 = 2 * (offB + p * ldb);
       const b1 = b0 + 2 * ldb;
       const b2 = b1 + 2 * ldb;
@@ -45,7 +47,7 @@ export function gemmKernel(
     }
     for (; p < k; p++) {
       const ap = ai + 2 * p;
-      const ar = a[ap], aim = a[ap + 1];
+      const ar = alpha * a[ap], aim = alpha * a[ap + 1];
       const b0 = 2 * (offB + p * ldb);
       for (let j = 0; j < n2; j += 2) {
         const xr = b[b0 + j], xi = b[b0 + j + 1];

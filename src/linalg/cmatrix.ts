@@ -32,7 +32,18 @@ export interface CMatrix {
  * `{re, im}` object, or a complex.js value.
  * @category Complex core
  */
-export type ComplexLike = number | { re: number; im: number } | Complex;
+export type ComplexLike = number | ComplexParts | Complex;
+
+/**
+ * A plain complex value by its parts.
+ * @category Complex core
+ */
+export interface ComplexParts {
+  /** Real part. */
+  re: number;
+  /** Imaginary part. */
+  im: number;
+}
 
 /**
  * Serialised form of a {@link CMatrix} (see {@link matrixToJSON}).

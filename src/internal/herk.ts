@@ -1,0 +1,79 @@
+/**
+ * Hermitian rank-k update kernel on interleaved row-major storage. No checks.
+ * @internal
+ * @module
+ */
+
+/**
+ * Lower triangle (j ≤ i, diagonal included) of C[n×n] += G[n×k]·G[n×k]ᴴ, i.e.
+ * C_ij += Σ_p G_ip · conj(G_jp). G is interleaved row-major with leading
+ * dimension `ldg` (complex elements); C is n×n interleaved row-major. The upper
+ * triangle of C is not touched (see {@link mirrorLowerToUpper}).
+ *
+ * Rows of G are contiguous, so each entry is a complex dot product of two rows;
+ * the kernel computes a 2×2 block of C per pass over p, so every loaded pair of
+ * entries feeds two multiply–adds (register blocking).
+ */
+export function herkLowerKernel(n: number, k: number, g: Float64Array, ldg: number, c: Float64Array): void {
+  const k2 = 2 * k;
+  let i = 0;
+  for (; i + 1 < n; i += 2) {
+    const gi0 = 2 * i * ldg, gi1 = gi0 + 2 * ldg;
+    // 2×2 blocks strictly left of the diagonal block
+    let j = 0;
+    for (; j + 1 < i; j += 2) {
+      const gj0 = 2 * j * ldg, gj1 = gj0 + 2 * ldg;
+      let s00r = 0, s00i = 0, s01r = 0, s01i = 0, s10r = 0, s10i = 0, s11r = 0, s11i = 0;
+      for (let p = 0; p < k2; p += 2) {
+        const a0r = g[gi0 + p], a0i = g[gi0 + p + 1];
+        const a1r = g[gi1 + p], a1i = g[gi1 + p + 1];
+        const b0r = g[gj0 + p], b0i = g[gj0 + p + 1];
+        const b1r = g[gj1 + p], b1i = g[gj1 + p + 1];
+        s00r += a0r * b0r + a0i * b0i; s00i += a0i * b0r - a0r * b0i;
+        s01r += a0r * b1r + a0i * b1i; s01i += a0i * b1r - a0r * b1i;
+        s10r += a1r * b0r + a1i * b0i; s10i += a1i * b0r - a1r * b0i;
+        s11r += a1r * b1r + a1i * b1i; s11i += a1i * b1r - a1r * b1i;
+      }
+      const c00 = 2 * (i * n + j), c10 = c00 + 2 * n;
+      c[c00] += s00r; c[c00 + 1] += s00i; c[c00 + 2] += s01r; c[c00 + 3] += s01i;
+      c[c10] += s10r; c[c10 + 1] += s10i; c[c10 + 2] += s11r; c[c10 + 3] += s11i;
+    }
+    // diagonal 2×2 block: (i,i), (i+1,i), (i+1,i+1)
+    let d0 = 0, d1 = 0, s10r = 0, s10i = 0;
+    for (let p = 0; p < k2; p += 2) {
+      const a0r = g[gi0 + p], a0i = g[gi0 + p + 1];
+      const a1r = g[gi1 + p], a1i = g[gi1 + p + 1];
+      d0 += a0r * a0r + a0i * a0i;
+      d1 += a1r * a1r + a1i * a1i;
+      s10r += a1r * a0r + a1i * a0i; s10i += a1i * a0r - a1r * a0i;
+    }
+    const cd = 2 * (i * n + i);
+    c[cd] += d0;
+    c[cd + 2 * n] += s10r; c[cd + 2 * n + 1] += s10i;
+    c[cd + 2 * n + 2] += d1;
+  }
+  if (i < n) {
+    // last odd row against every column j ≤ i
+    const gi = 2 * i * ldg;
+    for (let j = 0; j <= i; j++) {
+      const gj = 2 * j * ldg;
+      let sr = 0, si = 0;
+      for (let p = 0; p < k2; p += 2) {
+        const ar = g[gi + p], ai = g[gi + p + 1], br = g[gj + p], bi = g[gj + p + 1];
+        sr += ar * br + ai * bi; si += ai * br - ar * bi;
+      }
+      c[2 * (i * n + j)] += sr; c[2 * (i * n + j) + 1] += j === i ? 0 : si;
+    }
+  }
+}
+
+/** Copies the conjugate of the strict lower triangle of an n×n interleaved matrix into its upper triangle and zeroes the imaginary parts of the diagonal. */
+export function mirrorLowerToUpper(n: number, c: Float64Array): void {
+  for (let i = 0; i < n; i++) {
+    c[2 * (i * n + i) + 1] = 0;
+    for (let j = 0; j < i; j++) {
+      c[2 * (j * n + i)] = c[2 * (i * n + j)];
+      c[2 * (j * n + i) + 1] = -c[2 * (i * n + j) + 1];
+    }
+  }
+}

@@ -1,0 +1,319 @@
+/**
+ * Kernels of the Hermitian eigensolver: Householder reduction of a Hermitian
+ * matrix to real symmetric tridiagonal form, implicit QL with shifts on the
+ * tridiagonal, and the back-transformation. No argument checks.
+ * @internal
+ * @module
+ */
+import { ConvergenceError } from '../errors.js';
+
+/** Result of {@link reduceHermitianToTridiagonal}. */
+export interface TridiagonalReduction {
+  /** Order n. */
+  readonly n: number;
+  /** Diagonal of the real tridiagonal T′, length n. */
+  readonly d: Float64Array;
+  /** Off-diagonal of T′ (entry i couples i and i+1), length n; e[n−1] = 0. */
+  readonly e: Float64Array;
+  /** Householder vectors: column k below the diagonal holds u_k (interleaved, n×n lower part). */
+  readonly house: Float64Array;
+  /** Householder scalars β_k with H_k = I − β_k u_k u_kᴴ (0: no reflection). */
+  readonly beta: Float64Array;
+  /** Diagonal phases δ_i (interleaved) with A = (Q D) T′ (Q D)ᴴ. */
+  readonly phase: Float64Array;
+}
+
+/**
+ * Reduces the Hermitian matrix held in the LOWER triangle of `w` (interleaved
+ * row-major n×n; overwritten) to real symmetric tridiagonal form
+ * A = (Q D) T′ (Q D)ᴴ, Q = H_0 H_1 ⋯ H_{n−2}, D = diag(δ) unitary.
+ *
+ * Reflector H_k = I − β u uᴴ with u = x + e^{jθ}‖x‖e₁ (θ = arg x₀) maps the
+ * column below the diagonal to −e^{jθ}‖x‖e₁; the trailing block is updated by
+ * the Hermitian rank-two form A ← A − u qᴴ − q uᴴ, p = βAu, q = p − (β/2)(uᴴp)u
+ * (Golub & Van Loan, Matrix Computations, 4th ed., 2013, §8.3.1, from memory),
+ * touching only the lower triangle. The complex off-diagonal is then made real
+ * by the diagonal phase similarity D (Wilkinson & Reinsch, Handbook for
+ * Automatic Computation II, 1971, contribution II/2 "htridi", from memory).
+ */
+export function reduceHermitianToTridiagonal(w: Float64Array, n: number): TridiagonalReduction {
+  const d = new Float64Array(n);
+  const e = new Float64Array(n);
+  const er = new Float64Array(n); // complex sub-diagonal before the phase fix
+  const ei = new Float64Array(n);
+  const beta = new Float64Array(n);
+  const p = new Float64Array(2 * n);
+  const n2 = 2 * n;
+  for (let k = 0; k < n - 1; k++) {
+    const k1 = k + 1;
+    const x0 = 2 * (k1 * n + k);
+    let sigma = 0;
+    for (let i = k1 + 1; i < n; i++) {
+      const t = 2 * (i * n + k);
+      sigma += w[t] * w[t] + w[t + 1] * w[t + 1];
+    }
+    const xr = w[x0], xi = w[x0 + 1];
+    if (sigma === 0) {
+      er[k] = xr; ei[k] = xi;
+      d[k] = w[2 * (k * n + k)];
+      continue;
+    }
+    const ax0 = Math.sqrt(xr * xr + xi * xi);
+    const alpha = Math.sqrt(ax0 * ax0 + sigma);
+    let phr = 1, phi = 0;
+    if (ax0 > 0) { phr = xr / ax0; phi = xi / ax0; }
+    w[x0] = xr + phr * alpha;
+    w[x0 + 1] = xi + phi * alpha;
+    const b = 1 / (alpha * (alpha + ax0));
+    beta[k] = b;
+    er[k] = -phr * alpha; ei[k] = -phi * alpha;
+    d[k] = w[2 * (k * n + k)];
+    // p = A u over the trailing block, lower triangle only (Hermitian matvec).
+    p.fill(0, 2 * k1, n2);
+    for (let i = k1; i < n; i++) {
+      const ui = 2 * (i * n + k);
+      const uir = w[ui], uii = w[ui + 1];
+      const row = 2 * i * n;
+      let sr = 0, si = 0;
+      for (let j = k1; j < i; j++) {
+        const a = row + 2 * j;
+        const ar = w[a], ai = w[a + 1];
+        const uj = 2 * (j * n + k);
+        const ujr = w[uj], uji = w[uj + 1];
+        sr += ar * ujr - ai * uji;
+        si += ar * uji + ai * ujr;
+        // conj(a_ij)·u_i contributes to p_j
+        p[2 * j] += ar * uir + ai * uii;
+        p[2 * j + 1] += ar * uii - ai * uir;
+      }
+      const dii = w[row + 2 * i];
+      p[2 * i] += sr + dii * uir;
+      p[2 * i + 1] += si + dii * uii;
+    }
+    // p ← β p; K = (β/2) Re(uᴴ p); q = p − K u (stored in p)
+    let upr = 0;
+    for (let i = k1; i < n; i++) {
+      const ui = 2 * (i * n + k);
+      p[2 * i] *= b; p[2 * i + 1] *= b;
+      upr += w[ui] * p[2 * i] + w[ui + 1] * p[2 * i + 1];
+    }
+    const kk = 0.5 * b * upr;
+    for (let i = k1; i < n; i++) {
+      const ui = 2 * (i * n + k);
+      p[2 * i] -= kk * w[ui];
+      p[2 * i + 1] -= kk * w[ui + 1];
+    }
+    // A ← A − u qᴴ − q uᴴ on the lower triangle of the trailing block.
+    for (let i = k1; i < n; i++) {
+      const ui = 2 * (i * n + k);
+      const uir = w[ui], uii = w[ui + 1];
+      const qir = p[2 * i], qii = p[2 * i + 1];
+      const row = 2 * i * n;
+      for (let j = k1; j < i; j++) {
+        const uj = 2 * (j * n + k);
+        const ujr = w[uj], uji = w[uj + 1];
+        const qjr = p[2 * j], qji = p[2 * j + 1];
+        const a = row + 2 * j;
+        // u_i conj(q_j) + q_i conj(u_j)
+        w[a] -= uir * qjr + uii * qji + qir * ujr + qii * uji;
+        w[a + 1] -= uii * qjr - uir * qji + qii * ujr - qir * uji;
+      }
+      const a = row + 2 * i;
+      w[a] -= 2 * (uir * qir + uii * qii);
+      w[a + 1] = 0;
+    }
+  }
+  if (n > 0) d[n - 1] = w[2 * ((n - 1) * n + (n - 1))];
+  // Phase fix-up: δ_0 = 1, δ_{i+1} = δ_i e_i / |e_i| makes T′ = Dᴴ T D real.
+  const phase = new Float64Array(2 * n);
+  if (n > 0) phase[0] = 1;
+  for (let i = 0; i < n - 1; i++) {
+    const m = Math.sqrt(er[i] * er[i] + ei[i] * ei[i]);
+    e[i] = m;
+    const dr = phase[2 * i], di = phase[2 * i + 1];
+    if (m > 0) {
+      const cr = er[i] / m, ci = ei[i] / m;
+      phase[2 * i + 2] = dr * cr - di * ci;
+      phase[2 * i + 3] = dr * ci + di * cr;
+    } else {
+      phase[2 * i + 2] = dr;
+      phase[2 * i + 3] = di;
+    }
+  }
+  return { n, d, e, house: w, beta, phase };
+}
+
+/**
+ * Eigenvalues (in `d`, unsorted) and, when `z` is given, eigenvectors of the
+ * real symmetric tridiagonal matrix (d, e) by the implicit QL method with
+ * Wilkinson-type shifts (Bowdler, Martin, Reinsch & Wilkinson, "The QR and QL
+ * algorithms for symmetric matrices", Numer. Math. 11, 1968, and the Handbook
+ * 1971 contribution II/3 "tql2", from memory; Golub & Van Loan 2013, §8.3.5).
+ * `z` (n×n real, row-major, initialised to the identity) accumulates the
+ * rotations: column i becomes eigenvector i. The rotations of one QL sweep are
+ * recorded and then applied row by row, carrying one running value through the
+ * sweep, so each entry of `z` is loaded and stored once per sweep.
+ * Throws ConvergenceError after `maxIterPerValue` sweeps on one eigenvalue.
+ */
+export function tridiagonalQl(d: Float64Array, e: Float64Array, n: number, z: Float64Array | null, maxIterPerValue = 60): void {
+  const eps = 2.220446049250313e-16;
+  const tiny = 2.2250738585072014e-308;
+  const cs = new Float64Array(n);
+  const sn = new Float64Array(n);
+  e[n - 1] = 0;
+  for (let l = 0; l < n; l++) {
+    let iter = 0;
+    for (;;) {
+      let m = l;
+      for (; m < n - 1; m++) {
+        const dd = Math.abs(d[m]) + Math.abs(d[m + 1]);
+        if (Math.abs(e[m]) <= eps * dd || Math.abs(e[m]) < tiny) break;
+      }
+      if (m === l) break;
+      if (++iter > maxIterPerValue) {
+        throw new ConvergenceError(`hermitianEigen: the implicit QL iteration did not converge for eigenvalue ${l} within ${maxIterPerValue} iterations (off-diagonal ${e[l].toExponential(3)}); the input may contain values near overflow.`);
+      }
+      // Shift from the leading 2×2 block, the eigenvalue closer to d[l].
+      let g = (d[l + 1] - d[l]) / (2 * e[l]);
+      let r = Math.sqrt(g * g + 1);
+      g = d[m] - d[l] + e[l] / (g + (g >= 0 ? r : -r));
+      let s = 1, c = 1, p = 0;
+      let i = m - 1;
+      let underflow = false;
+      for (; i >= l; i--) {
+        const f = s * e[i];
+        const b = c * e[i];
+        r = Math.sqrt(f * f + g * g);
+        e[i + 1] = r;
+        if (r === 0) {
+          d[i + 1] -= p;
+          e[m] = 0;
+          underflow = true;
+          break;
+        }
+        s = f / r;
+        c = g / r;
+        g = d[i + 1] - p;
+        r = (d[i] - g) * s + 2 * c * b;
+        p = s * r;
+        d[i + 1] = g + p;
+        g = c * r - b;
+        cs[i] = c;
+        sn[i] = s;
+      }
+      if (z !== null) {
+        // Rotations i = m−1 … lo (lo = i+1 after an underflow break, else l).
+        const lo = i + 1;
+        // Four rows at a time: four independent carries keep the pipeline full.
+        let k = 0;
+        for (; k + 3 < n; k += 4) {
+          const r0 = k * n, r1 = r0 + n, r2 = r1 + n, r3 = r2 + n;
+          let c0 = z[r0 + m], c1 = z[r1 + m], c2 = z[r2 + m], c3 = z[r3 + m];
+          for (let t = m - 1; t >= lo; t--) {
+            const ct = cs[t], st = sn[t];
+            const a0 = z[r0 + t], a1 = z[r1 + t], a2 = z[r2 + t], a3 = z[r3 + t];
+            z[r0 + t + 1] = st * a0 + ct * c0;
+            z[r1 + t + 1] = st * a1 + ct * c1;
+            z[r2 + t + 1] = st * a2 + ct * c2;
+            z[r3 + t + 1] = st * a3 + ct * c3;
+            c0 = ct * a0 - st * c0;
+            c1 = ct * a1 - st * c1;
+            c2 = ct * a2 - st * c2;
+            c3 = ct * a3 - st * c3;
+          }
+          z[r0 + lo] = c0; z[r1 + lo] = c1; z[r2 + lo] = c2; z[r3 + lo] = c3;
+        }
+        for (; k < n; k++) {
+          const row = k * n;
+          let carry = z[row + m];
+          for (let t = m - 1; t >= lo; t--) {
+            const zi = z[row + t];
+            const ct = cs[t], st = sn[t];
+            z[row + t + 1] = st * zi + ct * carry;
+            carry = ct * zi - st * carry;
+          }
+          z[row + lo] = carry;
+        }
+      }
+      if (underflow) continue;
+      d[l] -= p;
+      e[l] = g;
+      e[m] = 0;
+    }
+  }
+}
+
+/**
+ * Back-transformation X = Q D Z of the real tridiagonal eigenvectors `z`
+ * (n×n, row-major, columns = eigenvectors, possibly fewer columns `cols`) into
+ * eigenvectors of the original Hermitian matrix, written to `out`
+ * (interleaved complex, n×cols row-major, columns = eigenvectors).
+ * Each reflector is applied as a rank-one update X ← X − β u (uᴴ X) whose
+ * inner loops run along contiguous rows.
+ */
+export function backTransform(red: TridiagonalReduction, z: Float64Array, cols: number, out: Float64Array): void {
+  const { n, house, beta, phase } = red;
+  for (let i = 0; i < n; i++) {
+    const pr = phase[2 * i], pi = phase[2 * i + 1];
+    const zr = i * cols, xr = 2 * i * cols;
+    for (let j = 0; j < cols; j++) {
+      const v = z[zr + j];
+      out[xr + 2 * j] = pr * v;
+      out[xr + 2 * j + 1] = pi * v;
+    }
+  }
+  const y = new Float64Array(2 * cols);
+  const c2 = 2 * cols;
+  for (let k = n - 2; k >= 0; k--) {
+    const b = beta[k];
+    if (b === 0) continue;
+    // y = β uᴴ X over rows k+1 … n−1 (two rows per pass: y is loaded once per pair)
+    y.fill(0);
+    let i = k + 1;
+    for (; i + 1 < n; i += 2) {
+      const u = 2 * (i * n + k), u1 = u + 2 * n;
+      const ur = house[u], ui = house[u + 1], vr = house[u1], vi = house[u1 + 1];
+      const row = i * c2, row1 = row + c2;
+      for (let j = 0; j < c2; j += 2) {
+        const xr = out[row + j], xi = out[row + j + 1];
+        const wr = out[row1 + j], wi = out[row1 + j + 1];
+        y[j] += ur * xr + ui * xi + vr * wr + vi * wi;
+        y[j + 1] += ur * xi - ui * xr + vr * wi - vi * wr;
+      }
+    }
+    if (i < n) {
+      const u = 2 * (i * n + k);
+      const ur = house[u], ui = house[u + 1];
+      const row = i * c2;
+      for (let j = 0; j < c2; j += 2) {
+        const xr = out[row + j], xi = out[row + j + 1];
+        y[j] += ur * xr + ui * xi;
+        y[j + 1] += ur * xi - ui * xr;
+      }
+    }
+    for (let j = 0; j < c2; j++) y[j] *= b;
+    i = k + 1;
+    for (; i + 1 < n; i += 2) {
+      const u = 2 * (i * n + k), u1 = u + 2 * n;
+      const ur = house[u], ui = house[u + 1], vr = house[u1], vi = house[u1 + 1];
+      const row = i * c2, row1 = row + c2;
+      for (let j = 0; j < c2; j += 2) {
+        const yr = y[j], yi = y[j + 1];
+        out[row + j] -= ur * yr - ui * yi;
+        out[row + j + 1] -= ur * yi + ui * yr;
+        out[row1 + j] -= vr * yr - vi * yi;
+        out[row1 + j + 1] -= vr * yi + vi * yr;
+      }
+    }
+    if (i < n) {
+      const u = 2 * (i * n + k);
+      const ur = house[u], ui = house[u + 1];
+      const row = i * c2;
+      for (let j = 0; j < c2; j += 2) {
+        const yr = y[j], yi = y[j + 1];
+        out[row + j] -= ur * yr - ui * yi;
+        out[row + j + 1] -= ur * yi + ui * yr;
+      }
+    }
+  }
+}

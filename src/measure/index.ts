@@ -1,0 +1,8 @@
+export type { YFactorInput, YFactorResult, YFactorVarianceBudget, NoiseSourceInput } from './yfactor.js';
+export { yFactorReceiverTemperature, noiseSourceReceiverTemperature } from './yfactor.js';
+export type { HotColdCorrelationInput, HotColdCorrelationResult } from './hotcold.js';
+export { receiverNoiseFromHotCold, beamReceiverTemperature } from './hotcold.js';
+export type { AtmosphereCorrection, FluxCorrections, OnOffInput, OnOffResult, OnOffCorrelationInput } from './sensitivity.js';
+export { onOffSensitivity, onOffSensitivityFromCorrelation, apertureEfficiencyFromSensitivity } from './sensitivity.js';
+export type { YFactorRow, OnOffRow, YFactorTableOptions, YFactorTableResult, OnOffTableResult } from './table.js';
+export { parseYFactorCsv, parseOnOffCsv, reduceYFactorTable, reduceOnOffTable } from './table.js';

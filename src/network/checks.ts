@@ -1,0 +1,145 @@
+/**
+ * Physical checks of a multiport: reciprocity, passivity, losslessness, each
+ * reported as a violation size with the frequency where it is worst.
+ * @module
+ */
+import { assertNonNegative } from '../internal/validate.js';
+import { choleskyFactor } from '../linalg/cholesky.js';
+import { powerScatteringStack } from './convert.js';
+import { type Multiport, assertMultiport } from './multiport.js';
+
+/**
+ * Result of a physical check.
+ * @category Network
+ */
+export interface NetworkCheckResult {
+  /** True when `violation ≤ tolerance`. */
+  readonly satisfied: boolean;
+  /** Largest violation over frequency (dimensionless; see each check). */
+  readonly violation: number;
+  /** Frequency index of the largest violation. */
+  readonly worstIndex: number;
+  /** Violation at every frequency. */
+  readonly perFrequency: Float64Array;
+  /** Tolerance used. */
+  readonly tolerance: number;
+}
+
+function summarise(per: Float64Array, tolerance: number): NetworkCheckResult {
+  let worst = 0;
+  for (let k = 1; k < per.length; k++) if (per[k] > per[worst]) worst = k;
+  return { satisfied: per[worst] <= tolerance, violation: per[worst], worstIndex: worst, perFrequency: per, tolerance };
+}
+
+/**
+ * Reciprocity check: max |S_ij − S_ji| of the power-wave scattering matrix.
+ *
+ * @remarks
+ * A reciprocal network has Z = Zᵀ; its power-wave S (Kurokawa 1965) is then symmetric for
+ * any per-port references with positive real part (see {@link renormalizeMultiport}), so the
+ * check works on S computed with power waves and the network's own references.
+ * @param net - The network.
+ * @param tolerance - Allowed max |S_ij − S_ji| (dimensionless), ≥ 0.
+ * @returns Violation per frequency and the worst case.
+ * @throws {@link DomainError} on a negative tolerance.
+ * @category Network
+ */
+export function checkReciprocity(net: Multiport, tolerance = 1e-9): NetworkCheckResult {
+  assertMultiport('net', net);
+  assertNonNegative('tolerance', tolerance);
+  const s = powerScatteringStack(net);
+  const n = net.ports, nf = net.frequencyHz.length;
+  const per = new Float64Array(nf);
+  for (let k = 0; k < nf; k++) {
+    let worst = 0;
+    for (let i = 0; i < n; i++) for (let j = i + 1; j < n; j++) {
+      const p = 2 * (k * n * n + i * n + j), q = 2 * (k * n * n + j * n + i);
+      worst = Math.max(worst, Math.hypot(s[p] - s[q], s[p + 1] - s[q + 1]));
+    }
+    per[k] = worst;
+  }
+  return summarise(per, tolerance);
+}
+
+/**
+ * Extreme eigenvalues of the Hermitian PSD matrix G = SᴴS by bisection on the inertia test
+ * "t·I − G is positive definite" (Cholesky succeeds), 60 halvings of [0, ‖G‖_F]: an error
+ * ≤ 2⁻⁶⁰‖G‖_F, far below the tolerances of the checks.
+ */
+function extremeEigenvalues(g: Float64Array, n: number): { min: number; max: number } {
+  let fro = 0;
+  for (let q = 0; q < g.length; q++) fro += g[q] * g[q];
+  fro = Math.sqrt(fro);
+  const shifted = (t: number, sign: number): boolean => {
+    // sign = +1: t I − G PD?  sign = −1: G − t I PD?
+    const d = new Float64Array(g.length);
+    for (let q = 0; q < g.length; q++) d[q] = -sign * g[q];
+    for (let i = 0; i < n; i++) d[2 * (i * n + i)] += sign * t;
+    return choleskyFactor({ rows: n, cols: n, data: d }).positiveDefinite;
+  };
+  let lo = 0, hi = fro * (1 + 1e-12) + 1e-300;
+  for (let it = 0; it < 60; it++) { const mid = 0.5 * (lo + hi); if (shifted(mid, 1)) hi = mid; else lo = mid; }
+  const max = hi;
+  lo = 0; hi = max;
+  for (let it = 0; it < 60; it++) { const mid = 0.5 * (lo + hi); if (shifted(mid, -1)) lo = mid; else hi = mid; }
+  return { min: lo, max };
+}
+
+function gramExtremes(net: Multiport): Array<{ min: number; max: number }> {
+  const s = powerScatteringStack(net);
+  const n = net.ports, nf = net.frequencyHz.length;
+  const out: Array<{ min: number; max: number }> = [];
+  for (let k = 0; k < nf; k++) {
+    // SᴴS
+    const g = new Float64Array(2 * n * n);
+    const o = 2 * k * n * n;
+    for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {
+      let re = 0, im = 0;
+      for (let l = 0; l < n; l++) {
+        const ar = s[o + 2 * (l * n + i)], ai = -s[o + 2 * (l * n + i) + 1];
+        const br = s[o + 2 * (l * n + j)], bi = s[o + 2 * (l * n + j) + 1];
+        re += ar * br - ai * bi; im += ar * bi + ai * br;
+      }
+      g[2 * (i * n + j)] = re; g[2 * (i * n + j) + 1] = i === j ? 0 : im;
+    }
+    out.push(extremeEigenvalues(g, n));
+  }
+  return out;
+}
+
+/**
+ * Passivity check: largest singular value of the power-wave S minus one (clipped at 0).
+ *
+ * @remarks
+ * With power waves the net power into the ports is aᴴ(I − SᴴS)a, so a network is passive
+ * iff σ_max(S) ≤ 1 (Kurokawa 1965, from memory). Violation = max(0, σ_max − 1).
+ * @param net - The network.
+ * @param tolerance - Allowed σ_max − 1, ≥ 0.
+ * @returns Violation per frequency and the worst case.
+ * @throws {@link DomainError} on a negative tolerance.
+ * @category Network
+ */
+export function checkPassivity(net: Multiport, tolerance = 1e-9): NetworkCheckResult {
+  assertMultiport('net', net);
+  assertNonNegative('tolerance', tolerance);
+  const per = Float64Array.from(gramExtremes(net), (v) => Math.max(0, Math.sqrt(v.max) - 1));
+  return summarise(per, tolerance);
+}
+
+/**
+ * Losslessness check: max |σᵢ(S) − 1| over the singular values of the power-wave S.
+ *
+ * @remarks
+ * A lossless network has SᴴS = I (Kurokawa 1965, from memory): every singular value is 1.
+ * @param net - The network.
+ * @param tolerance - Allowed max |σᵢ − 1|, ≥ 0.
+ * @returns Violation per frequency and the worst case.
+ * @throws {@link DomainError} on a negative tolerance.
+ * @category Network
+ */
+export function checkLossless(net: Multiport, tolerance = 1e-9): NetworkCheckResult {
+  assertMultiport('net', net);
+  assertNonNegative('tolerance', tolerance);
+  const per = Float64Array.from(gramExtremes(net), (v) => Math.max(Math.abs(Math.sqrt(v.max) - 1), Math.abs(Math.sqrt(v.min) - 1)));
+  return summarise(per, tolerance);
+}

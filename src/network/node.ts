@@ -1,0 +1,45 @@
+/**
+ * Node-only helpers of the network module: reading and writing Touchstone
+ * files on disk. Not re-exported from the browser-safe main entry; import
+ * from the Node subpath.
+ * @module
+ */
+import { readFileSync, writeFileSync } from 'node:fs';
+import { basename } from 'node:path';
+import { ParseError } from '../errors.js';
+import type { Multiport } from './multiport.js';
+import { type TouchstoneData, type TouchstoneFormatOptions, formatTouchstone, parseTouchstone } from './touchstone.js';
+
+/**
+ * Reads a Touchstone file from disk.
+ *
+ * @remarks
+ * The port count of a version 1 file is taken from its `.sNp` extension (e.g. `.s4p` → 4);
+ * version 2 files state it themselves. Parsing: {@link parseTouchstone}.
+ * @param path - File path.
+ * @returns The parsed file.
+ * @throws {@link ParseError} on malformed content or an unreadable file.
+ * @category Network
+ */
+export function readTouchstoneFile(path: string): TouchstoneData {
+  let text: string;
+  try {
+    text = readFileSync(path, 'latin1');
+  } catch (e) {
+    throw new ParseError(`cannot read "${path}": ${(e as Error).message}`);
+  }
+  const m = /\.[sS](\d+)[pP]$/.exec(basename(path));
+  return parseTouchstone(text, m ? { ports: Number(m[1]) } : {});
+}
+
+/**
+ * Writes a network to disk as a Touchstone file ({@link formatTouchstone}).
+ * @param path - File path; by convention `.sNp` with N the port count.
+ * @param net - The network.
+ * @param options - Format options.
+ * @throws {@link DomainError} as {@link formatTouchstone}; Node's file-system errors.
+ * @category Network
+ */
+export function writeTouchstoneFile(path: string, net: Multiport, options: TouchstoneFormatOptions = {}): void {
+  writeFileSync(path, formatTouchstone(net, options), 'latin1');
+}

@@ -1,0 +1,8 @@
+/**
+ * Node-only entry point (`phasewise/node`): readers that use the file system.
+ * The browser-safe core (`phasewise`) never imports this module.
+ * @module
+ */
+export { readYFactorCsv, readOnOffCsv } from './measure/node.js';
+export { readTouchstoneFile, writeTouchstoneFile } from './network/node.js';
+export { readPatternFile, writePatternFile } from './element/node.js';

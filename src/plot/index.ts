@@ -1,0 +1,12 @@
+export type { PlotFrameOptions } from './svg.js';
+export { TRACE_COLORS } from './svg.js';
+export type { LineTrace, LinePlotOptions, PatternCutTrace, PatternCutOptions } from './line.js';
+export { linePlotSvg, patternCutSvg } from './line.js';
+export type { PolarCutOptions } from './polar.js';
+export { polarCutSvg } from './polar.js';
+export type { UvMapOptions } from './uvmap.js';
+export { uvMapSvg, uvMapColor } from './uvmap.js';
+export type { SmithTrace, SmithChartOptions } from './smith.js';
+export { smithChartSvg } from './smith.js';
+export type { UvCircle, GratingLobeDiagramOptions, ZeroPlotOptions } from './circles.js';
+export { gratingLobeDiagramSvg, zeroPlotSvg } from './circles.js';

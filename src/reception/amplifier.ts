@@ -1,0 +1,161 @@
+/**
+ * Receiver noise: one amplifier from its noise parameters, and N amplifiers
+ * coupled through the array impedance matrix.
+ * @module
+ */
+import { DimensionError, DomainError } from '../errors.js';
+import { complexParts, type CMatrix, type ComplexLike } from '../linalg/cmatrix.js';
+import { assertFiniteCMatrix, assertPositive, assertSquare, describeValue } from '../internal/validate.js';
+import { K_BOLTZMANN_J_PER_K, T0_K } from '../units/constants.js';
+
+/**
+ * Noise parameters of one low-noise amplifier (two-port, input-referred).
+ * @category Reception
+ */
+export interface AmplifierNoise {
+  /** Minimum noise temperature T_min [K], ≥ 0. */
+  readonly minimumNoiseTemperatureK: number;
+  /** Noise resistance R_n [Ω], ≥ 0. */
+  readonly noiseResistanceOhm: number;
+  /** Optimum source admittance Y_opt [S], Re > 0. */
+  readonly optimumSourceAdmittanceS: ComplexLike;
+}
+
+/** @internal Parsed noise parameters. */
+export interface ParsedAmplifier { tMin: number; rn: number; yr: number; yi: number }
+
+/**
+ * @internal Validates noise parameters, including physical realizability
+ * T_min ≤ 4 T0 R_n Re Y_opt (the noise-wave correlation matrix must be positive
+ * semidefinite).
+ */
+export function parseAmplifier(name: string, a: AmplifierNoise): ParsedAmplifier {
+  if (a === null || typeof a !== 'object') {
+    throw new DomainError(`invalid argument "${name}": expected AmplifierNoise {minimumNoiseTemperatureK, noiseResistanceOhm, optimumSourceAdmittanceS}, received ${describeValue(a)}.`);
+  }
+  const tMin = a.minimumNoiseTemperatureK, rn = a.noiseResistanceOhm;
+  if (typeof tMin !== 'number' || !Number.isFinite(tMin) || tMin < 0) {
+    throw new DomainError(`invalid argument "${name}.minimumNoiseTemperatureK": expected a temperature ≥ 0 [K], received ${describeValue(tMin)}.`);
+  }
+  if (typeof rn !== 'number' || !Number.isFinite(rn) || rn < 0) {
+    throw new DomainError(`invalid argument "${name}.noiseResistanceOhm": expected a resistance ≥ 0 [Ω], received ${describeValue(rn)}.`);
+  }
+  const [yr, yi] = complexParts(`${name}.optimumSourceAdmittanceS`, a.optimumSourceAdmittanceS);
+  if (!(yr > 0)) {
+    throw new DomainError(`invalid argument "${name}.optimumSourceAdmittanceS": expected a positive real part (a passive optimum source) [S], received ${yr} + ${yi}j.`);
+  }
+  const bound = 4 * T0_K * rn * yr;
+  if (tMin > bound * (1 + 1e-12)) {
+    throw new DomainError(`invalid argument "${name}": non-physical noise parameters, T_min = ${tMin} K exceeds 4·T0·R_n·Re Y_opt = ${bound} K (the noise correlation matrix would be indefinite); check the units of R_n [Ω] and Y_opt [S].`);
+  }
+  return { tMin, rn, yr, yi };
+}
+
+/**
+ * Noise temperature of one amplifier driven from a source admittance Y_s.
+ *
+ * @remarks
+ * DESIGN, "noise of one amplifier": T_rec = T_min + T0 R_n |Y_s − Y_opt|² / Re Y_s
+ * (H. Rothe, W. Dahlke, "Theory of noisy fourpoles", Proc. IRE 44(6), 1956;
+ * IRE Subcommittee 7.9, "Representation of noise in linear twoports",
+ * Proc. IRE 48(1), 1960 — from memory).
+ * @param amplifier - Noise parameters.
+ * @param sourceAdmittanceS - Source admittance Y_s [S], Re Y_s > 0.
+ * @returns T_rec [K].
+ * @throws {@link DomainError} for non-physical parameters or Re Y_s ≤ 0.
+ * @example
+ * ```ts
+ * amplifierNoiseTemperature({ minimumNoiseTemperatureK: 20, noiseResistanceOhm: 5, optimumSourceAdmittanceS: 0.02 }, 0.02); // 20
+ * ```
+ * @category Reception
+ */
+export function amplifierNoiseTemperature(amplifier: AmplifierNoise, sourceAdmittanceS: ComplexLike): number {
+  const p = parseAmplifier('amplifier', amplifier);
+  const [sr, si] = complexParts('sourceAdmittanceS', sourceAdmittanceS);
+  if (!(sr > 0)) {
+    throw new DomainError(`invalid argument "sourceAdmittanceS": expected a positive real part [S], received ${sr} + ${si}j.`);
+  }
+  const dr = sr - p.yr, di = si - p.yi;
+  return p.tMin + (T0_K * p.rn * (dr * dr + di * di)) / sr;
+}
+
+/**
+ * Receiver-noise correlation of N amplifiers coupled through the array, at the
+ * array's open-circuit terminals.
+ *
+ * @remarks
+ * DESIGN, "coupled amplifiers": amplifier n has a series EMF eₙ and a shunt
+ * current iₙ driven into its array port with E|e|² = 4k_B B T0 R_n,
+ * E|i|² = 4k_B B T0 R_n |Y_opt|², E[i e*] = 4k_B B (T_min/2 − T0 R_n Y_opt);
+ * amplifiers are mutually uncorrelated. Referred to the open-circuit terminals,
+ * v_rec = e + Z_A i, so
+ * R_rec = Σ_ee + Z_A C + C* Z_Aᴴ + Z_A Σ_ii Z_Aᴴ with C = diag(E[iₙ eₙ*]).
+ * It does not depend on the amplifiers' input impedances. For N = 1 the
+ * equivalent temperature E|v_rec|² / (4 k_B B Re Z_A) is exactly
+ * T_min + T0 R_n |Y_s − Y_opt|² / Re Y_s with Y_s = 1/Z_A (tested at random
+ * points). References: K. F. Warnick, B. Woestenburg, L. Belostotski,
+ * P. Russer, IEEE Trans. Antennas Propag. 57(7), 2009; K. F. Warnick et al.,
+ * IEEE Trans. Antennas Propag. 58(7), 2010 (from memory).
+ * @param impedanceOhm - Array impedance matrix Z_A [Ω], N×N.
+ * @param amplifiers - One set of noise parameters per port, or one set shared by all ports.
+ * @param bandwidthHz - Bandwidth B [Hz], > 0.
+ * @returns R_rec [V²], N×N Hermitian.
+ * @throws {@link DimensionError} when the number of amplifiers differs from the number of ports;
+ *   {@link DomainError} for non-physical parameters.
+ * @category Reception
+ */
+export function receiverNoiseCorrelation(
+  impedanceOhm: CMatrix, amplifiers: AmplifierNoise | ReadonlyArray<AmplifierNoise>, bandwidthHz: number,
+): CMatrix {
+  assertSquare('impedanceOhm', impedanceOhm);
+  assertFiniteCMatrix('impedanceOhm', impedanceOhm);
+  assertPositive('bandwidthHz', bandwidthHz, 'Hz');
+  const n = impedanceOhm.rows;
+  const amps = parseAmplifiers(amplifiers, n);
+  const s = 4 * K_BOLTZMANN_J_PER_K * bandwidthHz;
+  const z = impedanceOhm.data;
+  const out = new Float64Array(2 * n * n);
+  // c_k = E[i e*]/s, σi_k = E|i|²/s, σe_k = E|e|²/s
+  const cr = new Float64Array(n), ci = new Float64Array(n), si = new Float64Array(n);
+  for (let k = 0; k < n; k++) {
+    const a = amps[k];
+    cr[k] = a.tMin / 2 - T0_K * a.rn * a.yr;
+    ci[k] = -T0_K * a.rn * a.yi;
+    si[k] = T0_K * a.rn * (a.yr * a.yr + a.yi * a.yi);
+  }
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j <= i; j++) {
+      // (Z Σ_ii Zᴴ)_ij = Σ_k Z_ik σ_k conj(Z_jk)
+      let re = 0, im = 0;
+      for (let k = 0; k < n; k++) {
+        const ar = z[2 * (i * n + k)], ai = z[2 * (i * n + k) + 1];
+        const br = z[2 * (j * n + k)], bi = z[2 * (j * n + k) + 1];
+        re += si[k] * (ar * br + ai * bi);
+        im += si[k] * (ai * br - ar * bi);
+      }
+      // (Z C)_ij = Z_ij c_j ; (C* Zᴴ)_ij = conj(c_i) conj(Z_ji)
+      const zr = z[2 * (i * n + j)], zi = z[2 * (i * n + j) + 1];
+      re += zr * cr[j] - zi * ci[j];
+      im += zr * ci[j] + zi * cr[j];
+      const yr = z[2 * (j * n + i)], yi = z[2 * (j * n + i) + 1];
+      re += cr[i] * yr - ci[i] * yi;
+      im += -(cr[i] * yi + ci[i] * yr);
+      if (i === j) { re += T0_K * amps[i].rn; im = 0; }
+      out[2 * (i * n + j)] = s * re; out[2 * (i * n + j) + 1] = s * im;
+      out[2 * (j * n + i)] = s * re; out[2 * (j * n + i) + 1] = im === 0 ? 0 : -s * im;
+    }
+  }
+  return { rows: n, cols: n, data: out };
+}
+
+/** @internal Validates one shared or N per-port amplifier descriptions. */
+export function parseAmplifiers(amplifiers: AmplifierNoise | ReadonlyArray<AmplifierNoise>, n: number): ParsedAmplifier[] {
+  if (Array.isArray(amplifiers)) {
+    if (amplifiers.length !== n) {
+      throw new DimensionError(`invalid argument "amplifiers": expected ${n} noise-parameter sets (one per port of the impedance matrix) or a single shared set, received ${amplifiers.length}.`);
+    }
+    return amplifiers.map((a, k) => parseAmplifier(`amplifiers[${k}]`, a));
+  }
+  const p = parseAmplifier('amplifiers', amplifiers as AmplifierNoise);
+  return Array.from({ length: n }, () => p);
+}

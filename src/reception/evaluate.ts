@@ -1,0 +1,192 @@
+/**
+ * One call from "this receiving array" to every figure of merit: the entry
+ * point of the command line and the demo.
+ * @module
+ */
+import { DomainError } from '../errors.js';
+import type { CMatrix, ComplexLike } from '../linalg/cmatrix.js';
+import { complexParts } from '../linalg/cmatrix.js';
+import { assertPositive, describeValue } from '../internal/validate.js';
+import type { SphereQuadrature } from '../geometry/quadrature.js';
+import type { AmplifierNoise } from './amplifier.js';
+import { arrayNoiseBudget, type LossModel, type NoiseBudget, type NoiseEnvironment } from './budget.js';
+import {
+  embeddedElementEfficiencies, minimumReceiverTemperature, scanSweep, type BeamFigures,
+} from './figures.js';
+import {
+  assertPatternSource, quadratureDirections, samplePatterns, sampledPatternSource,
+  type PortPatternSource, type QuadratureDirections, type SampledPortPatterns,
+} from './patterns.js';
+
+/**
+ * The N ports of a receiving array: embedded open-circuit patterns and the
+ * impedance matrix (analytic elements through a pattern source, or imported
+ * data as samples).
+ * @category Reception
+ */
+export interface ArrayPorts {
+  /** Embedded patterns (DESIGN "embedded pattern" convention). */
+  readonly patterns: PortPatternSource | SampledPortPatterns;
+  /** Impedance matrix Z_A [Ω], N×N. */
+  readonly impedanceOhm: CMatrix;
+}
+
+/**
+ * Everything {@link evaluateReceivingArray} needs.
+ * @category Reception
+ */
+export interface ReceivingArrayDescription {
+  /** The array's ports. */
+  readonly ports: ArrayPorts;
+  /** Sphere quadrature for the noise integrals: a geometry-module rule or explicit directions. */
+  readonly quadrature: SphereQuadrature | QuadratureDirections;
+  /** Bandwidth B [Hz], > 0. */
+  readonly bandwidthHz: number;
+  /** External noise environment. */
+  readonly environment: NoiseEnvironment;
+  /** Amplifier noise parameters. @defaultValue noiseless receivers */
+  readonly amplifiers?: AmplifierNoise | ReadonlyArray<AmplifierNoise>;
+  /** Terminations for the embedded element efficiency (amplifier input impedances) [Ω]. @defaultValue 50 Ω each (common practice) */
+  readonly terminationOhm?: ComplexLike | ReadonlyArray<ComplexLike>;
+  /** Physical temperature of the array [K]. @defaultValue 290 */
+  readonly physicalTemperatureK?: number;
+  /** Ohmic-loss model. @defaultValue 'fromPatterns' */
+  readonly loss?: LossModel;
+  /** Beam directions [rad]. */
+  readonly beams: { readonly thetaRad: Float64Array; readonly phiRad: Float64Array };
+  /** Open-circuit weights, N×K. @defaultValue max-SNR weights for an unpolarized source */
+  readonly weights?: CMatrix;
+  /** Physical area for the aperture efficiency [m²]. */
+  readonly physicalAreaM2?: number;
+  /** Flux density of an unpolarized test source for the SNR [W m⁻² Hz⁻¹]. */
+  readonly fluxDensityWPerM2Hz?: number;
+  /** Progress callback: stage name, beams done, total beams. */
+  readonly onProgress?: (stage: 'noise' | 'beams', done: number, total: number) => void;
+}
+
+/**
+ * Result of {@link evaluateReceivingArray}; every dimensional field carries its unit in its name.
+ * @category Reception
+ */
+export interface ReceivingArrayEvaluation {
+  /** The open-circuit noise budget [V²]. */
+  readonly budget: NoiseBudget;
+  /** Open-circuit weights used, N×K. */
+  readonly weights: CMatrix;
+  /** Figures of merit per beam. */
+  readonly beams: BeamFigures[];
+  /** The array's minimum receiver temperature T_rec,min [K]. */
+  readonly minimumReceiverTemperatureK: number;
+  /** Embedded element efficiency of each port (linear). */
+  readonly embeddedElementEfficiency: Float64Array;
+  /** Unit of every figure, by field name of {@link BeamFigures}. */
+  readonly units: Readonly<Record<keyof BeamFigures, string>>;
+  /** Wall-clock time of the stages [ms]. */
+  readonly timingsMs: { readonly noiseBudget: number; readonly beamPatterns: number; readonly weightsAndFigures: number; readonly arrayFigures: number };
+}
+
+/** Units of the BeamFigures fields. */
+const FIGURE_UNITS: Readonly<Record<keyof BeamFigures, string>> = {
+  systemTemperatureK: 'K', skyTemperatureK: 'K', spilloverTemperatureK: 'K', lossTemperatureK: 'K',
+  receiverTemperatureK: 'K', effectiveAreaM2: 'm²', sensitivityM2PerK: 'm²/K', gain: 'linear', directivity: 'linear',
+  radiationEfficiency: 'linear', spilloverEfficiency: 'linear', apertureEfficiency: 'linear', snr: 'linear',
+  noiseMatchingEfficiency: 'linear',
+};
+
+function toQuadrature(q: SphereQuadrature | QuadratureDirections): QuadratureDirections {
+  if (q !== null && typeof q === 'object' && 'weights' in q && 'thetaCount' in q) return quadratureDirections(q);
+  return q as QuadratureDirections;
+}
+
+/**
+ * Evaluates a receiving array: noise budget, beam weights (max-SNR by default)
+ * and every figure of merit at each beam direction.
+ *
+ * @remarks
+ * Stages: (1) arrayNoiseBudget — sky/ground brightness integrals by blocked
+ * sphere quadrature, ohmic loss, coupled amplifier noise; (2) patterns at the
+ * beam directions; (3) weights (maxSnrWeightsUnpolarized unless given) and
+ * beamFigures through scanSweep; (4) minimum receiver temperature and embedded
+ * element efficiencies. Definitions: K. F. Warnick, M. V. Ivashina,
+ * R. Maaskant, B. Woestenburg, IEEE Trans. Antennas Propag. 58(6), 2010, and
+ * IEEE Std 145-2013 (from memory); see beamFigures.
+ * @param description - Ports, quadrature, environment, amplifiers, beams and options.
+ * @returns Budget, weights, per-beam figures, array figures, units and stage timings.
+ * @throws {@link DimensionError} for inconsistent port counts or grids; {@link DomainError} for
+ *   negative temperatures, non-physical amplifiers and bad options; {@link NotPositiveDefiniteError}
+ *   if the total noise is not positive definite when max-SNR weights are requested.
+ * @example
+ * ```ts
+ * const result = evaluateReceivingArray({
+ *   ports: { patterns: source, impedanceOhm: z },
+ *   quadrature: sphereQuadrature(32, 64),
+ *   bandwidthHz: 1e6,
+ *   environment: skyAndGroundEnvironment({ skyK: 10, groundK: 290 }),
+ *   amplifiers: { minimumNoiseTemperatureK: 25, noiseResistanceOhm: 4, optimumSourceAdmittanceS: 0.02 },
+ *   beams: { thetaRad: Float64Array.of(0), phiRad: Float64Array.of(0) },
+ * });
+ * result.beams[0].systemTemperatureK;
+ * ```
+ * @category Reception
+ */
+export function evaluateReceivingArray(description: ReceivingArrayDescription): ReceivingArrayEvaluation {
+  if (description === null || typeof description !== 'object') {
+    throw new DomainError(`invalid argument "description": expected a ReceivingArrayDescription, received ${describeValue(description)}.`);
+  }
+  const d = description;
+  if (d.ports === null || typeof d.ports !== 'object') {
+    throw new DomainError(`invalid argument "description.ports": expected {patterns, impedanceOhm}, received ${describeValue(d.ports)}.`);
+  }
+  const source = 'fill' in d.ports.patterns ? d.ports.patterns : sampledPatternSource(d.ports.patterns as SampledPortPatterns);
+  assertPatternSource('description.ports.patterns', source);
+  if (d.beams === null || typeof d.beams !== 'object') {
+    throw new DomainError(`invalid argument "description.beams": expected {thetaRad, phiRad}, received ${describeValue(d.beams)}.`);
+  }
+  if (d.physicalAreaM2 !== undefined) assertPositive('description.physicalAreaM2', d.physicalAreaM2, 'm²');
+  const quadrature = toQuadrature(d.quadrature);
+  const n = source.portCount;
+  const terminations = terminationList(d.terminationOhm, n);
+  const progress = d.onProgress;
+  if (progress !== undefined && typeof progress !== 'function') {
+    throw new DomainError(`invalid argument "description.onProgress": expected a function, received ${describeValue(progress)}.`);
+  }
+
+  let t = performance.now();
+  const budget = arrayNoiseBudget({
+    patterns: source, quadrature, impedanceOhm: d.ports.impedanceOhm, environment: d.environment,
+    amplifiers: d.amplifiers, physicalTemperatureK: d.physicalTemperatureK, bandwidthHz: d.bandwidthHz, loss: d.loss,
+  });
+  const tBudget = performance.now() - t;
+  progress?.('noise', 0, d.beams.thetaRad.length);
+
+  t = performance.now();
+  const beamPatterns = samplePatterns(source, d.beams.thetaRad, d.beams.phiRad);
+  const tPatterns = performance.now() - t;
+
+  t = performance.now();
+  const tMin = minimumReceiverTemperature(budget);
+  const tArray0 = performance.now() - t;
+  t = performance.now();
+  const sweep = scanSweep(budget, beamPatterns, {
+    weights: d.weights, physicalAreaM2: d.physicalAreaM2, fluxDensityWPerM2Hz: d.fluxDensityWPerM2Hz,
+    minimumReceiverTemperatureK: tMin,
+    onProgress: progress === undefined ? undefined : (done, total) => progress('beams', done, total),
+  });
+  const tFigures = performance.now() - t;
+
+  t = performance.now();
+  const eff = embeddedElementEfficiencies(budget, terminations);
+  const tArray = tArray0 + performance.now() - t;
+  return {
+    budget, weights: sweep.weights, beams: sweep.beams, minimumReceiverTemperatureK: tMin,
+    embeddedElementEfficiency: eff, units: FIGURE_UNITS,
+    timingsMs: { noiseBudget: tBudget, beamPatterns: tPatterns, weightsAndFigures: tFigures, arrayFigures: tArray },
+  };
+}
+
+function terminationList(z: ComplexLike | ReadonlyArray<ComplexLike> | undefined, n: number): { re: number; im: number }[] {
+  if (z === undefined) return Array.from({ length: n }, () => ({ re: 50, im: 0 }));
+  if (Array.isArray(z)) return z.map((v, i) => { const [re, im] = complexParts(`description.terminationOhm[${i}]`, v); return { re, im }; });
+  const [re, im] = complexParts('description.terminationOhm', z as ComplexLike);
+  return Array.from({ length: n }, () => ({ re, im }));
+}

@@ -1,0 +1,249 @@
+/**
+ * The generic inputs of the reception module: embedded open-circuit patterns of
+ * every port sampled at M directions, quadrature directions, and pattern
+ * sources that fill blocks of directions on demand (bounded memory).
+ * @module
+ */
+import { DimensionError, DomainError } from '../errors.js';
+import type { CMatrix } from '../linalg/cmatrix.js';
+import { assertCMatrix, assertFiniteArray, assertPositive, describeValue } from '../internal/validate.js';
+import type { SphereQuadrature } from '../geometry/quadrature.js';
+
+/**
+ * Embedded open-circuit patterns of N ports sampled at M directions.
+ *
+ * @remarks
+ * Convention (DESIGN, "embedded pattern"): with port n driven by the RMS
+ * current I₀ and every other port open, the radiated field is
+ * Eₙ(r) = fₙ(r̂)·e^{−jkr}/r, time dependence e^{+jωt}, phase referred to the
+ * coordinate origin. Row n of `thetaComponentV` holds fₙ·θ̂ and row n of
+ * `phiComponentV` holds fₙ·φ̂ at the M directions (θ from +z, φ from +x toward +y).
+ * @category Reception
+ */
+export interface SampledPortPatterns {
+  /** Polar angle of each sample direction [rad], length M. */
+  readonly thetaRad: Float64Array;
+  /** Azimuth of each sample direction [rad], length M. */
+  readonly phiRad: Float64Array;
+  /** fₙ·θ̂ [V], N×M (row = port, column = direction). */
+  readonly thetaComponentV: CMatrix;
+  /** fₙ·φ̂ [V], N×M. */
+  readonly phiComponentV: CMatrix;
+  /** RMS drive current I₀ the patterns are referred to [A], > 0. */
+  readonly driveCurrentA: number;
+  /** Frequency of the patterns [Hz], > 0. */
+  readonly frequencyHz: number;
+}
+
+/**
+ * A source of embedded patterns that fills any block of directions on demand,
+ * so that integrals over 10⁵ directions never hold all N×M samples at once.
+ *
+ * @remarks
+ * `fill` writes fₙ·θ̂ and fₙ·φ̂ for ports n = 0…N−1 and directions
+ * k = 0…count−1 (angles `thetaRad[start + k]`, `phiRad[start + k]`) into
+ * interleaved row-major buffers with leading dimension `ld` (complex elements):
+ * entry (n, k) starts at `2·(n·ld + k)`. Conventions as {@link SampledPortPatterns}.
+ * @category Reception
+ */
+export interface PortPatternSource {
+  /** Number of ports N. */
+  readonly portCount: number;
+  /** RMS drive current I₀ the patterns are referred to [A]. */
+  readonly driveCurrentA: number;
+  /** Frequency [Hz]. */
+  readonly frequencyHz: number;
+  /**
+   * Writes the patterns of every port at `count` directions starting at `start`.
+   * @param thetaRad - Polar angles of all directions [rad].
+   * @param phiRad - Azimuths of all directions [rad].
+   * @param start - First direction index.
+   * @param count - Number of directions.
+   * @param outTheta - Destination of fₙ·θ̂ [V], interleaved, N rows of leading dimension `ld`.
+   * @param outPhi - Destination of fₙ·φ̂ [V], same layout.
+   * @param ld - Leading dimension of the destinations (complex elements), ≥ count.
+   */
+  fill(
+    thetaRad: Float64Array, phiRad: Float64Array, start: number, count: number,
+    outTheta: Float64Array, outPhi: Float64Array, ld: number,
+  ): void;
+}
+
+/**
+ * Directions with solid-angle quadrature weights, ∮ g dΩ ≈ Σₖ weightSr[k]·g(θₖ, φₖ).
+ * @category Reception
+ */
+export interface QuadratureDirections {
+  /** Polar angle of each node [rad], length M. */
+  readonly thetaRad: Float64Array;
+  /** Azimuth of each node [rad], length M. */
+  readonly phiRad: Float64Array;
+  /** Solid-angle weight of each node [sr], ≥ 0, length M (summing to 4π for a full-sphere rule). */
+  readonly weightSr: Float64Array;
+}
+
+/** @internal Full validation of sampled patterns; returns N. */
+export function assertSampledPatterns(name: string, p: SampledPortPatterns): number {
+  if (p === null || typeof p !== 'object') {
+    throw new DomainError(`invalid argument "${name}": expected SampledPortPatterns {thetaRad, phiRad, thetaComponentV, phiComponentV, driveCurrentA, frequencyHz}, received ${describeValue(p)}.`);
+  }
+  assertFiniteArray(`${name}.thetaRad`, p.thetaRad);
+  assertFiniteArray(`${name}.phiRad`, p.phiRad);
+  const m = p.thetaRad.length;
+  if (p.phiRad.length !== m) {
+    throw new DimensionError(`invalid argument "${name}.phiRad": expected ${m} azimuths (one per entry of "${name}.thetaRad"), received ${p.phiRad.length}.`);
+  }
+  assertCMatrix(`${name}.thetaComponentV`, p.thetaComponentV);
+  assertCMatrix(`${name}.phiComponentV`, p.phiComponentV);
+  const n = p.thetaComponentV.rows;
+  if (p.thetaComponentV.cols !== m || p.phiComponentV.rows !== n || p.phiComponentV.cols !== m) {
+    throw new DimensionError(`invalid argument "${name}": expected thetaComponentV and phiComponentV of shape N×${m} (one column per direction), received ${p.thetaComponentV.rows}×${p.thetaComponentV.cols} and ${p.phiComponentV.rows}×${p.phiComponentV.cols}.`);
+  }
+  if (n < 1) throw new DimensionError(`invalid argument "${name}": expected at least one port (row), received 0.`);
+  assertPositive(`${name}.driveCurrentA`, p.driveCurrentA, 'A');
+  assertPositive(`${name}.frequencyHz`, p.frequencyHz, 'Hz');
+  return n;
+}
+
+/** @internal Validation of a pattern source. */
+export function assertPatternSource(name: string, s: PortPatternSource): number {
+  if (s === null || typeof s !== 'object' || typeof s.fill !== 'function') {
+    throw new DomainError(`invalid argument "${name}": expected a PortPatternSource {portCount, driveCurrentA, frequencyHz, fill}, received ${describeValue(s)}; wrap sampled data with sampledPatternSource.`);
+  }
+  if (!Number.isInteger(s.portCount) || s.portCount < 1) {
+    throw new DomainError(`invalid argument "${name}.portCount": expected an integer ≥ 1, received ${describeValue(s.portCount)}.`);
+  }
+  assertPositive(`${name}.driveCurrentA`, s.driveCurrentA, 'A');
+  assertPositive(`${name}.frequencyHz`, s.frequencyHz, 'Hz');
+  return s.portCount;
+}
+
+/** @internal Validation of quadrature directions; returns M. */
+export function assertQuadrature(name: string, q: QuadratureDirections): number {
+  if (q === null || typeof q !== 'object') {
+    throw new DomainError(`invalid argument "${name}": expected {thetaRad, phiRad, weightSr}, received ${describeValue(q)}.`);
+  }
+  assertFiniteArray(`${name}.thetaRad`, q.thetaRad);
+  assertFiniteArray(`${name}.phiRad`, q.phiRad);
+  assertFiniteArray(`${name}.weightSr`, q.weightSr);
+  const m = q.thetaRad.length;
+  if (q.phiRad.length !== m || q.weightSr.length !== m) {
+    throw new DimensionError(`invalid argument "${name}": expected thetaRad, phiRad and weightSr of equal length, received ${m}, ${q.phiRad.length} and ${q.weightSr.length}.`);
+  }
+  for (let k = 0; k < m; k++) {
+    if (q.weightSr[k] < 0) {
+      throw new DomainError(`invalid argument "${name}.weightSr": entry ${k} is ${q.weightSr[k]}; quadrature weights must be ≥ 0 [sr].`);
+    }
+  }
+  return m;
+}
+
+/**
+ * Wraps sampled patterns as a {@link PortPatternSource} defined on exactly
+ * their own sample directions.
+ *
+ * @remarks
+ * Direction k of a request is looked up by its angles; when a request uses the
+ * very arrays of the samples (the usual case: the quadrature of the samples)
+ * the lookup is an index copy. Requests for directions that are not samples
+ * (within 1e-9 rad, φ modulo 2π) throw: this wrapper never interpolates.
+ *
+ * @param patterns - The samples (validated here).
+ * @returns The source.
+ * @throws {@link DimensionError} / {@link DomainError} for malformed samples; the
+ * returned `fill` throws {@link DomainError} for a direction that is not sampled.
+ * @category Reception
+ */
+export function sampledPatternSource(patterns: SampledPortPatterns): PortPatternSource {
+  const n = assertSampledPatterns('patterns', patterns);
+  const m = patterns.thetaRad.length;
+  const th = patterns.thetaComponentV.data, ph = patterns.phiComponentV.data;
+  let lookup: Map<string, number> | null = null;
+  const key = (t: number, p: number): string => {
+    const pp = ((p % (2 * Math.PI)) + 2 * Math.PI) % (2 * Math.PI);
+    return `${Math.round(t * 1e9)}:${Math.round(pp * 1e9) % Math.round(2 * Math.PI * 1e9)}`;
+  };
+  const indexOf = (t: number, p: number): number => {
+    if (lookup === null) {
+      lookup = new Map();
+      for (let k = 0; k < m; k++) lookup.set(key(patterns.thetaRad[k], patterns.phiRad[k]), k);
+    }
+    const k = lookup.get(key(t, p));
+    if (k === undefined) {
+      throw new DomainError(`pattern request at θ = ${t} rad, φ = ${p} rad: this direction is not one of the ${m} sampled directions; include it in the sampled grid (sampled patterns are never interpolated).`);
+    }
+    return k;
+  };
+  return {
+    portCount: n,
+    driveCurrentA: patterns.driveCurrentA,
+    frequencyHz: patterns.frequencyHz,
+    fill(thetaRad, phiRad, start, count, outTheta, outPhi, ld) {
+      const same = thetaRad === patterns.thetaRad && phiRad === patterns.phiRad;
+      for (let k = 0; k < count; k++) {
+        const src = same ? start + k : indexOf(thetaRad[start + k], phiRad[start + k]);
+        for (let i = 0; i < n; i++) {
+          const s = 2 * (i * m + src), d = 2 * (i * ld + k);
+          outTheta[d] = th[s]; outTheta[d + 1] = th[s + 1];
+          outPhi[d] = ph[s]; outPhi[d + 1] = ph[s + 1];
+        }
+      }
+    },
+  };
+}
+
+/**
+ * Samples a pattern source at the given directions.
+ * @param source - The pattern source.
+ * @param thetaRad - Polar angles [rad], length M.
+ * @param phiRad - Azimuths [rad], length M.
+ * @returns The N×M samples.
+ * @throws {@link DimensionError} / {@link DomainError} for malformed arguments.
+ * @category Reception
+ */
+export function samplePatterns(source: PortPatternSource, thetaRad: Float64Array, phiRad: Float64Array): SampledPortPatterns {
+  const n = assertPatternSource('source', source);
+  assertFiniteArray('thetaRad', thetaRad);
+  assertFiniteArray('phiRad', phiRad);
+  if (phiRad.length !== thetaRad.length) {
+    throw new DimensionError(`invalid argument "phiRad": expected ${thetaRad.length} azimuths (one per polar angle), received ${phiRad.length}.`);
+  }
+  const m = thetaRad.length;
+  const t = new Float64Array(2 * n * m), p = new Float64Array(2 * n * m);
+  source.fill(thetaRad, phiRad, 0, m, t, p, m);
+  return {
+    thetaRad, phiRad,
+    thetaComponentV: { rows: n, cols: m, data: t },
+    phiComponentV: { rows: n, cols: m, data: p },
+    driveCurrentA: source.driveCurrentA,
+    frequencyHz: source.frequencyHz,
+  };
+}
+
+/**
+ * Expands a product sphere quadrature (geometry module) into one (θ, φ, weight)
+ * triple per direction, in the quadrature's own order (direction
+ * k = j·thetaCount + i, θ fastest).
+ * @param quadrature - The rule from sphereQuadrature or sphereQuadratureForLayout.
+ * @returns Per-direction angles [rad] and weights [sr].
+ * @throws {@link DimensionError} if the rule's arrays are inconsistent.
+ * @example
+ * ```ts
+ * const q = quadratureDirections(sphereQuadrature(8, 16)); // 128 directions, Σ weightSr = 4π
+ * ```
+ * @category Reception
+ */
+export function quadratureDirections(quadrature: SphereQuadrature): QuadratureDirections {
+  const { thetaCount, phiCount, count } = quadrature;
+  if (quadrature.thetaRad.length !== thetaCount || quadrature.phiRad.length !== phiCount || quadrature.weights.length !== count || count !== thetaCount * phiCount) {
+    throw new DimensionError(`invalid argument "quadrature": expected thetaRad of length thetaCount, phiRad of length phiCount and count = thetaCount·phiCount weights, received ${quadrature.thetaRad.length}, ${quadrature.phiRad.length}, ${quadrature.weights.length}.`);
+  }
+  const thetaRad = new Float64Array(count), phiRad = new Float64Array(count);
+  for (let j = 0; j < phiCount; j++) {
+    for (let i = 0; i < thetaCount; i++) {
+      thetaRad[j * thetaCount + i] = quadrature.thetaRad[i];
+      phiRad[j * thetaCount + i] = quadrature.phiRad[j];
+    }
+  }
+  return { thetaRad, phiRad, weightSr: quadrature.weights };
+}

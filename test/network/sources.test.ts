@@ -1,0 +1,106 @@
+import { describe, it, expect } from 'vitest';
+import {
+  nortonFromThevenin, theveninFromNorton, loadResponse, availablePower, mismatchFactor, activeReflection,
+} from '../../src/network/sources.js';
+import { checkReciprocity, checkPassivity, checkLossless } from '../../src/network/checks.js';
+import { interpolateMultiport } from '../../src/network/interpolate.js';
+import { createMultiport, multiportMatrix } from '../../src/network/multiport.js';
+import { convertMultiport, renormalizeMultiport } from '../../src/network/convert.js';
+import { fromRows, columnVector, adjoint, multiply, entry, scale, columnVector as col } from '../../src/linalg/index.js';
+import { DomainError, DimensionError, NotPositiveDefiniteError } from '../../src/errors.js';
+import { expectCMatrixClose, randomMatrix } from '../helpers/matchers.js';
+import { randomPassiveImpedance } from './helpers.js';
+
+describe('Thevenin / Norton, loads, available power', () => {
+  const z = randomPassiveImpedance(3, 51);
+  const v = columnVector([{ re: 1, im: 0.5 }, { re: -0.3, im: 0.2 }, 0.7]);
+  it('Norton ↔ Thevenin round trip; i_sc equals the current into shorts', () => {
+    const nr = nortonFromThevenin({ impedanceOhm: z, openCircuitVoltageV: v });
+    const back = theveninFromNorton(nr);
+    expectCMatrixClose(back.openCircuitVoltageV, v, { rtol: 1e-13 });
+    // shorted ports: 0 = Z I + v → −I = Z⁻¹ v = i_sc
+    expectCMatrixClose(multiply(z, nr.shortCircuitCurrentA), v, { rtol: 1e-13 });
+  });
+  it('conjugate-matched load draws the available power; mismatch factor ≤ 1 otherwise', () => {
+    const t = { impedanceOhm: z, openCircuitVoltageV: v };
+    const matched = loadResponse(t, adjoint(z));
+    expect(matched.totalPowerW).toBeCloseTo(matched.availablePowerW, 14);
+    expect(matched.mismatchFactor).toBeCloseTo(1, 12);
+    const other = loadResponse(t, fromRows([[50, 0, 0], [0, 50, 0], [0, 0, 50]]));
+    expect(other.mismatchFactor).toBeLessThan(1);
+    // energy: delivered = −Re(Iᴴ V) computed from the port quantities; V = Z I + v_oc with I = −i_L
+    const iNet = scale(other.loadCurrentA, -1);
+    const vv = multiply(z, iNet);
+    for (let i = 0; i < 3; i++) expect(vv.data[2 * i] + v.data[2 * i]).toBeCloseTo(other.voltageV.data[2 * i], 12);
+  });
+  it('one-port available power |v|²/(4R) and the scalar mismatch factor (Pozar 2012 §2.8, from memory)', () => {
+    const zs = { re: 30, im: 40 };
+    expect(availablePower({ impedanceOhm: fromRows([[zs]]), openCircuitVoltageV: col([2]) })).toBeCloseTo(4 / 120, 15);
+    const r = loadResponse({ impedanceOhm: fromRows([[zs]]), openCircuitVoltageV: col([2]) }, fromRows([[{ re: 50, im: -10 }]]));
+    expect(r.mismatchFactor).toBeCloseTo(mismatchFactor(zs, { re: 50, im: -10 }), 14);
+    expect(mismatchFactor(zs, { re: 30, im: -40 })).toBeCloseTo(1, 15);
+    expect(() => mismatchFactor(0, 50)).toThrow(DomainError);
+    expect(() => availablePower({ impedanceOhm: fromRows([[{ re: -1, im: 0 }]]), openCircuitVoltageV: col([1]) })).toThrow(NotPositiveDefiniteError);
+    expect(() => loadResponse({ impedanceOhm: z, openCircuitVoltageV: v }, fromRows([[1]]))).toThrow(DimensionError);
+  });
+  it('active reflection Γₙ = (S a)ₙ/aₙ; single-port excitation on a diagonal S reduces to S_nn', () => {
+    const s = randomMatrix(3, 3, 60);
+    const net = createMultiport('scattering', [1e9, 2e9], [s, scale(s, 0.5)]);
+    const a = columnVector([1, { re: 0, im: 1 }, -1]);
+    const g = activeReflection(net, a);
+    const sa = multiply(s, a);
+    for (let i = 0; i < 3; i++) expect(entry(g, 0, i).sub(entry(sa, i).div(entry(a, i))).abs()).toBeLessThan(1e-15);
+    expect(() => activeReflection(net, columnVector([1, 0, 1]))).toThrow(DomainError);
+  });
+});
+
+describe('physical checks report violation sizes', () => {
+  it('reciprocal passive Z with complex references: reciprocal, passive, lossy', () => {
+    const z = randomPassiveImpedance(4, 71);
+    const net = renormalizeMultiport(createMultiport('impedance', [1e9], [z]), [{ re: 20, im: 30 }, 50, { re: 70, im: -10 }, 40]);
+    expect(checkReciprocity(net).violation).toBeLessThan(1e-14);
+    expect(checkPassivity(net).satisfied).toBe(true);
+    const l = checkLossless(net);
+    expect(l.satisfied).toBe(false);
+    expect(l.violation).toBeGreaterThan(1e-3);
+  });
+  it('a lossless network (unitary S = Cayley transform of jX) and a gain block', () => {
+    // Z = jX with X real symmetric is lossless: S = (jX − R)(jX + R)⁻¹ unitary for real R
+    const x = randomPassiveImpedance(3, 72);
+    for (let q = 0; q < x.data.length; q += 2) x.data[q] = 0;
+    const lossless = createMultiport('impedance', [1e9], [x]);
+    expect(checkLossless(lossless).violation).toBeLessThan(1e-12);
+    const amp = createMultiport('scattering', [1e9, 2e9], [fromRows([[0.1, 0], [3, 0.2]]), fromRows([[0.1, 0], [0.5, 0.2]])]);
+    const p = checkPassivity(amp);
+    expect(p.satisfied).toBe(false);
+    expect(p.worstIndex).toBe(0);
+    // σ_max of [[0.1, 0], [3, 0.2]] from the closed form of a 2×2 real matrix (numpy.linalg.svd gives 3.0083…)
+    const m = [[0.1, 0], [3, 0.2]];
+    const t = m[0][0] ** 2 + m[0][1] ** 2 + m[1][0] ** 2 + m[1][1] ** 2, d = m[0][0] * m[1][1] - m[0][1] * m[1][0];
+    const smax = Math.sqrt((t + Math.sqrt(t * t - 4 * d * d)) / 2);
+    expect(p.violation).toBeCloseTo(smax - 1, 12);
+    expect(checkPassivity(amp).perFrequency[1]).toBe(0);
+    expect(checkReciprocity(amp).violation).toBeCloseTo(3, 14);
+    expect(() => checkReciprocity(amp, -1)).toThrow(DomainError);
+  });
+});
+
+describe('interpolateMultiport', () => {
+  it('linear in re/im is exact for data linear in frequency; magnitude/phase is exact for a delay line', () => {
+    const f = [1e9, 2e9, 3e9];
+    const lin = createMultiport('impedance', f, f.map((x) => fromRows([[{ re: x / 1e8, im: -x / 1e9 }]])));
+    const i1 = interpolateMultiport(lin, [1.5e9, 2.75e9]);
+    expect(i1.data[0]).toBeCloseTo(15, 12);
+    expect(i1.data[3]).toBeCloseTo(-2.75, 12);
+    // a matched delay line of 0.7 ns: S21 = exp(−jωτ) (phase spans several turns over the band)
+    const tau = 0.7e-9;
+    const grid = Array.from({ length: 11 }, (_, k) => 1e9 + 2e8 * k);
+    const line = (x: number) => { const p = -2 * Math.PI * x * tau; return fromRows([[0, { re: Math.cos(p), im: Math.sin(p) }], [{ re: Math.cos(p), im: Math.sin(p) }, 0]]); };
+    const net = createMultiport('scattering', grid, grid.map(line));
+    const fq = [1.13e9, 2.55e9, 2.99e9];
+    const got = interpolateMultiport(net, fq, 'magnitude-phase');
+    fq.forEach((x, k) => expectCMatrixClose(multiportMatrix(got, k), line(x), { rtol: 1e-12 }));
+    expect(() => interpolateMultiport(net, [0.5e9])).toThrow(DomainError);
+    expect(() => interpolateMultiport(net, [1.5e9], 'cubic' as never)).toThrow(DomainError);
+  });
+});
