@@ -16,3 +16,5 @@ export type { UvPatternFigures } from './uvFigures.js';
 export { uvPatternFigures } from './uvFigures.js';
 export type { FftGridArrayFactor } from './gridPaths.js';
 export { separableGridArrayFactor, fftGridArrayFactor, fftGridArrayFactorInto } from './gridPaths.js';
+export type { SchelkunoffArc } from './schelkunoff.js';
+export { schelkunoffZeros, weightsFromSchelkunoffZeros, nullSteeringWeights, schelkunoffVisibleArc } from './schelkunoff.js';
