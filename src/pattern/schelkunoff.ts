@@ -132,7 +132,7 @@ export interface SchelkunoffArc {
   readonly psiStartRad: number;
   /** ψ at γ = 0: β + kd [rad]. */
   readonly psiEndRad: number;
-  /** True when the arc spans 2π or more (2kd ≥ 2π): parts of the circle are visited twice and grating lobes can appear. */
+  /** True when the arc spans more than 2π (d > λ/2): parts of the circle are visited twice, so one zero can null two directions and a beam can repeat (grating lobes). */
   readonly overlaps: boolean;
   /** Points ζ = e^{jψ} along the arc, interleaved [re, im], from ψ start to end. */
   readonly points: Float64Array;
@@ -164,5 +164,5 @@ export function schelkunoffVisibleArc(spacingM: number, frequencyHz: number, pro
     points[2 * i] = Math.cos(psi);
     points[2 * i + 1] = Math.sin(psi);
   }
-  return { psiStartRad: a, psiEndRad: b, overlaps: 2 * kd >= 2 * Math.PI, points };
+  return { psiStartRad: a, psiEndRad: b, overlaps: kd > Math.PI * (1 + 1e-12), points };
 }

@@ -63,13 +63,14 @@ describe('Schelkunoff zeros', () => {
     for (const m of mag) expect(m).toBeLessThan(1e-13 * wsum);
     expect(arrayFactorMagnitude(layout, w, Float64Array.from(unitVectorFromAngles(1.4, 0)), F)[0]).toBeGreaterThan(0.5 * wsum);
   });
-  it('visible arc: [β − kd, β + kd], overlap when d ≥ λ/2·2 (2kd ≥ 2π)', () => {
+  it('visible arc: [β − kd, β + kd], overlapping only when d > λ/2 (2kd > 2π)', () => {
     const a = schelkunoffVisibleArc(L / 4, F, 0.3, 5);
     expect(a.psiStartRad).toBeCloseTo(0.3 - Math.PI / 2, 14);
     expect(a.psiEndRad).toBeCloseTo(0.3 + Math.PI / 2, 14);
     expect(a.overlaps).toBe(false);
     expect(Math.atan2(a.points[1], a.points[0])).toBeCloseTo(0.3 - Math.PI / 2, 14);
     expect(schelkunoffVisibleArc(L, F).overlaps).toBe(true);
+    expect(schelkunoffVisibleArc(L / 2, F).overlaps).toBe(false);
   });
   it('typed errors', () => {
     expect(() => schelkunoffZeros(columnVector([1]))).toThrow(DimensionError);
