@@ -259,6 +259,15 @@ export function sphereQuadratureOrder(electricalDiameterRad: number, options: Sp
 }
 
 /**
+ * A sphere rule together with its plane-wave error bound.
+ * @category Geometry
+ */
+export interface SizedSphereQuadrature extends SphereQuadrature {
+  /** The bound of {@link SphereQuadratureOrder.errorEstimate}. */
+  readonly errorEstimate: number;
+}
+
+/**
  * The sphere rule sized for an array's power pattern at a frequency
  * (D from {@link layoutDiameterM}, a = kD, counts from {@link sphereQuadratureOrder}).
  * @param layout - The array layout.
@@ -272,7 +281,7 @@ export function sphereQuadratureForLayout(
   layout: ArrayLayout,
   frequencyHz: number,
   options: SphereQuadratureOrderOptions & SphereQuadratureOptions = {},
-): SphereQuadrature & { readonly errorEstimate: number } {
+): SizedSphereQuadrature {
   assertPositive('frequencyHz', frequencyHz, 'Hz');
   const a = wavenumberRadPerM(frequencyHz) * layoutDiameterM(layout);
   const order = sphereQuadratureOrder(a, options);

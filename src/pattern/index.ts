@@ -1,6 +1,6 @@
 export { steeringVector, steeringVectorInto, steeringMatrix, steeringMatrixInto } from './steering.js';
 export { arrayFactor, arrayFactorInto, arrayFactorMagnitude, magnitudesInto } from './arrayFactor.js';
-export type { ElementFactor } from './element.js';
+export type { ElementFactor, IsotropicElementFactor, CosineElementFactor, CustomElementFactor } from './element.js';
 export { elementFactorValues, totalPattern } from './element.js';
 export type { PatternEvaluator } from './evaluator.js';
 export { patternEvaluator } from './evaluator.js';
