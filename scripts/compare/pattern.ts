@@ -1,20 +1,12 @@
 /** bench:compare entries of the geometry and pattern modules. */
 import { arrayFactorInto, fftGridArrayFactorInto, rectangularGridLayout, steeringVector, directivity, arrayLayout, sphereQuadratureForLayout } from '../../src/index.js';
 import { C0_M_PER_S } from '../../src/units/index.js';
-import { randomMatrix, seededRandom } from '../../test/helpers/matchers.js';
+import { randomMatrix, randomUnitVectors, seededRandom } from '../../test/helpers/matchers.js';
 import type { CompareKernel } from './types.js';
 
 const F = 3e9, L = C0_M_PER_S / F;
 const grid = { countX: 32, countY: 32, spacingXM: L / 2, spacingYM: L / 2 };
 
-function directions(m: number, seed: number): Float64Array {
-  const rnd = seededRandom(seed), d = new Float64Array(3 * m);
-  for (let i = 0; i < m; i++) {
-    const z = 2 * rnd() - 1, p = 2 * Math.PI * rnd(), s = Math.sqrt(1 - z * z);
-    d[3 * i] = s * Math.cos(p); d[3 * i + 1] = s * Math.sin(p); d[3 * i + 2] = z;
-  }
-  return d;
-}
 
 /** numpy: positions of the centred 32×32 λ/2 grid in wavelengths, weights steered to θ = 0.3 rad in the xz-plane. */
 const NP_GRID = `n = 32; c = (np.arange(n) - (n - 1) / 2) * 0.5; X, Y = np.meshgrid(c, c); x = X.ravel(); y = Y.ravel(); k = 2 * np.pi
@@ -38,7 +30,7 @@ pu = np.exp(-2j * np.pi * 15.5 * (np.arange(256) - 128) / 256)`,
     targetMs: 40,
     setup: () => {
       const layout = rectangularGridLayout(grid);
-      return { layout, w: steeringVector(layout, [Math.sin(0.3), 0, Math.cos(0.3)], F), d: directions(65536, 0x5eed), out: { rows: 65536, cols: 1, data: new Float64Array(2 * 65536) } };
+      return { layout, w: steeringVector(layout, [Math.sin(0.3), 0, Math.cos(0.3)], F), d: randomUnitVectors(65536, 0x5eed), out: { rows: 65536, cols: 1, data: new Float64Array(2 * 65536) } };
     },
     run: (s) => arrayFactorInto(s.out, s.layout, s.w, s.d, F),
     numpySnippet: {
