@@ -1,25 +1,14 @@
 /**
- * Receiver noise: one amplifier from its noise parameters, and N amplifiers
- * coupled through the array impedance matrix.
+ * Receiver noise of N amplifiers coupled through the array impedance matrix
+ * (noise parameters as in the network module; the one-amplifier formula is
+ * network's noiseTemperatureK).
  * @module
  */
 import { DimensionError, DomainError } from '../errors.js';
-import { complexParts, type CMatrix, type ComplexLike } from '../linalg/cmatrix.js';
+import { complexParts, type CMatrix } from '../linalg/cmatrix.js';
+import type { NoiseParametersInput } from '../network/noise.js';
 import { assertFiniteCMatrix, assertPositive, assertSquare, describeValue } from '../internal/validate.js';
 import { K_BOLTZMANN_J_PER_K, T0_K } from '../units/constants.js';
-
-/**
- * Noise parameters of one low-noise amplifier (two-port, input-referred).
- * @category Reception
- */
-export interface AmplifierNoise {
-  /** Minimum noise temperature T_min [K], ≥ 0. */
-  readonly minimumNoiseTemperatureK: number;
-  /** Noise resistance R_n [Ω], ≥ 0. */
-  readonly noiseResistanceOhm: number;
-  /** Optimum source admittance Y_opt [S], Re > 0. */
-  readonly optimumSourceAdmittanceS: ComplexLike;
-}
 
 /** @internal Parsed noise parameters. */
 export interface ParsedAmplifier { tMin: number; rn: number; yr: number; yi: number }
@@ -29,9 +18,9 @@ export interface ParsedAmplifier { tMin: number; rn: number; yr: number; yi: num
  * T_min ≤ 4 T0 R_n Re Y_opt (the noise-wave correlation matrix must be positive
  * semidefinite).
  */
-export function parseAmplifier(name: string, a: AmplifierNoise): ParsedAmplifier {
+export function parseAmplifier(name: string, a: NoiseParametersInput): ParsedAmplifier {
   if (a === null || typeof a !== 'object') {
-    throw new DomainError(`invalid argument "${name}": expected AmplifierNoise {minimumNoiseTemperatureK, noiseResistanceOhm, optimumSourceAdmittanceS}, received ${describeValue(a)}.`);
+    throw new DomainError(`invalid argument "${name}": expected NoiseParametersInput {minimumNoiseTemperatureK, noiseResistanceOhm, optimumSourceAdmittanceS}, received ${describeValue(a)}.`);
   }
   const tMin = a.minimumNoiseTemperatureK, rn = a.noiseResistanceOhm;
   if (typeof tMin !== 'number' || !Number.isFinite(tMin) || tMin < 0) {
@@ -49,34 +38,6 @@ export function parseAmplifier(name: string, a: AmplifierNoise): ParsedAmplifier
     throw new DomainError(`invalid argument "${name}": non-physical noise parameters, T_min = ${tMin} K exceeds 4·T0·R_n·Re Y_opt = ${bound} K (the noise correlation matrix would be indefinite); check the units of R_n [Ω] and Y_opt [S].`);
   }
   return { tMin, rn, yr, yi };
-}
-
-/**
- * Noise temperature of one amplifier driven from a source admittance Y_s.
- *
- * @remarks
- * DESIGN, "noise of one amplifier": T_rec = T_min + T0 R_n |Y_s − Y_opt|² / Re Y_s
- * (H. Rothe, W. Dahlke, "Theory of noisy fourpoles", Proc. IRE 44(6), 1956;
- * IRE Subcommittee 7.9, "Representation of noise in linear twoports",
- * Proc. IRE 48(1), 1960 — from memory).
- * @param amplifier - Noise parameters.
- * @param sourceAdmittanceS - Source admittance Y_s [S], Re Y_s > 0.
- * @returns T_rec [K].
- * @throws {@link DomainError} for non-physical parameters or Re Y_s ≤ 0.
- * @example
- * ```ts
- * amplifierNoiseTemperature({ minimumNoiseTemperatureK: 20, noiseResistanceOhm: 5, optimumSourceAdmittanceS: 0.02 }, 0.02); // 20
- * ```
- * @category Reception
- */
-export function amplifierNoiseTemperature(amplifier: AmplifierNoise, sourceAdmittanceS: ComplexLike): number {
-  const p = parseAmplifier('amplifier', amplifier);
-  const [sr, si] = complexParts('sourceAdmittanceS', sourceAdmittanceS);
-  if (!(sr > 0)) {
-    throw new DomainError(`invalid argument "sourceAdmittanceS": expected a positive real part [S], received ${sr} + ${si}j.`);
-  }
-  const dr = sr - p.yr, di = si - p.yi;
-  return p.tMin + (T0_K * p.rn * (dr * dr + di * di)) / sr;
 }
 
 /**
@@ -105,7 +66,7 @@ export function amplifierNoiseTemperature(amplifier: AmplifierNoise, sourceAdmit
  * @category Reception
  */
 export function receiverNoiseCorrelation(
-  impedanceOhm: CMatrix, amplifiers: AmplifierNoise | ReadonlyArray<AmplifierNoise>, bandwidthHz: number,
+  impedanceOhm: CMatrix, amplifiers: NoiseParametersInput | ReadonlyArray<NoiseParametersInput>, bandwidthHz: number,
 ): CMatrix {
   assertSquare('impedanceOhm', impedanceOhm);
   assertFiniteCMatrix('impedanceOhm', impedanceOhm);
@@ -149,13 +110,13 @@ export function receiverNoiseCorrelation(
 }
 
 /** @internal Validates one shared or N per-port amplifier descriptions. */
-export function parseAmplifiers(amplifiers: AmplifierNoise | ReadonlyArray<AmplifierNoise>, n: number): ParsedAmplifier[] {
+export function parseAmplifiers(amplifiers: NoiseParametersInput | ReadonlyArray<NoiseParametersInput>, n: number): ParsedAmplifier[] {
   if (Array.isArray(amplifiers)) {
     if (amplifiers.length !== n) {
       throw new DimensionError(`invalid argument "amplifiers": expected ${n} noise-parameter sets (one per port of the impedance matrix) or a single shared set, received ${amplifiers.length}.`);
     }
     return amplifiers.map((a, k) => parseAmplifier(`amplifiers[${k}]`, a));
   }
-  const p = parseAmplifier('amplifiers', amplifiers as AmplifierNoise);
+  const p = parseAmplifier('amplifiers', amplifiers as NoiseParametersInput);
   return Array.from({ length: n }, () => p);
 }

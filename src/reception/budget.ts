@@ -6,8 +6,8 @@
 import { DimensionError, DomainError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
 import { assertFiniteCMatrix, assertSquare, assertPositive, describeValue } from '../internal/validate.js';
-import { K_BOLTZMANN_J_PER_K, T0_K } from '../units/constants.js';
-import { receiverNoiseCorrelation, type AmplifierNoise } from './amplifier.js';
+import { T0_K } from '../units/constants.js';
+import { receiverNoiseCorrelation } from './amplifier.js';
 import {
   aboveHorizon, brightnessCorrelations, brightnessValues, checkTemperature,
   type Brightness, type BrightnessOptions, type HorizonOrientation,
@@ -16,7 +16,8 @@ import {
   assertPatternSource, assertQuadrature, sampledPatternSource,
   type PortPatternSource, type QuadratureDirections, type SampledPortPatterns,
 } from './patterns.js';
-import { ohmicLossNoiseCorrelation, twissInto } from './thermal.js';
+import { ohmicLossNoiseCorrelation } from './thermal.js';
+import { thermalImpedanceNoise, type NoiseParametersInput } from '../network/noise.js';
 
 /**
  * The noise environment: a brightness distribution and which directions count
@@ -81,10 +82,25 @@ export function skyAndGroundEnvironment(options: SkyAndGroundEnvironmentOptions)
  * How the ohmic loss of the array is described.
  * @category Reception
  */
-export type LossModel =
-  | 'fromPatterns'
-  | 'lossless'
-  | { readonly radiationEfficiency: Float64Array };
+export type LossModel = 'fromPatterns' | 'lossless' | ElementEfficiencyLoss | LossResistance;
+
+/**
+ * Loss described by a loss resistance matrix.
+ * @category Reception
+ */
+export interface LossResistance {
+  /** Loss resistance matrix R_loss [Ω], N×N Hermitian positive semidefinite. */
+  readonly lossResistanceOhm: CMatrix;
+}
+
+/**
+ * Loss described by each element's own radiation efficiency (no mutual loss resistance).
+ * @category Reception
+ */
+export interface ElementEfficiencyLoss {
+  /** Radiation efficiency eₙ of each port's element, in (0, 1]. */
+  readonly radiationEfficiency: Float64Array;
+}
 
 /**
  * Inputs of {@link arrayNoiseBudget}.
@@ -100,7 +116,7 @@ export interface NoiseBudgetInput {
   /** External noise environment. */
   readonly environment: NoiseEnvironment;
   /** Amplifier noise parameters (one shared set or one per port). @defaultValue noiseless receivers */
-  readonly amplifiers?: AmplifierNoise | ReadonlyArray<AmplifierNoise>;
+  readonly amplifiers?: NoiseParametersInput | ReadonlyArray<NoiseParametersInput>;
   /** Physical temperature of the array structure [K]. @defaultValue T0 = 290 K */
   readonly physicalTemperatureK?: number;
   /** Bandwidth B [Hz], > 0. */
@@ -204,13 +220,14 @@ export function arrayNoiseBudget(input: NoiseBudgetInput): NoiseBudget {
     src, q, [tSky, tGround, oneSky, oneGround], b, input.blockOptions ?? {},
   );
   const radiationPerK = { rows: n, cols: n, data: skyRegionPerK.data.map((v, k) => v + groundRegionPerK.data[k]) };
-  const isotropicPerK = twissInto(new Float64Array(2 * n * n), z, 2 * K_BOLTZMANN_J_PER_K * b);
+  const isotropicPerK = thermalImpedanceNoise(z, 1, b);
   const lossModel = input.loss ?? 'fromPatterns';
   let loss: CMatrix;
   if (lossModel === 'lossless') loss = { rows: n, cols: n, data: new Float64Array(2 * n * n) };
   else if (lossModel === 'fromPatterns') loss = ohmicLossNoiseCorrelation(z, tPhys, b, { isotropicRadiationPerK: radiationPerK });
+  else if (lossModel !== null && typeof lossModel === 'object' && 'lossResistanceOhm' in lossModel) loss = ohmicLossNoiseCorrelation(z, tPhys, b, { lossResistanceOhm: lossModel.lossResistanceOhm });
   else if (lossModel !== null && typeof lossModel === 'object') loss = ohmicLossNoiseCorrelation(z, tPhys, b, { radiationEfficiency: lossModel.radiationEfficiency });
-  else throw new DomainError(`invalid argument "input.loss": expected 'fromPatterns', 'lossless' or {radiationEfficiency}, received ${describeValue(lossModel)}.`);
+  else throw new DomainError(`invalid argument "input.loss": expected 'fromPatterns', 'lossless', {radiationEfficiency} or {lossResistanceOhm}, received ${describeValue(lossModel)}.`);
   const receiver = input.amplifiers === undefined
     ? { rows: n, cols: n, data: new Float64Array(2 * n * n) }
     : receiverNoiseCorrelation(z, input.amplifiers, b);

@@ -8,7 +8,7 @@ import type { CMatrix, ComplexLike } from '../linalg/cmatrix.js';
 import { complexParts } from '../linalg/cmatrix.js';
 import { assertPositive, describeValue } from '../internal/validate.js';
 import type { SphereQuadrature } from '../geometry/quadrature.js';
-import type { AmplifierNoise } from './amplifier.js';
+import type { NoiseParametersInput } from '../network/noise.js';
 import { arrayNoiseBudget, type LossModel, type NoiseBudget, type NoiseEnvironment } from './budget.js';
 import {
   embeddedElementEfficiencies, minimumReceiverTemperature, scanSweep, type BeamFigures,
@@ -32,6 +32,32 @@ export interface ArrayPorts {
 }
 
 /**
+ * Beam directions, one beam per entry.
+ * @category Reception
+ */
+export interface BeamDirections {
+  /** Polar angles from +z [rad]. */
+  readonly thetaRad: Float64Array;
+  /** Azimuths from +x toward +y [rad], same length. */
+  readonly phiRad: Float64Array;
+}
+
+/**
+ * Wall-clock time of the stages of {@link evaluateReceivingArray} [ms].
+ * @category Reception
+ */
+export interface EvaluationTimings {
+  /** Noise budget (brightness integrals, loss, receiver noise) [ms]. */
+  readonly noiseBudget: number;
+  /** Patterns at the beam directions [ms]. */
+  readonly beamPatterns: number;
+  /** Weights and per-beam figures [ms]. */
+  readonly weightsAndFigures: number;
+  /** Minimum receiver temperature and embedded element efficiencies [ms]. */
+  readonly arrayFigures: number;
+}
+
+/**
  * Everything {@link evaluateReceivingArray} needs.
  * @category Reception
  */
@@ -45,7 +71,7 @@ export interface ReceivingArrayDescription {
   /** External noise environment. */
   readonly environment: NoiseEnvironment;
   /** Amplifier noise parameters. @defaultValue noiseless receivers */
-  readonly amplifiers?: AmplifierNoise | ReadonlyArray<AmplifierNoise>;
+  readonly amplifiers?: NoiseParametersInput | ReadonlyArray<NoiseParametersInput>;
   /** Terminations for the embedded element efficiency (amplifier input impedances) [Ω]. @defaultValue 50 Ω each (common practice) */
   readonly terminationOhm?: ComplexLike | ReadonlyArray<ComplexLike>;
   /** Physical temperature of the array [K]. @defaultValue 290 */
@@ -53,7 +79,7 @@ export interface ReceivingArrayDescription {
   /** Ohmic-loss model. @defaultValue 'fromPatterns' */
   readonly loss?: LossModel;
   /** Beam directions [rad]. */
-  readonly beams: { readonly thetaRad: Float64Array; readonly phiRad: Float64Array };
+  readonly beams: BeamDirections;
   /** Open-circuit weights, N×K. @defaultValue max-SNR weights for an unpolarized source */
   readonly weights?: CMatrix;
   /** Physical area for the aperture efficiency [m²]. */
@@ -82,7 +108,7 @@ export interface ReceivingArrayEvaluation {
   /** Unit of every figure, by field name of {@link BeamFigures}. */
   readonly units: Readonly<Record<keyof BeamFigures, string>>;
   /** Wall-clock time of the stages [ms]. */
-  readonly timingsMs: { readonly noiseBudget: number; readonly beamPatterns: number; readonly weightsAndFigures: number; readonly arrayFigures: number };
+  readonly timingsMs: EvaluationTimings;
 }
 
 /** Units of the BeamFigures fields. */

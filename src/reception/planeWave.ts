@@ -27,10 +27,48 @@ import { assertSampledPatterns, type SampledPortPatterns } from './patterns.js';
  *   wave fully and the left-hand wave not at all.
  * @category Reception
  */
-export type IncidentPolarization =
-  | { readonly kind: 'thetaPhi'; readonly thetaComponentVPerM: ComplexLike; readonly phiComponentVPerM: ComplexLike }
-  | { readonly kind: 'ludwig3'; readonly coVPerM: ComplexLike; readonly crossVPerM: ComplexLike; readonly reference?: 'x' | 'y' }
-  | { readonly kind: 'circular'; readonly hand: 'right' | 'left'; readonly amplitudeVPerM: ComplexLike };
+export type IncidentPolarization = ThetaPhiPolarization | Ludwig3Polarization | CircularPolarization;
+
+/**
+ * Incident field given by its θ̂ and φ̂ components at the origin.
+ * @category Reception
+ */
+export interface ThetaPhiPolarization {
+  /** Discriminant. */
+  readonly kind: 'thetaPhi';
+  /** E·θ̂ at the origin [V/m, RMS]. */
+  readonly thetaComponentVPerM: ComplexLike;
+  /** E·φ̂ at the origin [V/m, RMS]. */
+  readonly phiComponentVPerM: ComplexLike;
+}
+
+/**
+ * Incident field given by Ludwig-3 co- and cross-polar components.
+ * @category Reception
+ */
+export interface Ludwig3Polarization {
+  /** Discriminant. */
+  readonly kind: 'ludwig3';
+  /** Co-polar component [V/m, RMS]. */
+  readonly coVPerM: ComplexLike;
+  /** Cross-polar component [V/m, RMS]. */
+  readonly crossVPerM: ComplexLike;
+  /** Reference polarization direction. @defaultValue 'x' */
+  readonly reference?: 'x' | 'y';
+}
+
+/**
+ * Circularly polarized incident field.
+ * @category Reception
+ */
+export interface CircularPolarization {
+  /** Discriminant. */
+  readonly kind: 'circular';
+  /** Handedness with respect to the propagation direction. */
+  readonly hand: 'right' | 'left';
+  /** Amplitude a, |E| = |a| [V/m, RMS]. */
+  readonly amplitudeVPerM: ComplexLike;
+}
 
 /** @internal Parsed polarization: a function of φ giving [Eθre, Eθim, Eφre, Eφim]. */
 export type FieldAt = (phiRad: number, out: Float64Array) => void;

@@ -1,6 +1,6 @@
 /**
- * Thermal noise of passive networks (Twiss), radiation resistance matrices and
- * ohmic-loss noise.
+ * Ohmic-loss noise of an array: the part of the Twiss noise (network module,
+ * thermalImpedanceNoise) not accounted for by radiation.
  * @module
  */
 import { DimensionError, DomainError } from '../errors.js';
@@ -8,45 +8,7 @@ import type { CMatrix } from '../linalg/cmatrix.js';
 import { assertFiniteArray, assertFiniteCMatrix, assertPositive, assertSquare } from '../internal/validate.js';
 import { K_BOLTZMANN_J_PER_K } from '../units/constants.js';
 import { checkTemperature } from './brightness.js';
-
-/**
- * Open-circuit noise correlation of a passive network at uniform temperature T.
- *
- * @remarks
- * DESIGN, "thermal noise": E[v vᴴ] = 2 k_B T B (Z + Zᴴ) (R. Q. Twiss, "Nyquist's
- * and Thevenin's theorems generalized for nonreciprocal linear networks",
- * J. Appl. Phys. 26(5), 1955, from memory).
- * @param impedanceOhm - Impedance matrix Z [Ω], N×N.
- * @param temperatureK - Physical temperature T [K], ≥ 0.
- * @param bandwidthHz - Bandwidth B [Hz], > 0.
- * @returns 2 k_B T B (Z + Zᴴ) [V²], N×N Hermitian.
- * @throws {@link DimensionError} for a non-square Z; {@link DomainError} for a negative temperature or non-finite entries.
- * @example
- * ```ts
- * thermalNoiseCorrelation(fromRows([[50]]), 290, 1); // 4 k_B·290·50 ≈ 8.0e-19 V²
- * ```
- * @category Reception
- */
-export function thermalNoiseCorrelation(impedanceOhm: CMatrix, temperatureK: number, bandwidthHz: number): CMatrix {
-  assertSquare('impedanceOhm', impedanceOhm);
-  assertFiniteCMatrix('impedanceOhm', impedanceOhm);
-  checkTemperature('temperatureK', temperatureK);
-  assertPositive('bandwidthHz', bandwidthHz, 'Hz');
-  return twissInto(new Float64Array(2 * impedanceOhm.rows * impedanceOhm.rows), impedanceOhm, 2 * K_BOLTZMANN_J_PER_K * temperatureK * bandwidthHz);
-}
-
-/** @internal out = s·(Z + Zᴴ) as a CMatrix. No checks. */
-export function twissInto(out: Float64Array, z: CMatrix, s: number): CMatrix {
-  const n = z.rows, d = z.data;
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j < n; j++) {
-      const a = 2 * (i * n + j), b = 2 * (j * n + i);
-      out[a] = s * (d[a] + d[b]);
-      out[a + 1] = s * (d[a + 1] - d[b + 1]);
-    }
-  }
-  return { rows: n, cols: n, data: out };
-}
+import { thermalImpedanceNoise } from '../network/noise.js';
 
 /**
  * Options of {@link ohmicLossNoiseCorrelation}: give exactly one description of the radiation.
@@ -65,18 +27,26 @@ export interface OhmicLossOptions {
    * loss resistance (common practice for thin-wire elements).
    */
   radiationEfficiency?: Float64Array;
+  /**
+   * Loss resistance matrix R_loss [Ω], N×N Hermitian positive semidefinite
+   * (e.g. Re Z minus the radiation resistance matrix of a solver); the noise is
+   * 4 k_B T_phys B R_loss.
+   */
+  lossResistanceOhm?: CMatrix;
 }
 
 /**
  * Noise of the ohmic losses of an array at physical temperature T_phys, at the
- * open-circuit terminals.
+ * open-circuit terminals, from the pattern integral, from per-element radiation
+ * efficiencies, or from a loss resistance matrix.
  *
  * @remarks
  * The part of the Twiss matrix not accounted for by radiation:
  * R_loss = 2 k_B T_phys B (Z + Zᴴ) − T_phys·R_iso,1K, where R_iso,1K is the
  * isotropic brightness integral at 1 K (DESIGN, "brightness noise"); a
  * lossless array gives zero. With per-element radiation efficiencies eₙ
- * instead: R_loss = 4 k_B T_phys B diag((1 − eₙ) Re Zₙₙ). References: K. F.
+ * instead: R_loss = 4 k_B T_phys B diag((1 − eₙ) Re Zₙₙ); with a loss resistance
+ * matrix: 4 k_B T_phys B · herm(R_loss) (Twiss for the lossy part alone). References: K. F.
  * Warnick, B. Woestenburg, L. Belostotski, P. Russer, "Minimizing the noise
  * penalty due to mutual coupling in array antennas", IEEE Trans. Antennas
  * Propag. 57(7), 2009 (from memory).
@@ -98,11 +68,30 @@ export function ohmicLossNoiseCorrelation(
   assertPositive('bandwidthHz', bandwidthHz, 'Hz');
   const n = impedanceOhm.rows;
   const hasIso = options?.isotropicRadiationPerK !== undefined, hasEff = options?.radiationEfficiency !== undefined;
-  if (hasIso === hasEff) {
-    throw new DimensionError('invalid argument "options": give exactly one of isotropicRadiationPerK (an N×N matrix) or radiationEfficiency (N values).');
+  const hasRes = options?.lossResistanceOhm !== undefined;
+  if (Number(hasIso) + Number(hasEff) + Number(hasRes) !== 1) {
+    throw new DimensionError('invalid argument "options": give exactly one of isotropicRadiationPerK (an N×N matrix), radiationEfficiency (N values) or lossResistanceOhm (an N×N matrix).');
+  }
+  if (hasRes) {
+    const r = options.lossResistanceOhm as CMatrix;
+    assertSquare('options.lossResistanceOhm', r);
+    assertFiniteCMatrix('options.lossResistanceOhm', r);
+    if (r.rows !== n) {
+      throw new DimensionError(`invalid argument "options.lossResistanceOhm": expected ${n}×${n} (the size of "impedanceOhm"), received ${r.rows}×${r.cols}.`);
+    }
+    const c = 4 * K_BOLTZMANN_J_PER_K * physicalTemperatureK * bandwidthHz;
+    const data = new Float64Array(2 * n * n);
+    for (let i = 0; i < n; i++) {
+      for (let j = 0; j < n; j++) {
+        const a = 2 * (i * n + j), b = 2 * (j * n + i);
+        data[a] = 0.5 * c * (r.data[a] + r.data[b]);
+        data[a + 1] = 0.5 * c * (r.data[a + 1] - r.data[b + 1]);
+      }
+    }
+    return { rows: n, cols: n, data };
   }
   const s = 2 * K_BOLTZMANN_J_PER_K * physicalTemperatureK * bandwidthHz;
-  const out = twissInto(new Float64Array(2 * n * n), impedanceOhm, s);
+  const out = thermalImpedanceNoise(impedanceOhm, physicalTemperatureK, bandwidthHz);
   if (hasIso) {
     const r = options.isotropicRadiationPerK as CMatrix;
     assertSquare('options.isotropicRadiationPerK', r);

@@ -2,7 +2,8 @@ import { describe, it, expect } from 'vitest';
 import { DimensionError, DomainError } from '../../src/errors.js';
 import { fromRows } from '../../src/linalg/cmatrix.js';
 import { K_BOLTZMANN_J_PER_K, T0_K } from '../../src/units/constants.js';
-import { amplifierNoiseTemperature, receiverNoiseCorrelation, type AmplifierNoise } from '../../src/reception/amplifier.js';
+import { receiverNoiseCorrelation } from '../../src/reception/amplifier.js';
+import { noiseTemperatureK as amplifierNoiseTemperature, type NoiseParametersInput as AmplifierNoise } from '../../src/network/noise.js';
 import { isHermitian } from '../../src/linalg/ops.js';
 import { seededRandom, randomMatrix } from '../helpers/matchers.js';
 
@@ -13,23 +14,6 @@ function randomAmplifier(rnd: () => number): AmplifierNoise {
   const tMin = 4 * T0_K * rn * yr * rnd();
   return { minimumNoiseTemperatureK: tMin, noiseResistanceOhm: rn, optimumSourceAdmittanceS: { re: yr, im: yi } };
 }
-
-describe('amplifierNoiseTemperature', () => {
-  it('equals T_min at Y_s = Y_opt and grows as T0·R_n·|ΔY|²/G_s', () => {
-    // H. Rothe, W. Dahlke, Proc. IRE 44(6), 1956 (from memory): T = T_min + T0 R_n |Y_s − Y_opt|²/G_s.
-    const a: AmplifierNoise = { minimumNoiseTemperatureK: 20, noiseResistanceOhm: 5, optimumSourceAdmittanceS: { re: 0.02, im: 0.01 } };
-    expect(amplifierNoiseTemperature(a, { re: 0.02, im: 0.01 })).toBeCloseTo(20, 12);
-    // Y_s = 1/50 S real: |ΔY|² = 0.01² → 20 + 290·5·1e-4/0.02 = 27.25 K
-    expect(amplifierNoiseTemperature(a, 0.02)).toBeCloseTo(27.25, 10);
-  });
-  it('rejects non-physical parameters T_min > 4 T0 R_n Re Y_opt', () => {
-    const bad = { minimumNoiseTemperatureK: 4 * T0_K * 5 * 0.02 * 1.01, noiseResistanceOhm: 5, optimumSourceAdmittanceS: 0.02 };
-    expect(() => amplifierNoiseTemperature(bad, 0.02)).toThrow(DomainError);
-    expect(() => amplifierNoiseTemperature({ ...bad, minimumNoiseTemperatureK: -1 }, 0.02)).toThrow(DomainError);
-    expect(() => amplifierNoiseTemperature({ ...bad, minimumNoiseTemperatureK: 1, optimumSourceAdmittanceS: -0.02 }, 0.02)).toThrow(DomainError);
-    expect(() => amplifierNoiseTemperature({ ...bad, minimumNoiseTemperatureK: 1 }, { re: 0, im: 0.01 })).toThrow(DomainError);
-  });
-});
 
 describe('receiverNoiseCorrelation', () => {
   it('N = 1 reduces to the one-amplifier formula at 500 random points', () => {
@@ -83,5 +67,11 @@ describe('receiverNoiseCorrelation', () => {
     expect(() => receiverNoiseCorrelation(fromRows([[50, 1]]), amp, 1)).toThrow(DimensionError);
     expect(() => receiverNoiseCorrelation(z, { ...amp, minimumNoiseTemperatureK: 1000 }, 1)).toThrow(DomainError);
     expect(() => receiverNoiseCorrelation(z, amp, 0)).toThrow(DomainError);
+    // physical realizability T_min ≤ 4 T0 R_n Re Y_opt (PSD noise correlation)
+    const edge = { minimumNoiseTemperatureK: 4 * T0_K * 8 * 0.02, noiseResistanceOhm: 8, optimumSourceAdmittanceS: 0.02 };
+    expect(() => receiverNoiseCorrelation(z, edge, 1)).not.toThrow();
+    expect(() => receiverNoiseCorrelation(z, { ...edge, minimumNoiseTemperatureK: edge.minimumNoiseTemperatureK * 1.001 }, 1)).toThrow(DomainError);
+    expect(() => receiverNoiseCorrelation(z, { ...edge, minimumNoiseTemperatureK: -1 }, 1)).toThrow(DomainError);
+    expect(() => receiverNoiseCorrelation(z, { ...edge, optimumSourceAdmittanceS: -0.02 }, 1)).toThrow(DomainError);
   });
 });

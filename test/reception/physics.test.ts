@@ -8,10 +8,14 @@ import { wavelengthM } from '../../src/units/convert.js';
 import {
   arrayNoiseBudget, beamFigures, brightnessCorrelation, brightnessCorrelations, embeddedElementEfficiencies,
   isotropicBrightness, isotropicEnvironment, maxSnrWeightsUnpolarized, minimumReceiverTemperature, openCircuitVoltages,
-  pointSourceCorrelation, quadratureDirections, samplePatterns, scanSweep, skyAndGroundEnvironment, thermalNoiseCorrelation,
-  amplifierNoiseTemperature, type AmplifierNoise,
+  pointSourceCorrelation, quadratureDirections, samplePatterns, sampledPatternSource, scanSweep, skyAndGroundEnvironment, ohmicLossNoiseCorrelation,
 } from '../../src/reception/index.js';
+import {
+  noiseTemperatureK as amplifierNoiseTemperature, thermalImpedanceNoise as thermalNoiseCorrelation, type NoiseParametersInput as AmplifierNoise,
+} from '../../src/network/noise.js';
 import { expectCMatrixClose } from '../helpers/matchers.js';
+import { maxSnrWeightsForCorrelation } from '../../src/beamform/projection.js';
+import { quadraticForm } from '../../src/linalg/ops.js';
 import { hertzianResistance, hertzianSource } from './hertzian.js';
 
 const f = 1e9, lambda = wavelengthM(f), L = lambda / 50;
@@ -58,6 +62,18 @@ describe('brightness integral', () => {
       }
     }
     expectCMatrixClose(a, { rows: n, cols: n, data: direct }, { rtol: 1e-7 }); // η0 rounded to 12 digits above
+  });
+  it('sampled patterns: exact lookup by direction (φ modulo 2π), never interpolated', () => {
+    const src = hertzianSource([[0, 0], [0.3 * lambda, 0.1 * lambda]], L, f);
+    const q = quadratureDirections(sphereQuadrature(6, 8));
+    const samples = samplePatterns(src, q.thetaRad, q.phiRad);
+    const wrapped = sampledPatternSource(samples);
+    const th = Float64Array.of(q.thetaRad[9], q.thetaRad[3]), ph = Float64Array.of(q.phiRad[9] + 2 * Math.PI, q.phiRad[3] - 2 * Math.PI);
+    const a = samplePatterns(wrapped, th, ph), b = samplePatterns(src, th, ph);
+    expectCMatrixClose(a.thetaComponentV, b.thetaComponentV, { rtol: 1e-12 });
+    expect(() => samplePatterns(wrapped, Float64Array.of(0.123), Float64Array.of(0))).toThrow(DomainError);
+    // the same brightness integral through the samples and through the source
+    expectCMatrixClose(brightnessCorrelation(samples, q, () => 20, 1), brightnessCorrelation(src, q, () => 20, 1), { rtol: 1e-14 });
   });
   it('typed errors: mismatched grids, negative temperatures, wrong map length', () => {
     const src = hertzianSource([[0, 0]], L, f);
@@ -199,6 +215,32 @@ describe('noise decomposition and efficiencies', () => {
       // coupled beams need not stay between the element efficiencies, but a passive lossy array has 0 < η_rad < 1
       expect(g.radiationEfficiency).toBeGreaterThan(0.5);
       expect(g.radiationEfficiency).toBeLessThan(1);
+    }
+  });
+  it('three loss descriptions agree: Twiss − pattern integral, element efficiencies, loss resistance matrix', () => {
+    // Twiss for the lossy part alone; R_loss,nn = (1 − eₙ) Re Z'ₙₙ by construction of zLossy.
+    const rl = { rows: 4, cols: 4, data: new Float64Array(32) };
+    for (let i = 0; i < 4; i++) rl.data[2 * (i * 4 + i)] = (1 - eff[i]) * zLossy.data[2 * (i * 4 + i)];
+    const q = quadratureDirections(sphereQuadrature(40, 80));
+    const rad = brightnessCorrelation(src, q, isotropicBrightness(1), 1);
+    const a = ohmicLossNoiseCorrelation(zLossy, 295, 1, { isotropicRadiationPerK: rad });
+    const b = ohmicLossNoiseCorrelation(zLossy, 295, 1, { radiationEfficiency: eff });
+    const c = ohmicLossNoiseCorrelation(zLossy, 295, 1, { lossResistanceOhm: rl });
+    expectCMatrixClose(a, b, { rtol: 1e-9 });
+    expectCMatrixClose(c, b, { rtol: 1e-14 });
+    expect(() => ohmicLossNoiseCorrelation(zLossy, 295, 1, { radiationEfficiency: eff, lossResistanceOhm: rl })).toThrow(DimensionError);
+    expect(() => ohmicLossNoiseCorrelation(zLossy, 295, 1, { radiationEfficiency: Float64Array.of(1.2, 1, 1, 1) })).toThrow(DomainError);
+    expect(() => ohmicLossNoiseCorrelation(zLossy, -1, 1, { lossResistanceOhm: rl })).toThrow(DomainError);
+  });
+  it('batched rank-2 max-SNR weights reach the SNR of the generic generalized-eigenvector beamformer', () => {
+    // Cross-check against the beamform module's any-rank max-SNR (principal generalized eigenvector).
+    const w = maxSnrWeightsUnpolarized(budget.total, beams);
+    for (let k = 0; k < 2; k++) {
+      const rs = pointSourceCorrelation(beams, k, { fluxDensityWPerM2Hz: 1e-24, bandwidthHz: 1 });
+      const ref = maxSnrWeightsForCorrelation(rs, budget.total);
+      const wk = { rows: 4, cols: 1, data: Float64Array.from({ length: 8 }, (_, q) => w.data[2 * ((q >> 1) * 2 + k) + (q & 1)]) };
+      const snr = quadraticForm(wk, rs) / quadraticForm(wk, budget.total);
+      expect(Math.abs(snr / ref.snr - 1)).toBeLessThan(1e-9);
     }
   });
   it('T_rec,min ≤ T_rec of every beam; N = 1 gives the one-amplifier temperature', () => {

@@ -1,0 +1,101 @@
+#!/usr/bin/env node
+/**
+ * The `phasewise` command line. Exit codes: 0 success, 2 bad input (with a
+ * message naming the problem), 1 internal failure. Never evaluates input as
+ * code; writes only inside the chosen output folder.
+ * @internal
+ * @module
+ */
+import { Command, CommanderError, InvalidArgumentError, Option } from 'commander';
+import { UsageError, exitCodeFor } from './errors.js';
+import { TAPER_KINDS, formatTaper, runTaper } from './commands/taper.js';
+import { formatSpacing, runSpacing } from './commands/spacing.js';
+import { formatYFactor, runYFactor } from './commands/yfactor.js';
+
+function numberArg(name: string, opts: { integer?: boolean; min?: number; max?: number } = {}) {
+  return (value: string): number => {
+    const v = Number(value);
+    if (value.trim() === '' || !Number.isFinite(v) || (opts.integer && !Number.isInteger(v)) || (opts.min !== undefined && v < opts.min) || (opts.max !== undefined && v > opts.max)) {
+      const range = [opts.integer ? 'an integer' : 'a number', opts.min !== undefined ? `≥ ${opts.min}` : '', opts.max !== undefined ? `≤ ${opts.max}` : ''].filter(Boolean).join(' ');
+      throw new InvalidArgumentError(`${name} must be ${range}, received "${value}".`);
+    }
+    return v;
+  };
+}
+
+/** Builds the program; `io` receives standard output text. @internal */
+export function buildProgram(io: { out: (s: string) => void; err: (s: string) => void }): Command {
+  const program = new Command('phasewise')
+    .description('Receiving phased-array calculators and design-file evaluation (phasewise).')
+    .exitOverride()
+    .configureOutput({ writeOut: io.out, writeErr: io.err })
+    .showHelpAfterError(false);
+
+  program.command('taper')
+    .description('Weights and pattern figures of a line-array taper at broadside.')
+    .addOption(new Option('--kind <kind>', 'taper family').choices([...TAPER_KINDS]).makeOptionMandatory())
+    .requiredOption('--elements <n>', 'number of elements', numberArg('--elements', { integer: true, min: 1, max: 100000 }))
+    .option('--sidelobe-db <dB>', 'design sidelobe level, positive dB below the peak (dolph-chebyshev, taylor)', numberArg('--sidelobe-db', { min: 0 }))
+    .option('--nbar <n>', 'Taylor n̄', numberArg('--nbar', { integer: true, min: 1 }), 5)
+    .option('--pedestal <p>', 'pedestal of the cosine tapers (0–1)', numberArg('--pedestal', { min: 0, max: 1 }))
+    .option('--spacing-wavelengths <d>', 'element spacing for the pattern figures [λ]', numberArg('--spacing-wavelengths', { min: 1e-6 }), 0.5)
+    .option('--json', 'print JSON instead of tables')
+    .addHelpText('after', '\nExample:\n  phasewise taper --kind dolph-chebyshev --elements 16 --sidelobe-db 30')
+    .action((o) => {
+      const r = runTaper({ kind: o.kind, elements: o.elements, sidelobeDb: o.sidelobeDb, nbar: o.nbar, pedestal: o.pedestal, spacingWavelengths: o.spacingWavelengths });
+      io.out((o.json ? JSON.stringify(r, null, 2) : formatTaper(r)) + '\n');
+    });
+
+  program.command('spacing')
+    .description('Largest element spacing free of grating lobes over a scan cone (square and triangular lattices).')
+    .requiredOption('--scan-deg <deg>', 'scan-cone half-angle from broadside [deg]', numberArg('--scan-deg', { min: 0, max: 90 }))
+    .requiredOption('--frequency-hz <f>', 'highest operating frequency [Hz]', numberArg('--frequency-hz', { min: 1 }))
+    .option('--json', 'print JSON instead of tables')
+    .addHelpText('after', '\nExample:\n  phasewise spacing --scan-deg 40 --frequency-hz 2.25e9')
+    .action((o) => {
+      const r = runSpacing(o.scanDeg, o.frequencyHz);
+      io.out((o.json ? JSON.stringify(r, null, 2) : formatSpacing(r)) + '\n');
+    });
+
+  program.command('yfactor')
+    .description('Receiver noise temperature per channel from a hot/cold CSV table (columns channel, hot, cold).')
+    .argument('<table.csv>', 'measurement table')
+    .requiredOption('--hot-k <K>', 'hot-load noise temperature [K]', numberArg('--hot-k', { min: 0 }))
+    .requiredOption('--cold-k <K>', 'cold-load noise temperature [K]', numberArg('--cold-k', { min: 0 }))
+    .option('--db', 'the power columns are in dB')
+    .option('--json', 'print JSON instead of tables')
+    .addHelpText('after', '\nExample:\n  phasewise yfactor bench.csv --hot-k 295 --cold-k 77')
+    .action((file: string, o) => {
+      const rows = runYFactor(file, o.hotK, o.coldK, Boolean(o.db));
+      io.out((o.json ? JSON.stringify(rows, null, 2) : formatYFactor(rows, o.hotK, o.coldK)) + '\n');
+    });
+
+  return program;
+}
+
+/** Runs the command line with `argv` (without node and script); returns the exit code. @internal */
+export async function runCli(argv: readonly string[], io = { out: (s: string) => void process.stdout.write(s), err: (s: string) => void process.stderr.write(s) }): Promise<number> {
+  const program = buildProgram(io);
+  try {
+    await program.parseAsync([...argv], { from: 'user' });
+    return 0;
+  } catch (e) {
+    if (e instanceof CommanderError) {
+      if (e.code === 'commander.helpDisplayed' || e.code === 'commander.version' || e.exitCode === 0) return 0;
+      if (e.code === 'commander.help') return 0;
+      return 2; // commander already printed its message
+    }
+    const code = exitCodeFor(e);
+    const msg = e instanceof Error ? e.message : String(e);
+    io.err(`phasewise: ${code === 2 ? 'error' : 'internal error'}: ${msg}\n`);
+    if (code === 1 && e instanceof Error && e.stack) io.err(e.stack + '\n');
+    return code;
+  }
+}
+
+const invokedDirectly = typeof process !== 'undefined' && Array.isArray(process.argv) && /(?:^|[\\/])(?:main\.ts|cli\.(?:c?js))$/.test(process.argv[1] ?? '');
+if (invokedDirectly) {
+  runCli(process.argv.slice(2)).then((code) => { process.exitCode = code; }, () => { process.exitCode = 1; });
+}
+
+export { UsageError };
