@@ -353,3 +353,31 @@ function evaluateFullGrid(plan: ArrayFactorPlan, work: KernelWork, directions: F
     }
   }
 }
+
+/**
+ * Plain path for a direction r̂ₘ and its antipode −r̂ₘ at once: exp(−j k r̂·rₙ) is the
+ * conjugate of exp(j k r̂·rₙ), so one cos/sin pair per element serves both sums.
+ * Writes AF(r̂ₘ) to out[2m…] and AF(−r̂ₘ) to out[2mAnti…].
+ */
+export function evaluatePlainWithAntipode(
+  plan: ArrayFactorPlan, work: KernelWork, directions: Float64Array, k: number, out: Float64Array, m: number, mAnti: number,
+): void {
+  const { cwRe, cwIm } = work;
+  const p = plan.positions, n = plan.count;
+  const ux = k * directions[3 * m], uy = k * directions[3 * m + 1], uz = k * directions[3 * m + 2];
+  let ar = 0, ai = 0, br = 0, bi = 0;
+  for (let g = 0; g < n; g++) {
+    const ph = ux * p[3 * g] + uy * p[3 * g + 1] + uz * p[3 * g + 2];
+    const c = Math.cos(ph), s = Math.sin(ph);
+    const wr = cwRe[g], wi = cwIm[g];
+    const wrc = wr * c, wis = wi * s, wrs = wr * s, wic = wi * c;
+    ar += wrc - wis;
+    ai += wrs + wic;
+    br += wrc + wis;
+    bi += wic - wrs;
+  }
+  out[2 * m] = ar;
+  out[2 * m + 1] = ai;
+  out[2 * mAnti] = br;
+  out[2 * mAnti + 1] = bi;
+}
