@@ -7,6 +7,10 @@
  * @module
  */
 import { gemmKernel } from './gemm.js';
+import { simdSolveTriangular } from './triangular-wasm.js';
+
+/** Right-hand sides and order from which the SIMD substitution is used (below it the blocked scalar code). */
+const SIMD_MIN_RHS = 4, SIMD_MIN_ORDER = 4;
 
 /** Column-panel width (complex entries) for the many-right-hand-side solves. */
 const PANEL = 64;
@@ -34,6 +38,7 @@ const BLOCK = 16;
  * Computations*, 4th ed., 2013, §3.1.6, from memory).
  */
 export function solveLowerInPlace(n: number, nrhs: number, t: Float64Array, x: Float64Array, unitDiagonal: boolean): void {
+  if (nrhs >= SIMD_MIN_RHS && n >= SIMD_MIN_ORDER && simdSolveTriangular(true, n, nrhs, t, x, unitDiagonal)) return;
   for (let b0 = 0; b0 < n; b0 += BLOCK) {
     const nb = Math.min(BLOCK, n - b0);
     // X[b0:b0+nb] −= T[b0:b0+nb, 0:b0] · X[0:b0]
@@ -54,6 +59,7 @@ export function solveLowerInPlace(n: number, nrhs: number, t: Float64Array, x: F
  * Blocked from the bottom up like {@link solveLowerInPlace}.
  */
 export function solveUpperInPlace(n: number, nrhs: number, t: Float64Array, x: Float64Array, unitDiagonal: boolean): void {
+  if (nrhs >= SIMD_MIN_RHS && n >= SIMD_MIN_ORDER && simdSolveTriangular(false, n, nrhs, t, x, unitDiagonal)) return;
   for (let e0 = n; e0 > 0; e0 -= BLOCK) {
     const b0 = Math.max(0, e0 - BLOCK), nb = e0 - b0;
     // X[b0:e0] −= T[b0:e0, e0:n] · X[e0:n]

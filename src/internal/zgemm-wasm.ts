@@ -14,23 +14,23 @@ import { I32, OP, SIMD, V128, c32, functionBody, get, set, simd, uleb, vload, vs
 export const SIMD_UNROLL = 3;
 
 /**
- * zgemm(m, n, k, pa, lda, pbr, pbi, pcr, pci): for i < m, p < k (k a multiple
- * of SIMD_UNROLL), j < n (n even): Cre/Cim[i, j] += A[i, p]·B[p, j]. A
- * interleaved complex with a row stride of `lda` bytes; B and C as separate
- * real/imaginary planes, row stride n·8 bytes. Per step: two columns (one
- * f64x2 vector) and SIMD_UNROLL values of p, with C loaded and stored once:
+ * zgemm(m, n, k, pa, lda, pbr, pbi, ldb, pcr, pci, ldc), built for an unroll
+ * U: for i < m, p < k (k a multiple of U), j < n (n even):
+ * Cre/Cim[i, j] += A[i, p]·B[p, j]. A interleaved complex with a row stride
+ * of `lda` bytes; B and C as separate real/imaginary planes with row strides
+ * `ldb` and `ldc` bytes. Per step: two columns (one f64x2 vector) and U
+ * values of p, with C loaded and stored once:
  *   cr += Σᵤ (arᵤ·brᵤ − aiᵤ·biᵤ),  ci += Σᵤ (arᵤ·biᵤ + aiᵤ·brᵤ).
  */
-function zgemmBody(): number[] {
-  const U = SIMD_UNROLL;
-  // params 0..8
-  const M = 0, N = 1, K = 2, PA = 3, LDA = 4, PBR = 5, PBI = 6, PCR = 7, PCI = 8;
-  // i32 locals 9..(17+U)
-  const I = 9, P = 10, O = 11, ROW = 12, CRR = 13, CRI = 14, B0R = 15, B0I = 16, AP = 17;
-  const RU = (u: number): number => 18 + u; // u·ROW, u = 0 … U−1
+export function zgemmBody(U: number): number[] {
+  // params 0..10
+  const M = 0, N = 1, K = 2, PA = 3, LDA = 4, PBR = 5, PBI = 6, LDB = 7, PCR = 8, PCI = 9, LDC = 10;
+  // i32 locals 11..(19+U)
+  const I = 11, P = 12, O = 13, ROW = 14, CRR = 15, CRI = 16, B0R = 17, B0I = 18, AP = 19;
+  const RU = (u: number): number => 20 + u; // u·LDB, u = 0 … U−1
   const nI32 = 9 + U;
   // v128 locals: AR, AI, XR, XI per u
-  const V0 = 9 + nI32;
+  const V0 = 11 + nI32;
   const AR = (u: number): number => V0 + u, AI = (u: number): number => V0 + U + u;
   const XR = (u: number): number => V0 + 2 * U + u, XI = (u: number): number => V0 + 3 * U + u;
   const addr = (base: number): number[] => [...get(base), ...get(O), OP.i32Add];
@@ -40,19 +40,19 @@ function zgemmBody(): number[] {
   const perU = (f: (u: number) => number[]): number[] => Array.from({ length: U }, (_, u) => f(u)).flat();
   const code: number[] = [
     ...get(N), ...c32(3), OP.i32Shl, ...set(ROW),
-    ...perU((u) => [...get(ROW), ...c32(u), OP.i32Mul, ...set(RU(u))]),
+    ...perU((u) => [...get(LDB), ...c32(u), OP.i32Mul, ...set(RU(u))]),
     ...c32(0), ...set(I),
     OP.block, 0x40, OP.loop, 0x40,
     ...get(I), ...get(M), OP.i32GeU, OP.brIf, 1,
-    ...get(PCR), ...get(I), ...get(ROW), OP.i32Mul, OP.i32Add, ...set(CRR),
-    ...get(PCI), ...get(I), ...get(ROW), OP.i32Mul, OP.i32Add, ...set(CRI),
+    ...get(PCR), ...get(I), ...get(LDC), OP.i32Mul, OP.i32Add, ...set(CRR),
+    ...get(PCI), ...get(I), ...get(LDC), OP.i32Mul, OP.i32Add, ...set(CRI),
     ...get(PA), ...get(I), ...get(LDA), OP.i32Mul, OP.i32Add, ...set(AP),
     ...c32(0), ...set(P),
     OP.block, 0x40, OP.loop, 0x40,
     ...get(P), ...get(K), OP.i32GeU, OP.brIf, 1,
     ...perU((u) => [...splatF64(16 * u), ...set(AR(u)), ...splatF64(16 * u + 8), ...set(AI(u))]),
-    ...get(PBR), ...get(P), ...get(ROW), OP.i32Mul, OP.i32Add, ...set(B0R),
-    ...get(PBI), ...get(P), ...get(ROW), OP.i32Mul, OP.i32Add, ...set(B0I),
+    ...get(PBR), ...get(P), ...get(LDB), OP.i32Mul, OP.i32Add, ...set(B0R),
+    ...get(PBI), ...get(P), ...get(LDB), OP.i32Mul, OP.i32Add, ...set(B0I),
     ...c32(0), ...set(O),
     OP.block, 0x40, OP.loop, 0x40,
     ...get(O), ...get(ROW), OP.i32GeU, OP.brIf, 1,
@@ -81,12 +81,22 @@ function zgemmBody(): number[] {
   return functionBody([[nI32, I32], [4 * U, V128]], code);
 }
 
-interface ZgemmModule {
+/** Raw exports of the product module (byte addresses into `memory`). */
+export interface ZgemmModule {
   memory: WebAssembly.Memory;
-  zgemm: (m: number, n: number, k: number, pa: number, lda: number, pbr: number, pbi: number, pcr: number, pci: number) => void;
+  /** The kernel with unroll SIMD_UNROLL (k a multiple of it). */
+  zgemm: (m: number, n: number, k: number, pa: number, lda: number, pbr: number, pbi: number, ldb: number, pcr: number, pci: number, ldc: number) => void;
+  /** The same kernel with unroll 1 (any k), for remainders. */
+  zgemm1: (m: number, n: number, k: number, pa: number, lda: number, pbr: number, pbi: number, ldb: number, pcr: number, pci: number, ldc: number) => void;
 }
 
-const load = lazyModule<ZgemmModule>(() => [{ name: 'zgemm', params: 9, body: zgemmBody() }]);
+/** The product module, or null when WebAssembly SIMD is unavailable or switched off. */
+export const loadZgemm = lazyModule<ZgemmModule>(() => [
+  { name: 'zgemm', params: 11, body: zgemmBody(SIMD_UNROLL) },
+  { name: 'zgemm1', params: 11, body: zgemmBody(1) },
+]);
+const load = loadZgemm;
+
 
 /** Whether the SIMD kernel is available in this runtime. */
 export function simdGemmAvailable(): boolean {
@@ -145,7 +155,7 @@ export function simdGemm(
   const step = panelRows(nPad);
   for (let p0 = 0; p0 < kPad; p0 += step) {
     const kb = Math.min(step, kPad - p0);
-    mod.zgemm(m, nPad, kb, pa + p0 * 16, kPad * 16, pbr + p0 * nPad * 8, pbi + p0 * nPad * 8, pcr, pci);
+    mod.zgemm(m, nPad, kb, pa + p0 * 16, kPad * 16, pbr + p0 * nPad * 8, pbi + p0 * nPad * 8, nPad * 8, pcr, pci, nPad * 8);
   }
   const cr = pcr >> 3, ci = pci >> 3;
   for (let i = 0; i < m; i++) {
