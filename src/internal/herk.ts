@@ -3,6 +3,11 @@
  * @internal
  * @module
  */
+import { ensureMemory } from './wasm-assembler.js';
+import { loadZtile } from './ztile-wasm.js';
+
+/** Order and rank from which the SIMD path is used. */
+const HERK_SIMD_MIN = 8;
 
 /**
  * Lower triangle (j ≤ i, diagonal included) of C[n×n] += G[n×k]·G[n×k]ᴴ, i.e.
@@ -15,6 +20,55 @@
  * entries feeds two multiply–adds (register blocking).
  */
 export function herkLowerKernel(n: number, k: number, g: Float64Array, ldg: number, c: Float64Array): void {
+  if (n >= HERK_SIMD_MIN && k >= HERK_SIMD_MIN && simdHerkLower(n, k, g, ldg, c)) return;
+  herkLowerScalarKernel(n, k, g, ldg, c);
+}
+
+/**
+ * The same update on the register-tiled WebAssembly SIMD kernel (ztile): G
+ * is copied as the left operand and Gᴴ packed in four-column panels as the
+ * right operand; rows [i0, i0+4) of C are formed against columns [0, i0+4)
+ * only, so just the lower triangle (in 4×4 granules) is computed, then the
+ * lower triangle is added to `c` (real part only on the diagonal). Returns
+ * false (doing nothing) when WebAssembly SIMD is unavailable.
+ */
+export function simdHerkLower(n: number, k: number, g: Float64Array, ldg: number, c: Float64Array): boolean {
+  const mod = loadZtile();
+  if (mod === null) return false;
+  const n4 = (n + 3) & ~3;
+  // layout (bytes): A (n4·k·16) | B panels (n4·k·16) | Cre (n4·n4·8) | Cim
+  const abytes = n4 * k * 16, cBytes = n4 * n4 * 8;
+  const f = ensureMemory(mod.memory, 2 * abytes + 2 * cBytes);
+  const pb = abytes, pcr = 2 * abytes, pci = pcr + cBytes;
+  const b0 = pb >> 3, cr = pcr >> 3, ci = pci >> 3;
+  for (let i = 0; i < n; i++) {
+    const s = 2 * i * ldg;
+    f.set(g.subarray(s, s + 2 * k), 2 * i * k);
+    // Gᴴ[p, i] = conj(G[i, p]) into column i&3 of panel i>>2
+    const q = b0 + (i >> 2) * k * 8 + (i & 3);
+    for (let p = 0; p < k; p++) { f[q + 8 * p] = g[s + 2 * p]; f[q + 8 * p + 4] = -g[s + 2 * p + 1]; }
+  }
+  if (n4 !== n) {
+    f.fill(0, 2 * n * k, 2 * n4 * k);
+    for (let i = n; i < n4; i++) {
+      const q = b0 + (i >> 2) * k * 8 + (i & 3);
+      for (let p = 0; p < k; p++) { f[q + 8 * p] = 0; f[q + 8 * p + 4] = 0; }
+    }
+  }
+  f.fill(0, cr, ci + n4 * n4);
+  const ld = n4 * 8;
+  // rows [i0, i0+4) against columns [0, i0+4): the lower triangle in 4×4 granules
+  for (let i0 = 0; i0 < n4; i0 += 4) mod.ztile(4, i0 + 4, k, i0 * k * 16, k * 16, pb, pcr + i0 * ld, pci + i0 * ld, ld);
+  for (let i = 0; i < n; i++) {
+    const d = 2 * i * n, s = i * n4;
+    for (let j = 0; j < i; j++) { c[d + 2 * j] += f[cr + s + j]; c[d + 2 * j + 1] += f[ci + s + j]; }
+    c[d + 2 * i] += f[cr + s + i];
+  }
+  return true;
+}
+
+/** The scalar loop of {@link herkLowerKernel} (same contract), used for small updates and as fallback. */
+export function herkLowerScalarKernel(n: number, k: number, g: Float64Array, ldg: number, c: Float64Array): void {
   const k2 = 2 * k;
   let i = 0;
   for (; i + 1 < n; i += 2) {

@@ -19,10 +19,10 @@ export const OP = {
   block: 0x02, loop: 0x03, end: 0x0b, br: 0x0c, brIf: 0x0d,
   get: 0x20, set: 0x21, tee: 0x22,
   f64Load: 0x2b, i32Const: 0x41,
-  i32LtS: 0x48, i32GeU: 0x4f, i32Add: 0x6a, i32Sub: 0x6b, i32Mul: 0x6c, i32Shl: 0x74,
+  i32LtS: 0x48, i32GeU: 0x4f, i32Add: 0x6a, i32Sub: 0x6b, i32Mul: 0x6c, i32Shl: 0x74, i32ShrU: 0x76,
 } as const;
 /** SIMD sub-opcodes (after the 0xfd prefix). */
-export const SIMD = { load: 0, store: 11, f64x2Splat: 20, f64x2Add: 240, f64x2Sub: 241, f64x2Mul: 242 } as const;
+export const SIMD = { load: 0, load64Splat: 10, store: 11, const: 12, f64x2Splat: 20, f64x2Add: 240, f64x2Sub: 241, f64x2Mul: 242 } as const;
 
 /** Unsigned LEB128. */
 export function uleb(n: number): number[] {
@@ -52,6 +52,10 @@ export const c32 = (v: number): number[] => [OP.i32Const, ...sleb(v)];
 /** v128.load / v128.store with a constant byte offset. */
 export const vload = (offset = 0): number[] => [...simd(SIMD.load), 4, ...uleb(offset)];
 export const vstore = (offset = 0): number[] => [...simd(SIMD.store), 4, ...uleb(offset)];
+/** v128.load64_splat (one f64 into both lanes) with a constant byte offset. */
+export const vsplat = (offset = 0): number[] => [...simd(SIMD.load64Splat), 3, ...uleb(offset)];
+/** v128.const of zeros. */
+export const vzero = (): number[] => [...simd(SIMD.const), ...new Array(16).fill(0)];
 /** f64.load with a constant byte offset. */
 export const f64load = (offset = 0): number[] => [OP.f64Load, 3, ...uleb(offset)];
 const section = (id: number, body: number[]): number[] => [id, ...uleb(body.length), ...body];

@@ -148,3 +148,30 @@ describe('SIMD triangular substitution', () => {
       }), { seed: 23, numRuns: 40 });
   });
 });
+
+describe('SIMD Hermitian rank-k update', () => {
+  it('lower triangle of C + G·Gᴴ equals the definition for odd/even n and k, upper triangle untouched (property)', async () => {
+    const { simdHerkLower, herkLowerScalarKernel } = await import('../../src/internal/herk.js');
+    fc.assert(fc.property(fc.integer({ min: 1, max: 23 }), fc.integer({ min: 1, max: 40 }), fc.integer({ min: 0, max: 3 }), fc.integer(), (n, k, pad, seed) => {
+      const ldg = k + pad;
+      const g = randomMatrix(n, ldg, seed).data;
+      const c0 = randomMatrix(n, n, seed + 1).data;
+      const c = c0.slice(), cs = c0.slice();
+      expect(simdHerkLower(n, k, g, ldg, c)).toBe(true);
+      herkLowerScalarKernel(n, k, g, ldg, cs);
+      for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {
+        let re = 0, im = 0;
+        for (let p = 0; p < k; p++) {
+          const ar = g[2 * (i * ldg + p)], ai = g[2 * (i * ldg + p) + 1], br = g[2 * (j * ldg + p)], bi = g[2 * (j * ldg + p) + 1];
+          re += ar * br + ai * bi; im += ai * br - ar * bi;
+        }
+        const q = 2 * (i * n + j);
+        if (j > i) { expect(c[q]).toBe(c0[q]); expect(c[q + 1]).toBe(c0[q + 1]); continue; }
+        // k products of entries ≤ √2 in modulus: rounding ≤ 4kε·(2k + 1)
+        expect(Math.abs(c[q] - (c0[q] + re))).toBeLessThanOrEqual(4 * k * EPS * (2 * k + 1));
+        expect(Math.abs(c[q + 1] - (c0[q + 1] + (j === i ? 0 : im)))).toBeLessThanOrEqual(4 * k * EPS * (2 * k + 1));
+        expect(Math.abs(c[q] - cs[q])).toBeLessThanOrEqual(4 * k * EPS * (2 * k + 1));
+      }
+    }), { seed: 29, numRuns: 60 });
+  });
+});
