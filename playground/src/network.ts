@@ -1,0 +1,142 @@
+/**
+ * Network viewer panel: a pasted or dropped Touchstone file → Smith chart, |S| versus
+ * frequency, and the reciprocity and passivity checks of the network module.
+ */
+import {
+  type CMatrix, type Multiport,
+  parseTouchstone, convertMultiport, multiportMatrix, checkReciprocity, checkPassivity, createMultiport,
+  formatTouchstone, fromRows, multiply, ParseError,
+} from 'phasewise';
+import { smithChartSvg, linePlotSvg } from 'phasewise/plot';
+import { byId, showFigure, showStatus, describeError, debounce } from './dom.js';
+
+/** Tolerance of the reciprocity and passivity verdicts shown (files carry ~6 significant digits). */
+export const CHECK_TOLERANCE = 1e-5;
+
+/**
+ * Demonstration two-port of our own: a series R-L-C resonator (2 Ω, 40 nH, tuned to 1 GHz)
+ * between two shunt 1 pF capacitors, from 0.8 to 1.2 GHz, as a version 1 Touchstone text.
+ */
+export function demoTouchstone(): string {
+  const freqs: number[] = [];
+  const chains: CMatrix[] = [];
+  const l = 40e-9, c = 1 / ((2 * Math.PI * 1e9) ** 2 * l), r = 2, cShunt = 1e-12;
+  for (let k = 0; k <= 80; k++) {
+    const f = 0.8e9 + k * 5e6, w = 2 * Math.PI * f;
+    const series = { re: r, im: w * l - 1 / (w * c) };
+    const shunt = { re: 0, im: w * cShunt };
+    const y = fromRows([[1, 0], [shunt, 1]]);
+    const z = fromRows([[1, series], [0, 1]]);
+    freqs.push(f);
+    chains.push(multiply(multiply(y, z), y));
+  }
+  const net = createMultiport('chain', freqs, chains);
+  return formatTouchstone(convertMultiport(net, 'scattering'), {
+    version: 1, format: 'MA', frequencyUnit: 'MHz', significantDigits: 7,
+    comments: [' phasewise playground demo: series RLC resonator between shunt capacitors (invented example)'],
+  });
+}
+
+/** Which S entries to draw: all of them up to three ports, else the diagonal and column 1. */
+function entriesToDraw(n: number): Array<[number, number]> {
+  const out: Array<[number, number]> = [];
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) if (n <= 3 || i === j || j === 0) out.push([i, j]);
+  }
+  return out.slice(0, 12);
+}
+
+/** Parses the text and draws everything; a ParseError is shown with its line number. */
+export function viewNetwork(text: string, portsHint?: number): Multiport | undefined {
+  const errorBox = byId('network-error');
+  let net: Multiport;
+  try {
+    net = parseTouchstone(text, portsHint === undefined ? {} : { ports: portsHint }).network;
+  } catch (e) {
+    errorBox.textContent = e instanceof ParseError
+      ? `Could not read the file at line ${e.line}: ${e.message}`
+      : `Could not read the file: ${describeError(e)}`;
+    errorBox.dataset.line = e instanceof ParseError ? String(e.line) : '';
+    errorBox.hidden = false;
+    return undefined;
+  }
+  errorBox.hidden = true;
+  errorBox.textContent = '';
+  errorBox.dataset.line = '';
+  try {
+    const s = net.form === 'scattering' ? net : convertMultiport(net, 'scattering');
+    const n = s.ports, fCount = s.frequencyHz.length;
+    const fGHz = Array.from(s.frequencyHz, (f) => f / 1e9);
+    const pairs = entriesToDraw(n);
+    const re = pairs.map(() => new Float64Array(fCount)), im = pairs.map(() => new Float64Array(fCount));
+    for (let k = 0; k < fCount; k++) {
+      const m = multiportMatrix(s, k);
+      pairs.forEach(([i, j], p) => {
+        const q = 2 * (i * n + j);
+        re[p][k] = m.data[q];
+        im[p][k] = m.data[q + 1];
+      });
+    }
+    const label = ([i, j]: [number, number]): string => `S${i + 1}${j + 1}`;
+    const diag = pairs.map((pr, p) => [pr, p] as const).filter(([[i, j]]) => i === j).slice(0, 4);
+    const z0 = s.referenceOhm[0];
+    byId('network-smith').innerHTML = smithChartSvg({
+      traces: diag.map(([pr, p]) => ({ label: label(pr), gammaRe: re[p], gammaIm: im[p] })),
+      z0Ohm: z0, widthPx: 380, heightPx: 380,
+    });
+    byId('network-magnitude').innerHTML = linePlotSvg({
+      traces: pairs.map((pr, p) => ({
+        label: label(pr),
+        x: fGHz,
+        y: Array.from(re[p], (x, k) => Math.max(20 * Math.log10(Math.hypot(x, im[p][k])), -80)),
+      })),
+      xLabel: 'frequency [GHz]', yLabel: '|S| [dB]', widthPx: 560, heightPx: 320,
+    });
+    const rec = checkReciprocity(s, CHECK_TOLERANCE), pas = checkPassivity(s, CHECK_TOLERANCE);
+    showFigure('network-ports', n, 6);
+    showFigure('network-points', fCount, 6);
+    byId('network-range').textContent = `${fGHz[0].toPrecision(5)} – ${fGHz[fCount - 1].toPrecision(5)} GHz`;
+    showFigure('network-reciprocity', rec.violation, 3);
+    showFigure('network-passivity', pas.violation, 3);
+    byId('network-reciprocity-verdict').textContent = rec.satisfied ? 'reciprocal' : `not reciprocal (worst at ${fGHz[rec.worstIndex].toPrecision(5)} GHz)`;
+    byId('network-passivity-verdict').textContent = pas.satisfied ? 'passive' : `active (worst at ${fGHz[pas.worstIndex].toPrecision(5)} GHz)`;
+    showStatus('network-status', '');
+  } catch (e) {
+    showStatus('network-status', describeError(e));
+  }
+  return net;
+}
+
+/** Port count from a file name ending in .sNp, if any. */
+export function portsFromFileName(name: string): number | undefined {
+  const m = /\.s(\d+)p$/i.exec(name);
+  return m ? Number(m[1]) : undefined;
+}
+
+/** Wires the text area, the file picker and drag-and-drop. */
+export function initNetwork(): void {
+  const area = byId<HTMLTextAreaElement>('network-text');
+  const picker = byId<HTMLInputElement>('network-file');
+  const drop = byId('network-drop');
+  let portsHint: number | undefined;
+  area.value = demoTouchstone();
+  const later = debounce(() => viewNetwork(area.value, portsHint), 200);
+  area.addEventListener('input', () => { portsHint = undefined; later(); });
+  const load = async (file: File): Promise<void> => {
+    portsHint = portsFromFileName(file.name);
+    area.value = await file.text();
+    byId('network-file-name').textContent = `Loaded ${file.name}`;
+    viewNetwork(area.value, portsHint);
+  };
+  picker.addEventListener('change', () => { const f = picker.files?.[0]; if (f) void load(f); });
+  drop.addEventListener('dragover', (e) => { e.preventDefault(); drop.dataset.over = 'yes'; });
+  drop.addEventListener('dragleave', () => { drop.dataset.over = ''; });
+  drop.addEventListener('drop', (e) => {
+    e.preventDefault();
+    drop.dataset.over = '';
+    const f = e.dataTransfer?.files?.[0];
+    if (f) void load(f);
+  });
+  byId('network-demo').addEventListener('click', () => { portsHint = undefined; area.value = demoTouchstone(); viewNetwork(area.value); });
+  viewNetwork(area.value);
+}
