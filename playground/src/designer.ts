@@ -135,7 +135,7 @@ function update(): void {
     const cutDb = Array.from(cutMag, (m) => amplitudeToDbSafe(m / peak));
     byId('designer-cut').innerHTML = patternCutSvg({
       traces: [{ label: 'φ = 0° cut', angleRad: angles, valueDb: cutDb }],
-      floorDb: FLOOR_DB, ceilingDb: 0, widthPx: 560, heightPx: 320,
+      floorDb: FLOOR_DB, ceilingDb: 0, widthPx: 470, heightPx: 300,
       angleLabel: 'angle from broadside θ [deg]', levelLabel: 'relative power [dB]',
     });
 
@@ -149,7 +149,7 @@ function update(): void {
     const uvDb = new Float64Array(grid.count).fill(NaN);
     // Exact nulls (−∞ dB) sit far below the colour floor; the map takes finite levels only.
     vis.indices.forEach((k, i) => { uvDb[k] = Math.max(amplitudeToDbSafe(uvMag[i] / uvPeak), -300); });
-    byId('designer-uv').innerHTML = uvMapSvg({ u: axis, v: axis, valueDb: uvDb, floorDb: -40, ceilingDb: 0, widthPx: 360, heightPx: 340 });
+    byId('designer-uv').innerHTML = uvMapSvg({ u: axis, v: axis, valueDb: uvDb, floorDb: -40, ceilingDb: 0, widthPx: 340, heightPx: 320 });
 
     // Figures: directivity (sphere quadrature), beamwidth and sidelobes of the φ = 0 cut.
     const dir = directivity(a.layout, a.weights, a.scanDirection, f);

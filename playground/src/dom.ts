@@ -35,8 +35,9 @@ export function showFigure(id: string, value: number | undefined, digits = 4, un
 
 /** Rounds to `digits` significant figures, switching to exponent notation for very small or large values. */
 export function formatNumber(x: number, digits = 4): string {
-  if (x === 0) return '0';
   const a = Math.abs(x);
+  // Rounding residue of a level that is exactly zero in theory (e.g. a grating lobe at 0 dB).
+  if (a < 1e-9) return '0';
   if (a >= 1e-3 && a < 1e6) return Number(x.toPrecision(digits)).toString();
   return x.toExponential(digits - 1);
 }

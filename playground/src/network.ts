@@ -15,20 +15,20 @@ export const CHECK_TOLERANCE = 1e-5;
 
 /**
  * Demonstration two-port of our own: a series R-L-C resonator (2 Ω, 40 nH, tuned to 1 GHz)
- * between two shunt 1 pF capacitors, from 0.8 to 1.2 GHz, as a version 1 Touchstone text.
+ * between shunt capacitors of 1 pF (port 1) and 1.8 pF (port 2), from 0.8 to 1.2 GHz, as a version 1 Touchstone text.
  */
 export function demoTouchstone(): string {
   const freqs: number[] = [];
   const chains: CMatrix[] = [];
-  const l = 40e-9, c = 1 / ((2 * Math.PI * 1e9) ** 2 * l), r = 2, cShunt = 1e-12;
+  const l = 40e-9, c = 1 / ((2 * Math.PI * 1e9) ** 2 * l), r = 2, c1 = 1e-12, c2 = 1.8e-12;
   for (let k = 0; k <= 80; k++) {
     const f = 0.8e9 + k * 5e6, w = 2 * Math.PI * f;
     const series = { re: r, im: w * l - 1 / (w * c) };
-    const shunt = { re: 0, im: w * cShunt };
-    const y = fromRows([[1, 0], [shunt, 1]]);
+    const y1 = fromRows([[1, 0], [{ re: 0, im: w * c1 }, 1]]);
     const z = fromRows([[1, series], [0, 1]]);
+    const y2 = fromRows([[1, 0], [{ re: 0, im: w * c2 }, 1]]);
     freqs.push(f);
-    chains.push(multiply(multiply(y, z), y));
+    chains.push(multiply(multiply(y1, z), y2));
   }
   const net = createMultiport('chain', freqs, chains);
   return formatTouchstone(convertMultiport(net, 'scattering'), {
@@ -82,7 +82,7 @@ export function viewNetwork(text: string, portsHint?: number): Multiport | undef
     const z0 = s.referenceOhm[0];
     byId('network-smith').innerHTML = smithChartSvg({
       traces: diag.map(([pr, p]) => ({ label: label(pr), gammaRe: re[p], gammaIm: im[p] })),
-      z0Ohm: z0, widthPx: 380, heightPx: 380,
+      z0Ohm: z0, widthPx: 330, heightPx: 330,
     });
     byId('network-magnitude').innerHTML = linePlotSvg({
       traces: pairs.map((pr, p) => ({
@@ -90,12 +90,12 @@ export function viewNetwork(text: string, portsHint?: number): Multiport | undef
         x: fGHz,
         y: Array.from(re[p], (x, k) => Math.max(20 * Math.log10(Math.hypot(x, im[p][k])), -80)),
       })),
-      xLabel: 'frequency [GHz]', yLabel: '|S| [dB]', widthPx: 560, heightPx: 320,
+      xLabel: 'frequency [GHz]', yLabel: '|S| [dB]', widthPx: 470, heightPx: 330,
     });
     const rec = checkReciprocity(s, CHECK_TOLERANCE), pas = checkPassivity(s, CHECK_TOLERANCE);
     showFigure('network-ports', n, 6);
     showFigure('network-points', fCount, 6);
-    byId('network-range').textContent = `${fGHz[0].toPrecision(5)} – ${fGHz[fCount - 1].toPrecision(5)} GHz`;
+    byId('network-range').textContent = `${Number(fGHz[0].toPrecision(6))} – ${Number(fGHz[fCount - 1].toPrecision(6))} GHz`;
     showFigure('network-reciprocity', rec.violation, 3);
     showFigure('network-passivity', pas.violation, 3);
     byId('network-reciprocity-verdict').textContent = rec.satisfied ? 'reciprocal' : `not reciprocal (worst at ${fGHz[rec.worstIndex].toPrecision(5)} GHz)`;

@@ -1,7 +1,8 @@
 /**
  * Sensitivity sketch panel: a small grid of half-wave dipoles a quarter wavelength over a
  * ground plane, amplifier noise parameters and a sky/ground environment → T_sys and
- * A_e/T_sys of the maximum-SNR beam at broadside (zenith), via the reception module.
+ * A_e/T_sys of the maximum-SNR beam at the array's broadside, via the reception module. The
+ * array may be tilted from the zenith so that part of its half-space sees the warm ground.
  */
 import {
   type WireDipole, type ReceivingArrayEvaluation,
@@ -18,6 +19,8 @@ export interface SensitivityInputs {
   noiseResistanceOhm: number;
   skyK: number;
   groundK: number;
+  /** Angle between the array's broadside and the zenith [deg]. */
+  tiltDeg: number;
 }
 
 /** Fixed parts of the model, stated on the page. */
@@ -60,7 +63,7 @@ export function evaluateSketch(inputs: SensitivityInputs): ReceivingArrayEvaluat
     ports,
     quadrature: sphereQuadrature(m.thetaNodes, m.phiNodes),
     bandwidthHz: m.bandwidthHz,
-    environment: skyAndGroundEnvironment({ skyK: inputs.skyK, groundK: inputs.groundK, tiltRad: 0 }),
+    environment: skyAndGroundEnvironment({ skyK: inputs.skyK, groundK: inputs.groundK, tiltRad: (inputs.tiltDeg * Math.PI) / 180 }),
     amplifiers: {
       minimumNoiseTemperatureK: inputs.minimumNoiseTemperatureK,
       noiseResistanceOhm: inputs.noiseResistanceOhm,
@@ -80,12 +83,14 @@ function readInputs(): SensitivityInputs {
     noiseResistanceOhm: inputNumber('sens-rn'),
     skyK: inputNumber('sens-sky'),
     groundK: inputNumber('sens-ground'),
+    tiltDeg: inputNumber('sens-tilt'),
   };
 }
 
 function update(): void {
   const inputs = readInputs();
   try {
+    if (!(inputs.tiltDeg >= 0 && inputs.tiltDeg <= 90)) throw new RangeError(`the tilt must lie in [0°, 90°] (received ${inputs.tiltDeg}°).`);
     if (!(inputs.perSide >= 1 && inputs.perSide <= 5)) throw new RangeError(`dipoles per side must be 1 to 5 in this sketch (received ${inputs.perSide}).`);
     const t0 = performance.now();
     const r = evaluateSketch(inputs);
