@@ -16,7 +16,8 @@ import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import {
   uniformLineLayout, dolphChebyshevTaper, fromParts, hadamard, steeringVector, directivity, linearArrayFigures,
   patternEvaluator, cutFigures, wavelengthM, radToDeg, parseTouchstone, ParseError, dipoleArrayPorts,
-  evaluateReceivingArray, skyAndGroundEnvironment, sphereQuadrature, type WireDipole,
+  evaluateReceivingArray, skyAndGroundEnvironment, sphereQuadrature, taylorTaper, fromRows, createMultiport, formatTouchstone,
+  type WireDipole,
 } from '../../src/index.js';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '../..');
@@ -160,6 +161,7 @@ describe('playground page in chromium', () => {
     await page.fill('#designer-spacing', '0.8');
     await page.fill('#designer-scan', '40');
     await figureChange(page, 'designer-directivity', d2);
+    // (two edits: the grating-lobe text below waits for the second)
     await expectText(page, '#designer-grating', 'Grating lobes in visible space (1)');
     await expectText(page, '#designer-grating', `u = ${(Math.sin((40 * Math.PI) / 180) - 1 / 0.8).toFixed(3)}`);
     expect(await page.locator('#designer-uv').innerHTML()).not.toBe(uvUniform);
@@ -168,11 +170,31 @@ describe('playground page in chromium', () => {
     const ref = designerReference(new Float64Array(16).fill(1), 0.8 * wavelengthM(f), f, (40 * Math.PI) / 180);
     expect(await figure(page, 'designer-directivity')).toBeCloseTo(ref.directivity.directivityDb, 10);
 
+    // Taylor n̄ = 5, 35 dB on the same scanned line: the page's weights are the library's.
+    const taylor = designerReference(taylorTaper(16, 35, 5).weights, 0.8 * wavelengthM(f), f, (40 * Math.PI) / 180);
+    await page.selectOption('#designer-taper', 'taylor');
+    await page.fill('#designer-sll', '35');
+    // Two edits, each redrawing after a short pause: wait for the result of both.
+    await page.waitForFunction((want) => Math.abs(Number(document.querySelector('#designer-directivity')?.getAttribute('data-value')) - want) < 1e-6,
+      taylor.directivity.directivityDb, { timeout: 5000 }).catch(() => undefined);
+    expect(await figure(page, 'designer-directivity')).toBeCloseTo(taylor.directivity.directivityDb, 10);
+
+    // A bad input reaches the library, whose DomainError is shown in the panel's alert.
+    await page.fill('#designer-spacing', '-1');
+    await expectText(page, '#designer-status', 'DomainError');
+    await expectText(page, '#designer-status', 'spacingM');
+    expect(await page.locator('#designer-status').getAttribute('role')).toBe('alert');
+    const d5 = await page.locator('#designer-directivity').getAttribute('data-value');
+    await page.fill('#designer-spacing', '0.5');
+    await figureChange(page, 'designer-directivity', d5);
+
     // A planar layout: a 6 × 6 grid has 36 elements.
     const d3 = await page.locator('#designer-directivity').getAttribute('data-value');
     await page.selectOption('#designer-layout', 'grid');
     await page.fill('#designer-count', '6');
     await figureChange(page, 'designer-directivity', d3);
+    await page.waitForFunction(() => document.querySelector('#designer-count-out')?.getAttribute('data-value') === '36', undefined, { timeout: 5000 })
+      .catch(() => undefined);
     expect(await figure(page, 'designer-count-out')).toBe(36);
     expect(await page.locator('#designer-status').textContent()).toBe('');
   });
@@ -206,6 +228,23 @@ describe('playground page in chromium', () => {
     await box.waitFor({ state: 'hidden', timeout: 5000 });
     await page.waitForFunction((old) => document.querySelector('#network-smith')?.innerHTML !== old, smithBefore);
     expect(await figure(page, 'network-ports')).toBe(1);
+
+    // A version 1 three-port picked as a file: its .s3p name gives the port count.
+    const s3 = (a: number) => fromRows([[a, 0.5, 0.5], [0.5, a, 0.5], [0.5, 0.5, a]]);
+    const threePort = formatTouchstone(createMultiport('scattering', [1e9, 1.5e9, 2e9], [s3(-0.1), s3(-0.2), s3(-0.3)]), { version: 1 });
+    await page.setInputFiles('#network-file', { name: 'invented-divider.s3p', mimeType: 'text/plain', buffer: Buffer.from(threePort) });
+    await page.waitForFunction(() => document.querySelector('#network-ports')?.getAttribute('data-value') === '3');
+    expect(await figure(page, 'network-points')).toBe(3);
+
+    // Dropping a file on the text box loads it too.
+    await page.evaluate((text) => {
+      const dt = new DataTransfer();
+      dt.items.add(new File([text], 'dropped.s1p', { type: 'text/plain' }));
+      document.querySelector('#network-drop')!.dispatchEvent(new DragEvent('drop', { dataTransfer: dt, bubbles: true, cancelable: true }));
+    }, '# GHz S MA R 50\n1 0.5 -30\n2 0.4 -60\n');
+    await page.waitForFunction(() => document.querySelector('#network-ports')?.getAttribute('data-value') === '1');
+    expect(await figure(page, 'network-points')).toBe(2);
+    await expectText(page, '#network-file-name', 'dropped.s1p');
   });
 
   it('sensitivity sketch: T_sys and A_e/T_sys equal the reception module\'s for the default inputs', async () => {
