@@ -3,7 +3,7 @@
  * @module
  */
 import { DomainError } from '../errors.js';
-import { type PlotFrameOptions, TRACE_COLORS, checkSeries, esc, fmt, openSvg, resolveFrame } from './svg.js';
+import { type PlotFrameOptions, TRACE_COLORS, checkSeries, clipId, esc, fmt, openSvg, resolveFrame } from './svg.js';
 
 /**
  * One reflection-coefficient locus (for example one port over frequency).
@@ -52,7 +52,8 @@ export function smithChartSvg(options: SmithChartOptions): string {
   const X = (g: number) => cx + r0 * g;
   const Y = (g: number) => cy - r0 * g;
   const parts = [openSvg(f, 'Smith chart')];
-  parts.push(`<clipPath id="smith-disc"><circle cx="${fmt(cx)}" cy="${fmt(cy)}" r="${fmt(r0)}"/></clipPath>`);
+  const clip = clipId('smith-disc', [cx, cy, r0]);
+  parts.push(`<clipPath id="${clip}"><circle cx="${fmt(cx)}" cy="${fmt(cy)}" r="${fmt(r0)}"/></clipPath>`);
   parts.push('<g class="axes" fill="none" stroke="#d5dae0">');
   parts.push(`<circle class="unit-circle" cx="${fmt(cx)}" cy="${fmt(cy)}" r="${fmt(r0)}" stroke="#59616b"/>`);
   parts.push(`<line x1="${fmt(X(-1))}" y1="${fmt(cy)}" x2="${fmt(X(1))}" y2="${fmt(cy)}"/>`);
@@ -62,7 +63,7 @@ export function smithChartSvg(options: SmithChartOptions): string {
   }
   for (const x of values) {
     for (const s of [1, -1]) {
-      parts.push(`<circle class="x-arc" data-value="${s * x}" cx="${fmt(X(1))}" cy="${fmt(Y(s / x))}" r="${fmt(r0 / x)}" clip-path="url(#smith-disc)"/>`);
+      parts.push(`<circle class="x-arc" data-value="${s * x}" cx="${fmt(X(1))}" cy="${fmt(Y(s / x))}" r="${fmt(r0 / x)}" clip-path="url(#${clip})"/>`);
     }
   }
   parts.push('</g><g class="tick-labels" fill="#555" font-size="' + fmt(f.fontSize * 0.8) + '">');

@@ -75,6 +75,16 @@ export function fmt(x: number): string {
   return (Object.is(r, -0) ? 0 : r).toString();
 }
 
+/**
+ * Id of a clip path, built from its geometry (the numbers as {@link fmt} writes them). Several
+ * plots inlined in one HTML document share one id space, so a fixed id would make every plot
+ * clip to the first plot's shape; ids built from the geometry differ whenever the shapes do,
+ * and the output stays deterministic. @internal
+ */
+export function clipId(prefix: string, geometry: readonly number[]): string {
+  return `${prefix}-${geometry.map((x) => fmt(x).replace('-', 'm').replace('.', 'p')).join('_')}`;
+}
+
 /** Opening tag of a plot SVG with background and font. @internal */
 export function openSvg(f: Frame, role: string): string {
   return (
