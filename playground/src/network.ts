@@ -53,13 +53,14 @@ export function viewNetwork(text: string, portsHint?: number): Multiport | undef
   try {
     net = parseTouchstone(text, portsHint === undefined ? {} : { ports: portsHint }).network;
   } catch (e) {
-    errorBox.textContent = e instanceof ParseError
-      ? `Could not read the file at line ${e.line}: ${e.message}`
-      : `Could not read the file: ${describeError(e)}`;
+    // A ParseError's message starts with "line N:" (the library adds it).
+    errorBox.textContent = `Could not read the file — ${e instanceof ParseError ? e.message : describeError(e)}. The plots show the last file that was read.`;
     errorBox.dataset.line = e instanceof ParseError ? String(e.line) : '';
     errorBox.hidden = false;
+    byId('network-results').dataset.stale = 'yes';
     return undefined;
   }
+  byId('network-results').dataset.stale = '';
   errorBox.hidden = true;
   errorBox.textContent = '';
   errorBox.dataset.line = '';
@@ -84,12 +85,12 @@ export function viewNetwork(text: string, portsHint?: number): Multiport | undef
       traces: diag.map(([pr, p]) => ({ label: label(pr), gammaRe: re[p], gammaIm: im[p] })),
       z0Ohm: z0, widthPx: 330, heightPx: 330,
     });
+    const magDb = pairs.map((_, p) => Array.from(re[p], (x, k) => Math.max(20 * Math.log10(Math.hypot(x, im[p][k])), -80)));
+    const lowest = Math.min(...magDb.map((t) => Math.min(...t)));
+    const highest = Math.max(...magDb.map((t) => Math.max(...t)));
     byId('network-magnitude').innerHTML = linePlotSvg({
-      traces: pairs.map((pr, p) => ({
-        label: label(pr),
-        x: fGHz,
-        y: Array.from(re[p], (x, k) => Math.max(20 * Math.log10(Math.hypot(x, im[p][k])), -80)),
-      })),
+      traces: pairs.map((pr, p) => ({ label: label(pr), x: fGHz, y: magDb[p] })),
+      yRange: [Math.floor(lowest / 5) * 5 - 5, Math.max(0, Math.ceil(highest / 5) * 5)],
       xLabel: 'frequency [GHz]', yLabel: '|S| [dB]', widthPx: 470, heightPx: 330,
     });
     const rec = checkReciprocity(s, CHECK_TOLERANCE), pas = checkPassivity(s, CHECK_TOLERANCE);

@@ -218,6 +218,7 @@ describe('playground page in chromium', () => {
     await page.fill('#network-text', bad);
     const box = page.locator('#network-error');
     await box.waitFor({ state: 'visible', timeout: 5000 });
+    expect(await page.locator('#network-results').getAttribute('data-stale')).toBe('yes');
     expect(await box.getAttribute('data-line')).toBe('4');
     await expectText(page, '#network-error', 'line 4');
     await expectText(page, '#network-error', expected!.message);
@@ -297,6 +298,12 @@ describe('playground page in chromium', () => {
     const shot = join(root, 'reports', 'playground-after-edits.png');
     await page.screenshot({ path: shot, fullPage: true });
     expect(statSync(shot).size).toBeGreaterThan(10_000);
+    // Every clip-path reference resolves to a clip path inside the same plot (the page inlines several).
+    const strayClips = await page.evaluate(() => Array.from(document.querySelectorAll('[clip-path]')).filter((el) => {
+      const id = /url\(#([^)]+)\)/.exec(el.getAttribute('clip-path') ?? '')?.[1] ?? '';
+      return document.getElementById(id)?.closest('svg') !== el.closest('svg');
+    }).length);
+    expect(strayClips).toBe(0);
     expect(consoleErrors).toEqual([]);
     expect(foreignRequests).toEqual([]);
   });
