@@ -122,7 +122,7 @@ export function initNetwork(): void {
   let portsHint: number | undefined;
   area.value = demoTouchstone();
   const later = debounce(() => viewNetwork(area.value, portsHint), 200);
-  area.addEventListener('input', () => { portsHint = undefined; later(); });
+  area.addEventListener('input', () => { portsHint = undefined; byId('network-file-name').textContent = ''; later(); });
   const load = async (file: File): Promise<void> => {
     portsHint = portsFromFileName(file.name);
     area.value = await file.text();
@@ -138,6 +138,12 @@ export function initNetwork(): void {
     const f = e.dataTransfer?.files?.[0];
     if (f) void load(f);
   });
-  byId('network-demo').addEventListener('click', () => { portsHint = undefined; area.value = demoTouchstone(); viewNetwork(area.value); });
+  byId('network-demo').addEventListener('click', () => {
+    portsHint = undefined;
+    picker.value = '';
+    byId('network-file-name').textContent = '';
+    area.value = demoTouchstone();
+    viewNetwork(area.value);
+  });
   viewNetwork(area.value);
 }
