@@ -5,7 +5,7 @@
  */
 import { DimensionError, DomainError } from '../errors.js';
 import { assertFinite, assertNonNegative, assertPositive } from '../internal/validate.js';
-import { type PlotFrameOptions, checkSeries, fmt, makeArea, openSvg, resolveFrame, drawAxes } from './svg.js';
+import { type PlotFrameOptions, checkSeries, clipId, fmt, makeArea, openSvg, resolveFrame, drawAxes } from './svg.js';
 
 /**
  * A circle in the u-v plane (direction-cosine space).
@@ -58,7 +58,8 @@ export function gratingLobeDiagramSvg(options: GratingLobeDiagramOptions): strin
   const parts = [openSvg(f, 'grating-lobe diagram'), drawAxes(f, a, 'u', 'v', 5, 5)];
   const sx = (x: number) => a.x(x), sy = (y: number) => a.y(y);
   const rx = (r: number) => Math.abs(a.x(r) - a.x(0)), ry = (r: number) => Math.abs(a.y(r) - a.y(0));
-  parts.push(`<clipPath id="gl-area"><rect x="${fmt(a.left)}" y="${fmt(a.top)}" width="${fmt(a.right - a.left)}" height="${fmt(a.bottom - a.top)}"/></clipPath><g clip-path="url(#gl-area)">`);
+  const clip = clipId('gl-area', [a.left, a.top, a.right - a.left, a.bottom - a.top]);
+  parts.push(`<clipPath id="${clip}"><rect x="${fmt(a.left)}" y="${fmt(a.top)}" width="${fmt(a.right - a.left)}" height="${fmt(a.bottom - a.top)}"/></clipPath><g clip-path="url(#${clip})">`);
   options.gratingCircles.forEach((c, i) => {
     assertFinite(`gratingCircles[${i}].u`, c.u);
     assertFinite(`gratingCircles[${i}].v`, c.v);

@@ -6,7 +6,7 @@ import { line } from 'd3-shape';
 import { DimensionError, DomainError } from '../errors.js';
 import { assertFinite } from '../internal/validate.js';
 import {
-  type PlotFrameOptions, TRACE_COLORS, angleTicksDeg, checkSeries, drawAxes, drawLegend, esc, fmt, makeArea, openSvg, resolveFrame,
+  type PlotFrameOptions, TRACE_COLORS, angleTicksDeg, checkSeries, clipId, drawAxes, drawLegend, esc, fmt, makeArea, openSvg, resolveFrame,
 } from './svg.js';
 
 /**
@@ -93,7 +93,8 @@ export function linePlotSvg(options: LinePlotOptions): string {
   if (options.xRange) a.x.domain(options.xRange);
   if (options.yRange) a.y.domain(options.yRange);
   const parts = [openSvg(f, 'line plot'), drawAxes(f, a, xLabel, yLabel, 8, 6, options.xTicks)];
-  parts.push(`<clipPath id="plot-area"><rect x="${fmt(a.left)}" y="${fmt(a.top)}" width="${fmt(a.right - a.left)}" height="${fmt(a.bottom - a.top)}"/></clipPath>`);
+  const clip = clipId('plot-area', [a.left, a.top, a.right - a.left, a.bottom - a.top]);
+  parts.push(`<clipPath id="${clip}"><rect x="${fmt(a.left)}" y="${fmt(a.top)}" width="${fmt(a.right - a.left)}" height="${fmt(a.bottom - a.top)}"/></clipPath>`);
   traces.forEach((t, i) => {
     const idx = Array.from({ length: t.x.length }, (_, k) => k);
     const gen = line<number>()
@@ -102,7 +103,7 @@ export function linePlotSvg(options: LinePlotOptions): string {
       .y((k) => Math.round(a.y(t.y[k]) * 100) / 100);
     let points = 0;
     for (let k = 0; k < t.y.length; k++) if (Number.isFinite(t.y[k])) points++;
-    parts.push(`<path class="trace" data-label="${esc(t.label)}" data-points="${points}" d="${gen(idx) ?? ''}" fill="none" stroke="${TRACE_COLORS[i % TRACE_COLORS.length]}" stroke-width="1.6" clip-path="url(#plot-area)"/>`);
+    parts.push(`<path class="trace" data-label="${esc(t.label)}" data-points="${points}" d="${gen(idx) ?? ''}" fill="none" stroke="${TRACE_COLORS[i % TRACE_COLORS.length]}" stroke-width="1.6" clip-path="url(#${clip})"/>`);
   });
   parts.push(drawLegend(f, a, traces.map((t) => t.label)));
   parts.push('</svg>');

@@ -75,6 +75,16 @@ export function fmt(x: number): string {
   return (Object.is(r, -0) ? 0 : r).toString();
 }
 
+/**
+ * Id of a clip path, built from its geometry (the numbers as {@link fmt} writes them). Several
+ * plots inlined in one HTML document share one id space, so a fixed id would make every plot
+ * clip to the first plot's shape; ids built from the geometry differ whenever the shapes do,
+ * and the output stays deterministic. @internal
+ */
+export function clipId(prefix: string, geometry: readonly number[]): string {
+  return `${prefix}-${geometry.map((x) => fmt(x).replace('-', 'm').replace('.', 'p')).join('_')}`;
+}
+
 /** Opening tag of a plot SVG with background and font. @internal */
 export function openSvg(f: Frame, role: string): string {
   return (
@@ -193,4 +203,9 @@ export function base64(bytes: Uint8Array): string {
     out += alphabet[(n >> 18) & 63] + alphabet[(n >> 12) & 63] + alphabet[(n >> 6) & 63] + '=';
   }
   return out;
+}
+
+/** Legend as coloured labels stacked in the bottom-left corner (for round charts). @internal */
+export function drawCornerLegend(f: Frame, labels: readonly string[]): string {
+  return labels.map((l, i) => `<text class="legend-entry" x="${fmt(f.fontSize)}" y="${fmt(f.height - f.fontSize * (labels.length - i))}" fill="${TRACE_COLORS[i % TRACE_COLORS.length]}">${esc(l)}</text>`).join('');
 }

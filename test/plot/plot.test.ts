@@ -147,3 +147,36 @@ describe('circle diagrams', () => {
     expect(() => zeroPlotSvg({ zerosRe: [1], zerosIm: [], visibleStartRad: 0, visibleEndRad: 1 })).toThrow(DimensionError);
   });
 });
+
+describe('clip paths of plots inlined in one document', () => {
+  // An HTML page holds one id space: each plot must reference its own clip shape, and plots of
+  // different sizes must not share a clip id (else the second is clipped to the first's area).
+  const clipIds = (svg: string) => ({
+    defined: [...svg.matchAll(/<clipPath id="([^"]+)"/g)].map((m) => m[1]),
+    used: [...new Set([...svg.matchAll(/clip-path="url\(#([^)]+)\)"/g)].map((m) => m[1]))],
+  });
+  const trace = { label: 'a', x: [0, 1, 2], y: [0, -3, -1] };
+  const plots = [
+    linePlotSvg({ traces: [trace], xLabel: 'x', yLabel: 'y', widthPx: 400, heightPx: 300 }),
+    linePlotSvg({ traces: [trace], xLabel: 'x', yLabel: 'y', widthPx: 520, heightPx: 340 }),
+    smithChartSvg({ traces: [{ label: 'S11', gammaRe: [0.1, 0.2], gammaIm: [0, 0.1] }], widthPx: 300, heightPx: 300 }),
+    smithChartSvg({ traces: [{ label: 'S11', gammaRe: [0.1, 0.2], gammaIm: [0, 0.1] }], widthPx: 420, heightPx: 420 }),
+    gratingLobeDiagramSvg({ gratingCircles: [{ u: 1.5, v: 0, radius: 1 }], scanRadius: 0.5, widthPx: 300, heightPx: 300 }),
+    gratingLobeDiagramSvg({ gratingCircles: [{ u: 1.5, v: 0, radius: 1 }], scanRadius: 0.5, widthPx: 400, heightPx: 400 }),
+  ];
+
+  it('each plot uses only the clip path it defines', () => {
+    for (const svg of plots) {
+      const { defined, used } = clipIds(svg);
+      expect(defined).toHaveLength(1);
+      expect(used).toEqual(defined);
+    }
+  });
+
+  it('plots of different geometry get different ids; the same plot twice gets the same (deterministic) id', () => {
+    const ids = plots.map((svg) => clipIds(svg).defined[0]);
+    expect(new Set(ids).size).toBe(ids.length);
+    expect(clipIds(linePlotSvg({ traces: [trace], xLabel: 'x', yLabel: 'y', widthPx: 400, heightPx: 300 })).defined[0]).toBe(ids[0]);
+    for (const id of ids) expect(id).toMatch(/^[A-Za-z][\w-]*$/);
+  });
+});
