@@ -58,7 +58,7 @@ export function simdHerkLower(n: number, k: number, g: Float64Array, ldg: number
   f.fill(0, cr, ci + n4 * n4);
   const ld = n4 * 8;
   // rows [i0, i0+4) against columns [0, i0+4): the lower triangle in 4×4 granules
-  for (let i0 = 0; i0 < n4; i0 += 4) mod.ztile(4, i0 + 4, k, i0 * k * 16, k * 16, pb, pcr + i0 * ld, pci + i0 * ld, ld);
+  for (let i0 = 0; i0 < n4; i0 += 4) mod.ztile(4, i0 + 4, k, i0 * k * 16, k * 16, pb, k * 64, pcr + i0 * ld, pci + i0 * ld, ld, 32);
   for (let i = 0; i < n; i++) {
     const d = 2 * i * n, s = i * n4;
     for (let j = 0; j < i; j++) { c[d + 2 * j] += f[cr + s + j]; c[d + 2 * j + 1] += f[ci + s + j]; }

@@ -1,15 +1,16 @@
 /**
- * Triangular solves with many right-hand sides on the WebAssembly SIMD
- * product kernel, with the right-hand sides kept as real/imaginary planes in
- * the module memory for the whole substitution (no per-update packing).
+ * Triangular solves with many right-hand sides on the register-tiled
+ * WebAssembly SIMD product kernel (ztile), with the right-hand sides kept in
+ * its four-column panel layout in the module memory for the whole
+ * substitution (no per-update packing).
  * No checks.
  * @internal
  * @module
  */
 import { ensureMemory } from './wasm-assembler.js';
-import { loadZgemm, SIMD_UNROLL } from './zgemm-wasm.js';
+import { loadZtile } from './ztile-wasm.js';
 
-/** Columns of X per pass (even), so the panel's two planes (n·W·16 bytes) stay in L2 for n ≲ 250. */
+/** Columns of X per pass (a multiple of 4), so the panel (n·W·16 bytes) stays in L2 for n ≲ 250. */
 const SIMD_PANEL = 64;
 
 /**
@@ -20,20 +21,21 @@ const SIMD_PANEL = 64;
  *
  * Row-oriented substitution with the diagonal folded into the data:
  * with D = diag(T), xᵢ = bᵢ/tᵢᵢ + Σₚ (−tᵢₚ/tᵢᵢ)·xₚ over the solved rows p,
- * so each row is one call of the SIMD product kernel (1 × W × #solved),
- * with the packed coefficients −tᵢₚ/tᵢᵢ as the left operand and the solved
- * rows of the plane panel as the right operand (Golub & Van Loan, *Matrix
+ * so each row is one call of the tiled product kernel (1 × W × #solved),
+ * with the packed coefficients −tᵢₚ/tᵢᵢ as the left operand, the solved
+ * rows of the panel as the right operand and row i of the same panel as the
+ * result (Golub & Van Loan, *Matrix
  * Computations*, 4th ed., 2013, §3.1, from memory).
  */
 export function simdSolveTriangular(lower: boolean, n: number, nrhs: number, t: Float64Array, x: Float64Array, unitDiagonal: boolean): boolean {
-  const mod = loadZgemm();
+  const mod = loadZtile();
   if (mod === null) return false;
-  const U = SIMD_UNROLL;
-  const w = Math.min(SIMD_PANEL, nrhs + (nrhs & 1));
-  // layout (bytes): coefficient rows (n(n−1)/2 complex, row i at rowStart[i]) | Xre (n·w·8) | Xim
+  const w = Math.min(SIMD_PANEL, (nrhs + 3) & ~3);
+  // layout (bytes): coefficient rows (n(n−1)/2 complex, row i at rowStart[i]) | X panel:
+  // groups of four columns, group q at px + q·n·64, row i of it the 64 bytes [re ×4 | im ×4]
   const coefCount = (n * (n - 1)) / 2;
-  const pxr = coefCount * 16, pxi = pxr + n * w * 8;
-  const f = ensureMemory(mod.memory, pxi + n * w * 8);
+  const px = coefCount * 16, groupBytes = n * 64;
+  const f = ensureMemory(mod.memory, px + (w >> 2) * groupBytes);
   const rowStart = new Int32Array(n);
   const invR = new Float64Array(n), invI = new Float64Array(n);
   let o = 0;
@@ -53,32 +55,35 @@ export function simdSolveTriangular(lower: boolean, n: number, nrhs: number, t: 
       f[2 * o + 1] = -(tr * ii + ti * ir);
     }
   }
-  const xr0 = pxr >> 3, xi0 = pxi >> 3;
+  const x0 = px >> 3, g8 = groupBytes >> 3;
   for (let c0 = 0; c0 < nrhs; c0 += w) {
-    const pw = Math.min(w, nrhs - c0), wp = pw + (pw & 1), ld = wp * 8;
-    // pack the panel, each row scaled by 1/tᵢᵢ
+    const pw = Math.min(w, nrhs - c0), w4 = (pw + 3) & ~3;
+    // pack the panel, each row scaled by 1/tᵢᵢ; zero columns up to a multiple of four
     for (let i = 0; i < n; i++) {
-      const ir = invR[i], ii = invI[i], s = 2 * (i * nrhs + c0), d = i * wp;
-      for (let j = 0; j < pw; j++) {
-        const vr = x[s + 2 * j], vi = x[s + 2 * j + 1];
-        f[xr0 + d + j] = vr * ir - vi * ii;
-        f[xi0 + d + j] = vr * ii + vi * ir;
+      const ir = invR[i], ii = invI[i], s = 2 * (i * nrhs + c0);
+      for (let j = 0; j < w4; j++) {
+        const d = x0 + (j >> 2) * g8 + 8 * i + (j & 3);
+        if (j < pw) {
+          const vr = x[s + 2 * j], vi = x[s + 2 * j + 1];
+          f[d] = vr * ir - vi * ii;
+          f[d + 4] = vr * ii + vi * ir;
+        } else {
+          f[d] = 0; f[d + 4] = 0;
+        }
       }
-      if (wp !== pw) { f[xr0 + d + pw] = 0; f[xi0 + d + pw] = 0; }
     }
-    for (let step = 0; step < n; step++) {
+    for (let step = 1; step < n; step++) {
       const i = lower ? step : n - 1 - step;
-      const k = step, first = lower ? 0 : i + 1;
-      if (k === 0) continue;
-      const k3 = k - (k % U);
-      const pa = rowStart[i] * 16, pcr = pxr + i * ld, pci = pxi + i * ld;
-      const pbr = pxr + first * ld, pbi = pxi + first * ld;
-      if (k3 > 0) mod.zgemm(1, wp, k3, pa, 0, pbr, pbi, ld, pcr, pci, ld);
-      if (k3 < k) mod.zgemm1(1, wp, k - k3, pa + k3 * 16, 0, pbr + k3 * ld, pbi + k3 * ld, ld, pcr, pci, ld);
+      const first = lower ? 0 : i + 1;
+      const pc = px + i * 64;
+      mod.ztile(1, w4, step, rowStart[i] * 16, 0, px + first * 64, groupBytes, pc, pc + 32, 0, groupBytes);
     }
     for (let i = 0; i < n; i++) {
-      const s = 2 * (i * nrhs + c0), d = i * wp;
-      for (let j = 0; j < pw; j++) { x[s + 2 * j] = f[xr0 + d + j]; x[s + 2 * j + 1] = f[xi0 + d + j]; }
+      const s = 2 * (i * nrhs + c0);
+      for (let j = 0; j < pw; j++) {
+        const d = x0 + (j >> 2) * g8 + 8 * i + (j & 3);
+        x[s + 2 * j] = f[d]; x[s + 2 * j + 1] = f[d + 4];
+      }
     }
   }
   return true;

@@ -11,18 +11,21 @@
 import { I32, OP, SIMD, V128, c32, functionBody, get, set, simd, lazyModule, vload, vsplat, vstore, vzero } from './wasm-assembler.js';
 
 /**
- * ztile(m, n, k, pa, lda, pb, pcr, pci, ldc): for i < m, j < n (n a multiple
- * of 4), p < k: Cre/Cim[i, j] += A[i, p]·B[p, j]. A interleaved complex, row
- * stride `lda` bytes. B packed in panels of four columns: panel q at
- * pb + q·k·64, and within it for each p the 64 bytes [re j0..j3 | im j0..j3].
- * C as real/imaginary planes, row stride `ldc` bytes.
+ * ztile(m, n, k, pa, lda, pb, ldbq, pcr, pci, ldc, ldcq): for i < m, j < n
+ * (n a multiple of 4), p < k: Cre/Cim[i, j] += A[i, p]·B[p, j]. A interleaved
+ * complex, row stride `lda` bytes. B packed in panels of four columns: panel q
+ * at pb + q·ldbq, and within it for each p the 64 bytes [re j0..j3 | im j0..j3].
+ * C: the real parts of columns 4q…4q+3 of row i at pcr + i·ldc + q·ldcq
+ * (four f64), the imaginary parts likewise from pci; so C may be planes
+ * (ldcq = 32) or a row of the same panel layout as B (pci = pcr + 32,
+ * ldcq = the panel stride).
  */
 function ztileBody(): number[] {
-  const M = 0, N = 1, K = 2, PA = 3, LDA = 4, PB = 5, PCR = 6, PCI = 7, LDC = 8;
-  const I = 9, Q = 10, P = 11, A0 = 12, BP = 13, KB = 14, CR = 15, CI = 16, QN = 17, K16 = 18;
+  const M = 0, N = 1, K = 2, PA = 3, LDA = 4, PB = 5, LDBQ = 6, PCR = 7, PCI = 8, LDC = 9, LDCQ = 10;
+  const I = 11, Q = 12, P = 13, A0 = 14, BP = 15, CQ = 16, CR = 17, CI = 18, QN = 19, K16 = 20;
   const nI32 = 10;
   // v128 locals: accumulators (vector v of the tile, part h), B vectors, the two A splats
-  const V0 = 9 + nI32;
+  const V0 = 11 + nI32;
   const ACC = (v: number, h: number): number => V0 + 2 * v + h;
   const BV = (v: number, h: number): number => V0 + 4 + 2 * v + h;
   const AR = V0 + 8, AI = V0 + 9;
@@ -41,13 +44,12 @@ function ztileBody(): number[] {
     // cr += ar·br − ai·bi, ci += ar·bi + ai·br
     ...[0, 1].flatMap((v) => [...mac2(ACC(v, 0), AR, BV(v, 0), AI, BV(v, 1), true), ...mac2(ACC(v, 1), AR, BV(v, 1), AI, BV(v, 0), false)]),
   ];
-  // C[i, 4q + 2v …] (+)= tile; the column offset of panel q is q·32 bytes
+  // C[i, 4q + 2v …] (+)= tile, at CR/CI + q·ldcq (CQ) + 16v
   const storeTile = [0, 1].flatMap((h) => [0, 1].flatMap((v) => {
-    const at = [...get(h === 0 ? CR : CI), ...get(Q), ...c32(5), OP.i32Shl, ...c32(16 * v), OP.i32Add, OP.i32Add];
+    const at = [...get(h === 0 ? CR : CI), ...get(CQ), OP.i32Add, ...(v === 0 ? [] : [...c32(16 * v), OP.i32Add])];
     return [...at, ...at, ...vload(), ...get(ACC(v, h)), ...add, ...vstore()];
   }));
   const code: number[] = [
-    ...get(K), ...c32(6), OP.i32Shl, ...set(KB), // bytes per B panel
     ...get(K), ...c32(4), OP.i32Shl, ...set(K16), // bytes per A row
     ...get(N), ...c32(2), OP.i32ShrU, ...set(QN),
     ...c32(0), ...set(I),
@@ -60,7 +62,8 @@ function ztileBody(): number[] {
     OP.block, 0x40, OP.loop, 0x40,
     ...get(Q), ...get(QN), OP.i32GeU, OP.brIf, 1,
     ...[0, 1].flatMap((v) => [0, 1].flatMap((h) => [...vzero(), ...set(ACC(v, h))])),
-    ...get(PB), ...get(Q), ...get(KB), OP.i32Mul, OP.i32Add, ...set(BP),
+    ...get(PB), ...get(Q), ...get(LDBQ), OP.i32Mul, OP.i32Add, ...set(BP),
+    ...get(Q), ...get(LDCQ), OP.i32Mul, ...set(CQ),
     // P runs over A byte offsets 0, 16, …, 16(k−1); BP advances 64 per step
     ...c32(0), ...set(P),
     OP.block, 0x40, OP.loop, 0x40,
@@ -84,8 +87,8 @@ function ztileBody(): number[] {
 /** Raw exports of the tiled product module (byte addresses into `memory`). */
 export interface ZtileModule {
   memory: WebAssembly.Memory;
-  ztile: (m: number, n: number, k: number, pa: number, lda: number, pb: number, pcr: number, pci: number, ldc: number) => void;
+  ztile: (m: number, n: number, k: number, pa: number, lda: number, pb: number, ldbq: number, pcr: number, pci: number, ldc: number, ldcq: number) => void;
 }
 
 /** The tiled product module, or null when WebAssembly SIMD is unavailable or switched off. */
-export const loadZtile = lazyModule<ZtileModule>(() => [{ name: 'ztile', params: 9, body: ztileBody() }]);
+export const loadZtile = lazyModule<ZtileModule>(() => [{ name: 'ztile', params: 11, body: ztileBody() }]);
