@@ -13,54 +13,67 @@ import { loadZtile } from './ztile-wasm.js';
 /** Columns of X per pass (a multiple of 4), so the panel (n·W·16 bytes) stays in L2 for n ≲ 250. */
 const SIMD_PANEL = 64;
 
+/** One triangular factor of a chain of solves. */
+export interface TriangularStage {
+  /** n×n, interleaved row-major, leading dimension n. */
+  t: Float64Array;
+  /** Lower (else upper) triangular. */
+  lower: boolean;
+  /** Take the diagonal as 1. */
+  unitDiagonal: boolean;
+}
+
 /**
- * Solves T X = B in place (X holds B on entry, n×nrhs interleaved row-major)
- * for triangular T (n×n, leading dimension n), lower when `lower` is true,
- * else upper; `unitDiagonal` takes the diagonal as 1. Returns false (doing
- * nothing) when WebAssembly SIMD is unavailable.
+ * Solves T_s ⋯ T₂ T₁ X = B in place for the given triangular stages, applied
+ * in order (X ← T₁⁻¹X, then T₂⁻¹X, …), with X n×nrhs interleaved row-major
+ * holding B on entry. Each column panel is packed once, swept by every stage
+ * while it stays in cache, and unpacked once. Returns false (doing nothing)
+ * when WebAssembly SIMD is unavailable.
  *
  * Row-oriented substitution with the diagonal folded into the data:
  * with D = diag(T), xᵢ = bᵢ/tᵢᵢ + Σₚ (−tᵢₚ/tᵢᵢ)·xₚ over the solved rows p,
  * so each row is one call of the tiled product kernel (1 × W × #solved),
  * with the packed coefficients −tᵢₚ/tᵢᵢ as the left operand, the solved
  * rows of the panel as the right operand and row i of the same panel as the
- * result (Golub & Van Loan, *Matrix
- * Computations*, 4th ed., 2013, §3.1, from memory).
+ * result (Golub & Van Loan, *Matrix Computations*, 4th ed., 2013, §3.1,
+ * from memory).
  */
-export function simdSolveTriangular(lower: boolean, n: number, nrhs: number, t: Float64Array, x: Float64Array, unitDiagonal: boolean): boolean {
+export function simdSolveTriangular(n: number, nrhs: number, stages: readonly TriangularStage[], x: Float64Array): boolean {
   const mod = loadZtile();
   if (mod === null) return false;
   const w = Math.min(SIMD_PANEL, (nrhs + 3) & ~3);
-  // layout (bytes): coefficient rows (n(n−1)/2 complex, row i at rowStart[i]) | X panel:
+  // layout (bytes): per stage, coefficient rows (n(n−1)/2 complex, row i at rowStart[i]) | X panel:
   // groups of four columns, group q at px + q·n·64, row i of it the 64 bytes [re ×4 | im ×4]
   const coefCount = (n * (n - 1)) / 2;
-  const px = coefCount * 16, groupBytes = n * 64;
+  const px = stages.length * coefCount * 16, groupBytes = n * 64;
   const f = ensureMemory(mod.memory, px + (w >> 2) * groupBytes);
-  const rowStart = new Int32Array(n);
-  const invR = new Float64Array(n), invI = new Float64Array(n);
+  const rowStart = stages.map(() => new Int32Array(n));
+  const invR = stages.map(() => new Float64Array(n)), invI = stages.map(() => new Float64Array(n));
   let o = 0;
-  for (let i = 0; i < n; i++) {
-    const dr = t[2 * (i * n + i)], di = t[2 * (i * n + i) + 1];
-    let ir = 1, ii = 0;
-    if (!unitDiagonal) {
-      const den = dr * dr + di * di;
-      ir = dr / den; ii = -di / den;
+  stages.forEach(({ t, lower, unitDiagonal }, st) => {
+    for (let i = 0; i < n; i++) {
+      const dr = t[2 * (i * n + i)], di = t[2 * (i * n + i) + 1];
+      let ir = 1, ii = 0;
+      if (!unitDiagonal) {
+        const den = dr * dr + di * di;
+        ir = dr / den; ii = -di / den;
+      }
+      invR[st][i] = ir; invI[st][i] = ii;
+      rowStart[st][i] = o;
+      const p0 = lower ? 0 : i + 1, p1 = lower ? i : n;
+      for (let p = p0; p < p1; p++, o++) {
+        const tr = t[2 * (i * n + p)], ti = t[2 * (i * n + p) + 1];
+        f[2 * o] = -(tr * ir - ti * ii);
+        f[2 * o + 1] = -(tr * ii + ti * ir);
+      }
     }
-    invR[i] = ir; invI[i] = ii;
-    rowStart[i] = o;
-    const p0 = lower ? 0 : i + 1, p1 = lower ? i : n;
-    for (let p = p0; p < p1; p++, o++) {
-      const tr = t[2 * (i * n + p)], ti = t[2 * (i * n + p) + 1];
-      f[2 * o] = -(tr * ir - ti * ii);
-      f[2 * o + 1] = -(tr * ii + ti * ir);
-    }
-  }
+  });
   const x0 = px >> 3, g8 = groupBytes >> 3;
   for (let c0 = 0; c0 < nrhs; c0 += w) {
     const pw = Math.min(w, nrhs - c0), w4 = (pw + 3) & ~3;
-    // pack the panel, each row scaled by 1/tᵢᵢ; zero columns up to a multiple of four
+    // pack the panel, each row scaled by 1/tᵢᵢ of the first stage; zero columns up to a multiple of four
     for (let i = 0; i < n; i++) {
-      const ir = invR[i], ii = invI[i], s = 2 * (i * nrhs + c0);
+      const ir = invR[0][i], ii = invI[0][i], s = 2 * (i * nrhs + c0);
       for (let j = 0; j < w4; j++) {
         const d = x0 + (j >> 2) * g8 + 8 * i + (j & 3);
         if (j < pw) {
@@ -72,12 +85,27 @@ export function simdSolveTriangular(lower: boolean, n: number, nrhs: number, t: 
         }
       }
     }
-    for (let step = 1; step < n; step++) {
-      const i = lower ? step : n - 1 - step;
-      const first = lower ? 0 : i + 1;
-      const pc = px + i * 64;
-      mod.ztile(1, w4, step, rowStart[i] * 16, 0, px + first * 64, groupBytes, pc, pc + 32, 0, groupBytes);
-    }
+    stages.forEach(({ lower, unitDiagonal }, st) => {
+      if (st > 0 && !unitDiagonal) {
+        // later stages: scale the panel rows by their 1/tᵢᵢ in place
+        for (let i = 0; i < n; i++) {
+          const ir = invR[st][i], ii = invI[st][i];
+          for (let j = 0; j < w4; j++) {
+            const d = x0 + (j >> 2) * g8 + 8 * i + (j & 3);
+            const vr = f[d], vi = f[d + 4];
+            f[d] = vr * ir - vi * ii;
+            f[d + 4] = vr * ii + vi * ir;
+          }
+        }
+      }
+      const rs = rowStart[st];
+      for (let step = 1; step < n; step++) {
+        const i = lower ? step : n - 1 - step;
+        const first = lower ? 0 : i + 1;
+        const pc = px + i * 64;
+        mod.ztile(1, w4, step, rs[i] * 16, 0, px + first * 64, groupBytes, pc, pc + 32, 0, groupBytes);
+      }
+    });
     for (let i = 0; i < n; i++) {
       const s = 2 * (i * nrhs + c0);
       for (let j = 0; j < pw; j++) {

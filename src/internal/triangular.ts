@@ -38,7 +38,7 @@ const BLOCK = 16;
  * Computations*, 4th ed., 2013, §3.1.6, from memory).
  */
 export function solveLowerInPlace(n: number, nrhs: number, t: Float64Array, x: Float64Array, unitDiagonal: boolean): void {
-  if (nrhs >= SIMD_MIN_RHS && n >= SIMD_MIN_ORDER && simdSolveTriangular(true, n, nrhs, t, x, unitDiagonal)) return;
+  if (nrhs >= SIMD_MIN_RHS && n >= SIMD_MIN_ORDER && simdSolveTriangular(n, nrhs, [{ t, lower: true, unitDiagonal }], x)) return;
   for (let b0 = 0; b0 < n; b0 += BLOCK) {
     const nb = Math.min(BLOCK, n - b0);
     // X[b0:b0+nb] −= T[b0:b0+nb, 0:b0] · X[0:b0]
@@ -59,7 +59,7 @@ export function solveLowerInPlace(n: number, nrhs: number, t: Float64Array, x: F
  * Blocked from the bottom up like {@link solveLowerInPlace}.
  */
 export function solveUpperInPlace(n: number, nrhs: number, t: Float64Array, x: Float64Array, unitDiagonal: boolean): void {
-  if (nrhs >= SIMD_MIN_RHS && n >= SIMD_MIN_ORDER && simdSolveTriangular(false, n, nrhs, t, x, unitDiagonal)) return;
+  if (nrhs >= SIMD_MIN_RHS && n >= SIMD_MIN_ORDER && simdSolveTriangular(n, nrhs, [{ t, lower: false, unitDiagonal }], x)) return;
   for (let e0 = n; e0 > 0; e0 -= BLOCK) {
     const b0 = Math.max(0, e0 - BLOCK), nb = e0 - b0;
     // X[b0:e0] −= T[b0:e0, e0:n] · X[e0:n]
@@ -73,6 +73,22 @@ export function solveUpperInPlace(n: number, nrhs: number, t: Float64Array, x: F
       }
     }
   }
+}
+
+/**
+ * Solves U L X = B in place, i.e. X ← U⁻¹(L⁻¹B), for lower-triangular L and
+ * upper-triangular U (n×n, leading dimension n), X n×nrhs: the pair of
+ * substitutions of a Cholesky or LU solve. With WebAssembly SIMD both sweeps
+ * run on each column panel while it stays in cache; otherwise
+ * {@link solveLowerInPlace} then {@link solveUpperInPlace}.
+ */
+export function solveLowerThenUpperInPlace(
+  n: number, nrhs: number, l: Float64Array, lUnitDiagonal: boolean, u: Float64Array, uUnitDiagonal: boolean, x: Float64Array,
+): void {
+  if (nrhs >= SIMD_MIN_RHS && n >= SIMD_MIN_ORDER &&
+    simdSolveTriangular(n, nrhs, [{ t: l, lower: true, unitDiagonal: lUnitDiagonal }, { t: u, lower: false, unitDiagonal: uUnitDiagonal }], x)) return;
+  solveLowerInPlace(n, nrhs, l, x, lUnitDiagonal);
+  solveUpperInPlace(n, nrhs, u, x, uUnitDiagonal);
 }
 
 /** Conjugate transpose of an n×n interleaved matrix into a new buffer. */

@@ -4,7 +4,7 @@
  * @module
  */
 import { DimensionError, DomainError, NotPositiveDefiniteError } from '../errors.js';
-import { adjointSquare, solveLowerInPlace, solveUpperInPlace } from '../internal/triangular.js';
+import { adjointSquare, solveLowerInPlace, solveLowerThenUpperInPlace, solveUpperInPlace } from '../internal/triangular.js';
 import { assertCMatrix, assertFiniteCMatrix, assertSquare } from '../internal/validate.js';
 import type { CMatrix } from './cmatrix.js';
 import { hermitianDeviation } from './ops.js';
@@ -131,8 +131,7 @@ function checkCholesky(f: CholeskyResult, b: CMatrix): void {
 export function choleskySolve(factor: CholeskyResult, b: CMatrix): CMatrix {
   checkCholesky(factor, b);
   const x = b.data.slice();
-  solveLowerInPlace(factor.n, b.cols, factor.l.data, x, false);
-  solveUpperInPlace(factor.n, b.cols, factor.lAdjoint.data, x, false);
+  solveLowerThenUpperInPlace(factor.n, b.cols, factor.l.data, false, factor.lAdjoint.data, false, x);
   return { rows: b.rows, cols: b.cols, data: x };
 }
 

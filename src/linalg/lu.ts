@@ -5,7 +5,7 @@
  */
 import { Complex } from 'complex.js';
 import { DimensionError, SingularMatrixError } from '../errors.js';
-import { adjointSquare, solveLowerInPlace, solveUpperInPlace } from '../internal/triangular.js';
+import { adjointSquare, solveLowerInPlace, solveLowerThenUpperInPlace, solveUpperInPlace } from '../internal/triangular.js';
 import { assertCMatrix, assertFiniteCMatrix, assertSquare } from '../internal/validate.js';
 import { type CMatrix, identity } from './cmatrix.js';
 import { norm1 } from './ops.js';
@@ -110,8 +110,7 @@ export function luFactor(a: CMatrix): LuResult {
 function luSolveRaw(n: number, k: number, lu: Float64Array, piv: Int32Array, b: Float64Array): Float64Array {
   const x = new Float64Array(2 * n * k);
   for (let i = 0; i < n; i++) x.set(b.subarray(2 * piv[i] * k, 2 * (piv[i] + 1) * k), 2 * i * k);
-  solveLowerInPlace(n, k, lu, x, true);
-  solveUpperInPlace(n, k, lu, x, false);
+  solveLowerThenUpperInPlace(n, k, lu, true, lu, false, x);
   return x;
 }
 
@@ -120,8 +119,7 @@ function luSolveAdjointRaw(n: number, k: number, lu: Float64Array, piv: Int32Arr
   // Aᴴ = Uᴴ Lᴴ P: solve Uᴴ w = b (lower), Lᴴ v = w (unit upper), x = Pᵀ v.
   const luH = adjointSquare(n, lu);
   const w = b.slice();
-  solveLowerInPlace(n, k, luH, w, false);
-  solveUpperInPlace(n, k, luH, w, true);
+  solveLowerThenUpperInPlace(n, k, luH, false, luH, true, w);
   const x = new Float64Array(2 * n * k);
   for (let i = 0; i < n; i++) x.set(w.subarray(2 * i * k, 2 * (i + 1) * k), 2 * piv[i] * k);
   return x;

@@ -127,7 +127,7 @@ describe('SIMD triangular substitution', () => {
         }
         const b = randomMatrix(n, nrhs, seed + 1).data;
         const x = b.slice();
-        expect(simdSolveTriangular(lower, n, nrhs, t, x, unit)).toBe(true);
+        expect(simdSolveTriangular(n, nrhs, [{ t, lower, unitDiagonal: unit }], x)).toBe(true);
         // residual T·X − B (unit diagonal taken as 1) against the componentwise backward-error
         // bound of substitution, |T X − B| ≤ c·n·ε·|T||X| (Higham, Accuracy and Stability of
         // Numerical Algorithms, 2nd ed., 2002, Thm 8.5, from memory), with c = 4 for complex arithmetic
@@ -177,5 +177,35 @@ describe('SIMD Hermitian rank-k update', () => {
         expect(Math.abs(c[q] - cs[q])).toBeLessThanOrEqual(4 * k * EPS * (2 * k + 1));
       }
     }), { seed: 29, numRuns: 60 });
+  });
+});
+
+describe('fused lower-then-upper substitution', () => {
+  it('equals the two scalar substitutions in sequence (unit and non-unit, complex diagonals, odd widths)', async () => {
+    const { solveLowerThenUpperInPlace, solveLowerInPlace, solveUpperInPlace } = await import('../../src/internal/triangular.js');
+    const { wasmSettings } = await import('../../src/internal/wasm-assembler.js');
+    for (const [n, nrhs, lUnit, uUnit] of [[37, 131, true, false], [20, 5, false, true], [64, 70, false, false]] as const) {
+      const l = randomMatrix(n, n, n).data, u = randomMatrix(n, n, n + 1).data;
+      for (let i = 0; i < n; i++) {
+        for (let p = 0; p < n; p++) {
+          if (p > i) { l[2 * (i * n + p)] = 0; l[2 * (i * n + p) + 1] = 0; }
+          if (p < i) { u[2 * (i * n + p)] = 0; u[2 * (i * n + p) + 1] = 0; }
+        }
+        l[2 * (i * n + i)] += n; u[2 * (i * n + i) + 1] -= n;
+      }
+      const b = randomMatrix(n, nrhs, 7).data;
+      const x = b.slice();
+      solveLowerThenUpperInPlace(n, nrhs, l, lUnit, u, uUnit, x);
+      const y = b.slice();
+      wasmSettings.enabled = false;
+      try {
+        solveLowerInPlace(n, nrhs, l, y, lUnit);
+        solveUpperInPlace(n, nrhs, u, y, uUnit);
+      } finally {
+        wasmSettings.enabled = true;
+      }
+      const scale = y.reduce((m, v) => Math.max(m, Math.abs(v)), 0);
+      for (let q = 0; q < y.length; q++) expect(Math.abs(x[q] - y[q])).toBeLessThan(1e-12 * scale);
+    }
   });
 });
