@@ -180,8 +180,17 @@ export function sampledPatternSource(patterns: SampledPortPatterns): PortPattern
     frequencyHz: patterns.frequencyHz,
     fill(thetaRad, phiRad, start, count, outTheta, outPhi, ld) {
       const same = thetaRad === patterns.thetaRad && phiRad === patterns.phiRad;
+      if (same) {
+        // the requested directions are the sampled ones, in order: one contiguous copy per port
+        for (let i = 0; i < n; i++) {
+          const s = 2 * (i * m + start), d = 2 * i * ld;
+          outTheta.set(th.subarray(s, s + 2 * count), d);
+          outPhi.set(ph.subarray(s, s + 2 * count), d);
+        }
+        return;
+      }
       for (let k = 0; k < count; k++) {
-        const src = same ? start + k : indexOf(thetaRad[start + k], phiRad[start + k]);
+        const src = indexOf(thetaRad[start + k], phiRad[start + k]);
         for (let i = 0; i < n; i++) {
           const s = 2 * (i * m + src), d = 2 * (i * ld + k);
           outTheta[d] = th[s]; outTheta[d + 1] = th[s + 1];
