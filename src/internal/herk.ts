@@ -33,36 +33,79 @@ export function herkLowerKernel(n: number, k: number, g: Float64Array, ldg: numb
  * false (doing nothing) when WebAssembly SIMD is unavailable.
  */
 export function simdHerkLower(n: number, k: number, g: Float64Array, ldg: number, c: Float64Array): boolean {
+  return packedHerk(n, k, c, (f, a0, b0) => {
+    for (let i = 0; i < n; i++) {
+      const s = 2 * i * ldg;
+      f.set(g.subarray(s, s + 2 * k), a0 + 2 * i * k);
+      const q = b0 + (i >> 2) * k * 8 + (i & 3);
+      for (let p = 0; p < k; p++) { f[q + 8 * p] = g[s + 2 * p]; f[q + 8 * p + 4] = -g[s + 2 * p + 1]; }
+    }
+  });
+}
+
+/**
+ * Lower triangle of C[n×n] += Σₛ Gₛ·diag(d)·Gₛᴴ for real weights d ≥ 0 on the
+ * SIMD kernel: columns p with d[p] > 0 of every Gₛ (n×k, leading dimension
+ * `ldg`) are packed once, scaled by d[p] on the left operand only; columns of
+ * zero weight are skipped. Returns false (doing nothing) for small n or when
+ * WebAssembly SIMD is unavailable; the caller then forms its own scaled G for
+ * {@link herkLowerKernel}.
+ */
+export function herkLowerWeighted(n: number, k: number, gs: readonly Float64Array[], ldg: number, d: Float64Array, c: Float64Array): boolean {
+  if (n < HERK_SIMD_MIN) return false;
+  let used = 0;
+  for (let p = 0; p < k; p++) if (d[p] > 0) used++;
+  const kk = used * gs.length;
+  if (kk === 0) return loadZtile() !== null;
+  return packedHerk(n, kk, c, (f, a0, b0) => {
+    for (let i = 0; i < n; i++) {
+      const q = b0 + (i >> 2) * kk * 8 + (i & 3);
+      let u = 0, a = a0 + 2 * i * kk;
+      for (const g of gs) {
+        const s = 2 * i * ldg;
+        for (let p = 0; p < k; p++) {
+          const w = d[p];
+          if (!(w > 0)) continue;
+          const re = g[s + 2 * p], im = g[s + 2 * p + 1];
+          f[a] = w * re; f[a + 1] = w * im; a += 2;
+          f[q + 8 * u] = re; f[q + 8 * u + 4] = -im; u++;
+        }
+      }
+    }
+  });
+}
+
+/**
+ * Shared body of the SIMD rank-k updates: `pack(f, a0, b0)` writes rows
+ * 0…n−1 of A (n×kk interleaved, at double index a0) and of the four-column
+ * panels of B = Gᴴ (at double index b0; column i of B in panel i>>2, lane i&3);
+ * padding, the kernel calls and the accumulation into `c` are done here.
+ */
+function packedHerk(n: number, kk: number, c: Float64Array, pack: (f: Float64Array, a0: number, b0: number) => void): boolean {
   const mod = loadZtile();
   if (mod === null) return false;
   const n4 = (n + 3) & ~3;
-  // layout (bytes): A (n4·k·16) | B panels (n4·k·16) | Cre (n4·n4·8) | Cim
-  const abytes = n4 * k * 16, cBytes = n4 * n4 * 8;
+  // layout (bytes): A (n4·kk·16) | B panels (n4·kk·16) | Cre (n4·n4·8) | Cim
+  const abytes = n4 * kk * 16, cBytes = n4 * n4 * 8;
   const f = ensureMemory(mod.memory, 2 * abytes + 2 * cBytes);
   const pb = abytes, pcr = 2 * abytes, pci = pcr + cBytes;
   const b0 = pb >> 3, cr = pcr >> 3, ci = pci >> 3;
-  for (let i = 0; i < n; i++) {
-    const s = 2 * i * ldg;
-    f.set(g.subarray(s, s + 2 * k), 2 * i * k);
-    // Gᴴ[p, i] = conj(G[i, p]) into column i&3 of panel i>>2
-    const q = b0 + (i >> 2) * k * 8 + (i & 3);
-    for (let p = 0; p < k; p++) { f[q + 8 * p] = g[s + 2 * p]; f[q + 8 * p + 4] = -g[s + 2 * p + 1]; }
-  }
+  pack(f, 0, b0);
   if (n4 !== n) {
-    f.fill(0, 2 * n * k, 2 * n4 * k);
+    f.fill(0, 2 * n * kk, 2 * n4 * kk);
     for (let i = n; i < n4; i++) {
-      const q = b0 + (i >> 2) * k * 8 + (i & 3);
-      for (let p = 0; p < k; p++) { f[q + 8 * p] = 0; f[q + 8 * p + 4] = 0; }
+      const q = b0 + (i >> 2) * kk * 8 + (i & 3);
+      for (let p = 0; p < kk; p++) { f[q + 8 * p] = 0; f[q + 8 * p + 4] = 0; }
     }
   }
   f.fill(0, cr, ci + n4 * n4);
   const ld = n4 * 8;
   // rows [i0, i0+4) against columns [0, i0+4): the lower triangle in 4×4 granules
-  for (let i0 = 0; i0 < n4; i0 += 4) mod.ztile(4, i0 + 4, k, i0 * k * 16, k * 16, pb, k * 64, pcr + i0 * ld, pci + i0 * ld, ld, 32);
+  for (let i0 = 0; i0 < n4; i0 += 4) mod.ztile(4, i0 + 4, kk, i0 * kk * 16, kk * 16, pb, kk * 64, pcr + i0 * ld, pci + i0 * ld, ld, 32);
   for (let i = 0; i < n; i++) {
-    const d = 2 * i * n, s = i * n4;
-    for (let j = 0; j < i; j++) { c[d + 2 * j] += f[cr + s + j]; c[d + 2 * j + 1] += f[ci + s + j]; }
-    c[d + 2 * i] += f[cr + s + i];
+    const dd = 2 * i * n, s = i * n4;
+    for (let j = 0; j < i; j++) { c[dd + 2 * j] += f[cr + s + j]; c[dd + 2 * j + 1] += f[ci + s + j]; }
+    c[dd + 2 * i] += f[cr + s + i];
   }
   return true;
 }

@@ -5,7 +5,7 @@
  */
 import { DimensionError, DomainError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
-import { herkLowerKernel, mirrorLowerToUpper } from '../internal/herk.js';
+import { herkLowerKernel, herkLowerWeighted, mirrorLowerToUpper } from '../internal/herk.js';
 import { assertInteger, assertPositive, describeValue } from '../internal/validate.js';
 import { ETA0_OHM, K_BOLTZMANN_J_PER_K } from '../units/constants.js';
 import {
@@ -125,7 +125,7 @@ export function brightnessCorrelations(
   const acc = maps.map(() => new Float64Array(2 * n * n));
   const ft = new Float64Array(2 * n * block), fp = new Float64Array(2 * n * block);
   const g = new Float64Array(2 * n * 2 * block);
-  const sq = new Float64Array(block);
+  const sq = new Float64Array(block), wt = new Float64Array(block);
   const cols = new Int32Array(block);
   for (let start = 0; start < m; start += block) {
     const count = Math.min(block, m - start);
@@ -138,6 +138,9 @@ export function brightnessCorrelations(
     src.fill(quadrature.thetaRad, quadrature.phiRad, start, count, ft, fp, block);
     for (let t = 0; t < maps.length; t++) {
       const tm = maps[t];
+      // SIMD path: weights wₖTₖ applied to one side, F_θ and F_φ read in place
+      for (let k = 0; k < count; k++) wt[k] = w[start + k] * tm[start + k];
+      if (herkLowerWeighted(n, count, [ft, fp], block, wt, acc[t])) continue;
       let used = 0;
       for (let k = 0; k < count; k++) {
         const v = w[start + k] * tm[start + k];
