@@ -53,22 +53,20 @@ export function simdHerkLower(n: number, k: number, g: Float64Array, ldg: number
  */
 export function herkLowerWeighted(n: number, k: number, gs: readonly Float64Array[], ldg: number, d: Float64Array, c: Float64Array): boolean {
   if (n < HERK_SIMD_MIN) return false;
+  const idx = new Int32Array(k);
   let used = 0;
-  for (let p = 0; p < k; p++) if (d[p] > 0) used++;
+  for (let p = 0; p < k; p++) if (d[p] > 0) idx[used++] = p;
   const kk = used * gs.length;
   if (kk === 0) return loadZtile() !== null;
   return packedHerk(n, kk, c, (f, a0, b0) => {
     for (let i = 0; i < n; i++) {
-      const q = b0 + (i >> 2) * kk * 8 + (i & 3);
-      let u = 0, a = a0 + 2 * i * kk;
+      const q = b0 + (i >> 2) * kk * 8 + (i & 3), s = 2 * i * ldg;
+      let a = a0 + 2 * i * kk, bq = q;
       for (const g of gs) {
-        const s = 2 * i * ldg;
-        for (let p = 0; p < k; p++) {
-          const w = d[p];
-          if (!(w > 0)) continue;
-          const re = g[s + 2 * p], im = g[s + 2 * p + 1];
+        for (let u = 0; u < used; u++) {
+          const p = idx[u], w = d[p], re = g[s + 2 * p], im = g[s + 2 * p + 1];
           f[a] = w * re; f[a + 1] = w * im; a += 2;
-          f[q + 8 * u] = re; f[q + 8 * u + 4] = -im; u++;
+          f[bq] = re; f[bq + 4] = -im; bq += 8;
         }
       }
     }
