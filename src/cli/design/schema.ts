@@ -14,7 +14,7 @@ const positive = (unit: string) => z.number().positive().describe(unit);
 const finite = z.number();
 const vector3 = z.tuple([finite, finite, finite]);
 
-const complexValue = z.union([finite, z.strictObject({ re: finite, im: finite })]);
+const complexValue = z.union([finite, z.strictObject({ re: finite, im: finite })], { error: 'expected a number or {"re": number, "im": number}' });
 
 const lineLayout = z.strictObject({
   kind: z.literal('line'),
@@ -96,7 +96,7 @@ const taper = z.discriminatedUnion('kind', [
 ]);
 const beams = z.strictObject({
   planePhiDeg: finite.optional(),
-  thetaDeg: z.union([angleList, angleRange]),
+  thetaDeg: z.union([angleList, angleRange], { error: 'expected a list of angles [deg] or {"fromDeg", "toDeg", "count"}' }),
   beamformer: z.enum(['max-snr', 'conjugate-field', 'taper']).optional(),
   taper: taper.optional(),
 }).superRefine((b, ctx) => {
@@ -151,7 +151,7 @@ function issueText(issue: z.core.$ZodIssue): string {
   const found = 'input' in issue ? describeInput(issue.input) : 'nothing (the field is missing)';
   switch (issue.code) {
     case 'invalid_type':
-      return `${where}: expected ${issue.expected}, received ${found}`;
+      return `${where}: expected ${issue.expected === "int" ? "an integer" : issue.expected}, received ${found}`;
     case 'unrecognized_keys':
       return `${where}: unknown field${issue.keys.length > 1 ? 's' : ''} ${issue.keys.map((k) => `"${k}"`).join(', ')} (check the spelling and the unit suffix, e.g. frequencyHz, spacingM, thetaDeg)`;
     case 'invalid_union':
@@ -160,7 +160,7 @@ function issueText(issue: z.core.$ZodIssue): string {
         const input = issue.input as Record<string, unknown> | undefined;
         return `${where}: expected one of ${opts}, received ${describeInput(input?.[issue.discriminator as string])}`;
       }
-      return `${where}: expected one of the documented forms, received ${found}`;
+      return `${where}: ${issue.message.startsWith('expected') ? issue.message : 'expected one of the documented forms'}, received ${found}`;
     case 'too_small':
     case 'too_big': {
       const msg = issue.message.replace(/^Too (small|big): /, '');
