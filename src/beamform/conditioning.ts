@@ -20,7 +20,11 @@
 import { NotPositiveDefiniteError, SingularMatrixError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
 import { type CholeskyResult, choleskyFactor } from '../linalg/cholesky.js';
+import { assertHermitian } from '../linalg/eigen.js';
 import { assertFiniteCMatrix, assertNonNegative, assertShape, assertSquare } from '../internal/validate.js';
+
+/** Relative Hermitian deviation accepted for correlation matrices (policy rule 1). */
+export const HERMITIAN_TOLERANCE = 1e-10;
 
 /**
  * R + δ·I with δ = relativeLoading · Re tr(R) / N: diagonal loading relative to
@@ -64,6 +68,7 @@ export function factorCorrelation(name: string, r: CMatrix, n: number, relativeL
   assertFiniteCMatrix(name, r);
   assertShape(name, r, n, n, 'one row and column per array element');
   assertNonNegative('diagonalLoading', relativeLoading);
+  assertHermitian(name, r, HERMITIAN_TOLERANCE);
   const f = choleskyFactor(relativeLoading > 0 ? loaded(r, relativeLoading) : r);
   if (!f.positiveDefinite) {
     throw new NotPositiveDefiniteError(

@@ -29,9 +29,10 @@ export interface CramerRaoBoundResult {
  * derivatives of the steering vectors with respect to each source's direction
  * parameter, P the source correlation (here diagonal: the source powers) and T
  * the number of snapshots (P. Stoica and A. Nehorai, "MUSIC, maximum
- * likelihood, and Cramér–Rao bound", IEEE Trans. ASSP 37(5), 1989, eq. 4.1,
+ * likelihood, and Cramér–Rao bound", IEEE Trans. ASSP 37(5), 1989,
  * from memory; P stands in for the sample source covariance, which it equals
- * for large T). The parameter is whatever D differentiates by: θ [rad] with
+ * for large T). With P diagonal, Re[H ⊙ Pᵀ] is diagonal, so the bound is diagonal:
+ * σ²/(2T pᵢ Hᵢᵢ) for source i. The parameter is whatever D differentiates by: θ [rad] with
  * ∂aₙ/∂θ, or a direction cosine u with ∂aₙ/∂u = j k xₙ aₙ for a line array
  * along x.
  * @param steering - Steering vectors A of the sources, N×K, linearly independent.

@@ -90,7 +90,28 @@ export function beamPowerPattern(w: CMatrix, components: CMatrix | ReadonlyArray
     assertShape(`components[${i}]`, c, first.rows, first.cols, 'the shape of components[0]');
   });
   assertWeights(w, first.rows, 'one weight per row of the responses');
-  const out = new Float64Array(first.cols);
+  return beamPowerPatternInto(new Float64Array(first.cols), w, list);
+}
+
+/**
+ * Allocation-free {@link beamPowerPattern}: writes Σ_c |wᴴ f_c(r̂ₖ)|² into `out`
+ * (overwriting it) and returns it. Checks shapes only (validate once with the
+ * allocating form or yourself); `out` must not share storage with `w` or the components.
+ * @param out - Destination, length K.
+ * @param w - Weights, N×1 [dimensionless].
+ * @param components - One response matrix N×K, or a list of them [dimensionless or V].
+ * @returns `out` [square of the response unit].
+ * @throws {@link DimensionError} on inconsistent shapes.
+ * @category Beamforming
+ */
+export function beamPowerPatternInto<T extends Float64Array>(out: T, w: CMatrix, components: CMatrix | ReadonlyArray<CMatrix>): T {
+  const list = Array.isArray(components) ? components : [components as CMatrix];
+  for (const c of list) {
+    if (c.rows !== w.rows || c.cols !== out.length || w.cols !== 1) {
+      throw new DimensionError(`invalid arguments to beamPowerPatternInto: weights ${w.rows}×${w.cols}, response ${c.rows}×${c.cols} and out of length ${out.length} do not match (expected N×1, N×K and K).`);
+    }
+  }
+  out.fill(0);
   for (const c of list) responsePowersInto(out, w, c);
   return out;
 }
@@ -179,7 +200,7 @@ export function whiteNoiseGain(w: CMatrix, a: CMatrix): number {
 /**
  * Array gain: output SNR of the beam divided by the input SNR at one
  * reference element, SNR_out / (|a_ref|² / R_n,ref,ref) (H. L. Van Trees,
- * *Optimum Array Processing*, Wiley, 2002, §6.2, from memory).
+ * *Optimum Array Processing*, Wiley, 2002, from memory).
  * @param w - Weights, N×1 [dimensionless].
  * @param a - Signal response vector, N×1 [same units as the noise correlation's square root].
  * @param noise - Noise correlation matrix, N×N.

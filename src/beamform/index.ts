@@ -9,7 +9,7 @@ export type { ProjectionBeamResult, CorrelationBeamResult } from './projection.j
 export { projectionWeights, estimateInterferenceSubspace, maxSnrWeightsForCorrelation } from './projection.js';
 export type { InterferenceRejectionResult } from './evaluate.js';
 export {
-  beamResponse, beamPowerPattern, beamOutputPower, beamSnr, whiteNoiseGain, arrayGain, interferenceRejection,
+  beamResponse, beamPowerPattern, beamPowerPatternInto, beamOutputPower, beamSnr, whiteNoiseGain, arrayGain, interferenceRejection,
 } from './evaluate.js';
 export type { SnapshotScenario, SnapshotSimulation } from './snapshots.js';
 export { simulateSnapshots, sampleCorrelation } from './snapshots.js';

@@ -6,10 +6,10 @@
 import { DimensionError, SingularMatrixError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
 import { type CholeskyResult, choleskySolve, solveLowerAdjoint, solveLowerTriangular } from '../linalg/cholesky.js';
-import { hermitianEigen } from '../linalg/eigen.js';
+import { assertHermitian, hermitianEigen } from '../linalg/eigen.js';
 import { adjoint, multiply } from '../linalg/ops.js';
 import { assertColumn, assertFiniteCMatrix, assertInteger, assertShape } from '../internal/validate.js';
-import { factorCorrelation, factorGram } from './conditioning.js';
+import { HERMITIAN_TOLERANCE, factorCorrelation, factorGram } from './conditioning.js';
 import { type BeamNormalization, assertNormalization, normalizeColumn } from './normalize.js';
 import { responsePowersInto } from './evaluate.js';
 import { splitSubspaces } from './spectra.js';
@@ -139,7 +139,7 @@ export interface CorrelationBeamResult {
  * Maximises wᴴR_s w / wᴴR_n w (generalised Rayleigh quotient; the maximum SNR
  * is λ_max). Used for partially coherent or extended sources and for a
  * polarised/unpolarised source received by dual-polarised elements (Van Trees
- * 2002, §6.2, from memory). Computed by whitening with R_n = L Lᴴ (under the
+ * 2002, from memory). Computed by whitening with R_n = L Lᴴ (under the
  * module's conditioning policy, see {@link diagonalLoading}): the principal
  * eigenvector v of L⁻¹R_s L⁻ᴴ gives w = L⁻ᴴv. For rank-one R_s = a aᴴ it
  * reduces to {@link maxSnrWeights}.
@@ -158,6 +158,7 @@ export function maxSnrWeightsForCorrelation(
   assertFiniteCMatrix('signal', signal);
   const n = signal.rows;
   assertShape('signal', signal, n, n, 'a square matrix');
+  assertHermitian('signal', signal, HERMITIAN_TOLERANCE);
   const mode = options.normalization ?? 'unitNoise';
   assertNormalization(mode, ['unitNoise', 'unitNorm']);
   const f = factorCorrelation('noise', noise, n, options.diagonalLoading ?? 0);

@@ -63,7 +63,7 @@ export function rootMusic(correlation: CMatrix, sourceCount: number, geometry: U
   assertPositive('geometry.spacingM', geometry?.spacingM, 'm');
   assertPositive('geometry.frequencyHz', geometry?.frequencyHz, 'Hz');
   const kd = wavenumberRadPerM(geometry.frequencyHz) * geometry.spacingM;
-  const en = splitSubspaces('', correlation, sourceCount).noise;
+  const en = splitSubspaces('correlation', correlation, sourceCount).noise;
   const m = en.cols, e = en.data;
   // Coefficient of z^{l+N−1} is Σ_{n−m=l} C_{mn}, C = E_n E_nᴴ; highest power (l = N−1) first.
   const coeff = { rows: 2 * n - 1, cols: 1, data: new Float64Array(2 * (2 * n - 1)) };

@@ -8,7 +8,8 @@
 import { DimensionError, DomainError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
 import { choleskyFactor } from '../linalg/cholesky.js';
-import { hermitianEigen } from '../linalg/eigen.js';
+import { assertHermitian, hermitianEigen } from '../linalg/eigen.js';
+import { HERMITIAN_TOLERANCE } from './conditioning.js';
 import { multiplyInto } from '../linalg/ops.js';
 import { RandomStream } from '../internal/random.js';
 import { assertFiniteArray, assertFiniteCMatrix, assertInteger, assertNonNegative, assertShape } from '../internal/validate.js';
@@ -135,6 +136,7 @@ export function simulateSnapshots(scenario: SnapshotScenario): SnapshotSimulatio
   if (scenario.noiseCorrelation) {
     assertFiniteCMatrix('noiseCorrelation', scenario.noiseCorrelation);
     assertShape('noiseCorrelation', scenario.noiseCorrelation, n, n, 'one row and column per element');
+    assertHermitian('noiseCorrelation', scenario.noiseCorrelation, HERMITIAN_TOLERANCE);
     const f = choleskyFactor(scenario.noiseCorrelation);
     if (!f.positiveDefinite) {
       throw new DomainError(`invalid argument "noiseCorrelation": not positive definite (Cholesky pivot ${f.failedPivot}); pass a positive definite noise correlation or use noisePower.`);
@@ -153,6 +155,7 @@ export function simulateSnapshots(scenario: SnapshotScenario): SnapshotSimulatio
       const g = scenario.sourceCoherence;
       assertFiniteCMatrix('sourceCoherence', g);
       assertShape('sourceCoherence', g, k, k, 'one row and column per source');
+      assertHermitian('sourceCoherence', g, HERMITIAN_TOLERANCE);
       for (let i = 0; i < k; i++) {
         const d = g.data[2 * (i * k + i)], di = g.data[2 * (i * k + i) + 1];
         if (Math.abs(d - 1) > 1e-12 || Math.abs(di) > 1e-12) {

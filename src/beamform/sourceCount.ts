@@ -5,7 +5,8 @@
  */
 import { DomainError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
-import { hermitianEigen } from '../linalg/eigen.js';
+import { assertHermitian, hermitianEigen } from '../linalg/eigen.js';
+import { HERMITIAN_TOLERANCE } from './conditioning.js';
 import { assertInteger } from '../internal/validate.js';
 
 /**
@@ -34,7 +35,7 @@ export interface SourceCountResult {
  * MDL(k) = −T(N−k) ln(g/a) + ½ k(2N−k) ln T,
  * and the estimate minimises the criterion over k = 0 … N−1 (M. Wax and T.
  * Kailath, "Detection of signals by information theoretic criteria", IEEE
- * Trans. ASSP 33(2), 1985, eqs. 16–17, from memory). MDL is consistent; AIC
+ * Trans. ASSP 33(2), 1985, from memory; equation numbers not held). MDL is consistent; AIC
  * tends to overestimate at large T. Assumes spatially white noise (pre-whiten
  * coloured noise) and T ≥ N.
  * @param correlation - Sample correlation matrix, N×N Hermitian (see {@link sampleCorrelation}).
@@ -50,6 +51,7 @@ export function estimateSourceCount(correlation: CMatrix, snapshotCount: number,
   if (criterion !== 'mdl' && criterion !== 'aic') {
     throw new DomainError(`invalid argument "criterion": expected 'mdl' or 'aic', received ${JSON.stringify(criterion)}.`);
   }
+  assertHermitian('correlation', correlation, HERMITIAN_TOLERANCE);
   const asc = hermitianEigen(correlation, { valuesOnly: true }).values;
   const n = asc.length;
   const l = new Float64Array(n);

@@ -6,11 +6,11 @@
  */
 import { DimensionError, DomainError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
-import { hermitianEigen } from '../linalg/eigen.js';
+import { assertHermitian, hermitianEigen } from '../linalg/eigen.js';
 import { solveLowerTriangular } from '../linalg/cholesky.js';
 import { assertFiniteCMatrix, assertInteger, assertShape } from '../internal/validate.js';
 import { gemmKernel } from '../internal/gemm.js';
-import { factorCorrelation } from './conditioning.js';
+import { HERMITIAN_TOLERANCE, factorCorrelation } from './conditioning.js';
 
 function checkGrid(correlation: CMatrix, steering: CMatrix): number {
   assertFiniteCMatrix('steering', steering);
@@ -19,6 +19,7 @@ function checkGrid(correlation: CMatrix, steering: CMatrix): number {
   }
   assertFiniteCMatrix('correlation', correlation);
   assertShape('correlation', correlation, steering.rows, steering.rows, 'one row and column per element, like "steering"');
+  assertHermitian('correlation', correlation, HERMITIAN_TOLERANCE);
   return steering.rows;
 }
 
@@ -42,7 +43,7 @@ function columnPowers(a: CMatrix): Float64Array {
  * steering gives p + σ²/N at its direction. Resolution is limited to about one
  * beamwidth (M. S. Bartlett, *An Introduction to Stochastic Processes*, 1956;
  * H. Krim and M. Viberg, "Two decades of array signal processing research",
- * IEEE Signal Processing Mag. 13(4), 1996, §4.1, from memory).
+ * IEEE Signal Processing Mag. 13(4), 1996, from memory).
  * @param correlation - Correlation matrix R, N×N Hermitian [W or V²].
  * @param steering - Steering vectors of the scan directions as columns, N×K.
  * @returns Spectrum per direction, length K [unit of R].
@@ -101,7 +102,7 @@ export function caponSpectrum(correlation: CMatrix, steering: CMatrix, options: 
  * as N×K and N×(N−K) matrices.
  */
 export function splitSubspaces(name: string, correlation: CMatrix, sourceCount: number): { signal: CMatrix; noise: CMatrix; values: Float64Array } {
-  const n = correlation.rows;
+  const n = assertHermitian(name, correlation, HERMITIAN_TOLERANCE);
   assertInteger('sourceCount', sourceCount, 0, n - 1);
   const { values, vectors } = hermitianEigen(correlation);
   const v = vectors!;
@@ -122,7 +123,7 @@ export function splitSubspaces(name: string, correlation: CMatrix, sourceCount: 
       }
     }
   }
-  if (name && !(values[n - 1] > 0)) throw new DomainError(`invalid argument "${name}": it has no positive eigenvalue.`);
+  if (!(values[n - 1] > 0)) throw new DomainError(`invalid argument "${name}": it has no positive eigenvalue.`);
   return { signal, noise, values };
 }
 
@@ -148,7 +149,7 @@ export function splitSubspaces(name: string, correlation: CMatrix, sourceCount: 
 export function musicSpectrum(correlation: CMatrix, steering: CMatrix, sourceCount: number): Float64Array {
   const n = checkGrid(correlation, steering);
   assertInteger('sourceCount', sourceCount, 0, n - 1);
-  const { signal, noise } = splitSubspaces('', correlation, sourceCount);
+  const { signal, noise } = splitSubspaces('correlation', correlation, sourceCount);
   const k = steering.cols;
   const p = columnPowers(steering);
   const useSignal = sourceCount < n - sourceCount;

@@ -72,7 +72,7 @@ export function conjugateFieldWeights(a: CMatrix, options: { normalization?: Bea
  *
  * @remarks
  * Maximises |wᴴa|² / wᴴR_n w (a generalised Rayleigh quotient; the maximum is
- * aᴴR_n⁻¹a). H. L. Van Trees, *Optimum Array Processing*, Wiley, 2002, §6.2
+ * aᴴR_n⁻¹a). H. L. Van Trees, *Optimum Array Processing*, Wiley, 2002
  * (from memory). Computed with one Cholesky factorisation R_n = L Lᴴ and two
  * triangular solves; see the module's conditioning policy ({@link diagonalLoading}).
  * @param a - Signal response (steering) vector, N×1.
@@ -84,7 +84,8 @@ export function conjugateFieldWeights(a: CMatrix, options: { normalization?: Bea
  * @category Beamforming
  */
 export function maxSnrWeights(a: CMatrix, noise: CMatrix, options: BeamWeightOptions = {}): CMatrix {
-  return maxSnrWeightsForDirections(a, noise, options);
+  lookVector(a);
+  return solveBeams('a', a, 'noise', noise, options);
 }
 
 /**
@@ -103,15 +104,20 @@ export function maxSnrWeights(a: CMatrix, noise: CMatrix, options: BeamWeightOpt
  * @category Beamforming
  */
 export function maxSnrWeightsForDirections(steering: CMatrix, noise: CMatrix, options: BeamWeightOptions = {}): CMatrix {
-  assertFiniteCMatrix('steering', steering);
+  return solveBeams('steering', steering, 'noise', noise, options);
+}
+
+/** R⁻¹aₖ for every column under the conditioning policy; argument names for messages. */
+function solveBeams(steeringName: string, steering: CMatrix, matrixName: string, matrix: CMatrix, options: BeamWeightOptions): CMatrix {
+  assertFiniteCMatrix(steeringName, steering);
   if (steering.rows < 1 || steering.cols < 1) {
-    throw new DimensionError(`invalid argument "steering": expected N×K with N, K ≥ 1, received ${steering.rows}×${steering.cols}.`);
+    throw new DimensionError(`invalid argument "${steeringName}": expected N×K with N, K ≥ 1, received ${steering.rows}×${steering.cols}.`);
   }
   const mode = options.normalization ?? 'distortionless';
   assertNormalization(mode);
-  const f = factorCorrelation('noise', noise, steering.rows, options.diagonalLoading ?? 0);
+  const f = factorCorrelation(matrixName, matrix, steering.rows, options.diagonalLoading ?? 0);
   const w = choleskySolve(f, steering);
-  return finish(w, steering, mode, noise);
+  return finish(w, steering, mode, matrix);
 }
 
 /**
@@ -146,7 +152,7 @@ export function minimumVarianceWeights(a: CMatrix, correlation: CMatrix, options
  * @remarks
  * w = R⁻¹C (CᴴR⁻¹C)⁻¹ g* (O. L. Frost III, "An algorithm for linearly
  * constrained adaptive array processing", Proc. IEEE 60(8), 1972; Van Trees
- * 2002, §6.7, from memory). Constraints may be look directions (g = 1), nulls
+ * 2002, from memory). Constraints may be look directions (g = 1), nulls
  * (g = 0), derivative constraints (columns ∂a/∂θ with g = 0 flatten the
  * response), or any mix. With y = wᴴx, gₘ is the beam's complex response to cₘ.
  * The weights are not rescaled: the constraints fix them.
@@ -224,7 +230,7 @@ function gramian(y: CMatrix): CMatrix {
  * isotropic field (for isotropic point elements R_iso,mn = sin(k dₘₙ)/(k dₘₙ)),
  * so the maximiser is the maximum-SNR beam with R_n = R_iso (C. T. Tai,
  * "The optimum directivity of uniform arrays of dipoles", IEEE Trans. AP
- * 12(4), 1964; Van Trees 2002, §3.x, from memory). Very close spacing makes
+ * 12(4), 1964; Van Trees 2002, from memory). Very close spacing makes
  * R_iso ill conditioned (superdirectivity): load it if needed.
  * @param a - Look-direction response, N×1.
  * @param isotropicCorrelation - R_iso, N×N Hermitian positive definite [units of |a|²].
@@ -235,7 +241,7 @@ function gramian(y: CMatrix): CMatrix {
  */
 export function maxDirectivityWeights(a: CMatrix, isotropicCorrelation: CMatrix, options: BeamWeightOptions = {}): CMatrix {
   lookVector(a);
-  return maxSnrWeightsForDirections(a, isotropicCorrelation, options);
+  return solveBeams('a', a, 'isotropicCorrelation', isotropicCorrelation, options);
 }
 
 /**
@@ -263,5 +269,5 @@ export function maxGainWeights(a: CMatrix, isotropicCorrelation: CMatrix, lossCo
   assertShape('isotropicCorrelation', isotropicCorrelation, n, n, 'one row and column per element');
   assertFiniteCMatrix('lossCorrelation', lossCorrelation);
   assertShape('lossCorrelation', lossCorrelation, n, n, 'one row and column per element');
-  return maxSnrWeightsForDirections(a, add(isotropicCorrelation, lossCorrelation), options);
+  return solveBeams('a', a, 'isotropicCorrelation + lossCorrelation', add(isotropicCorrelation, lossCorrelation), options);
 }

@@ -4,7 +4,7 @@
  * @module
  */
 import { assertNonNegative } from '../internal/validate.js';
-import { choleskyFactor } from '../linalg/cholesky.js';
+import { hermitianEigen } from '../linalg/eigen.js';
 import { powerScatteringStack } from './convert.js';
 import { type Multiport, assertMultiport } from './multiport.js';
 
@@ -61,30 +61,6 @@ export function checkReciprocity(net: Multiport, tolerance = 1e-9): NetworkCheck
   return summarise(per, tolerance);
 }
 
-/**
- * Extreme eigenvalues of the Hermitian PSD matrix G = SᴴS by bisection on the inertia test
- * "t·I − G is positive definite" (Cholesky succeeds), 60 halvings of [0, ‖G‖_F]: an error
- * ≤ 2⁻⁶⁰‖G‖_F, far below the tolerances of the checks.
- */
-function extremeEigenvalues(g: Float64Array, n: number): { min: number; max: number } {
-  let fro = 0;
-  for (let q = 0; q < g.length; q++) fro += g[q] * g[q];
-  fro = Math.sqrt(fro);
-  const shifted = (t: number, sign: number): boolean => {
-    // sign = +1: t I − G PD?  sign = −1: G − t I PD?
-    const d = new Float64Array(g.length);
-    for (let q = 0; q < g.length; q++) d[q] = -sign * g[q];
-    for (let i = 0; i < n; i++) d[2 * (i * n + i)] += sign * t;
-    return choleskyFactor({ rows: n, cols: n, data: d }).positiveDefinite;
-  };
-  let lo = 0, hi = fro * (1 + 1e-12) + 1e-300;
-  for (let it = 0; it < 60; it++) { const mid = 0.5 * (lo + hi); if (shifted(mid, 1)) hi = mid; else lo = mid; }
-  const max = hi;
-  lo = 0; hi = max;
-  for (let it = 0; it < 60; it++) { const mid = 0.5 * (lo + hi); if (shifted(mid, -1)) lo = mid; else hi = mid; }
-  return { min: lo, max };
-}
-
 function gramExtremes(net: Multiport): Array<{ min: number; max: number }> {
   const s = powerScatteringStack(net);
   const n = net.ports, nf = net.frequencyHz.length;
@@ -102,7 +78,8 @@ function gramExtremes(net: Multiport): Array<{ min: number; max: number }> {
       }
       g[2 * (i * n + j)] = re; g[2 * (i * n + j) + 1] = i === j ? 0 : im;
     }
-    out.push(extremeEigenvalues(g, n));
+    const v = hermitianEigen({ rows: n, cols: n, data: g }, { valuesOnly: true }).values; // ascending
+    out.push({ min: Math.max(0, v[0]), max: Math.max(0, v[n - 1]) });
   }
   return out;
 }

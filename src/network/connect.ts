@@ -21,8 +21,9 @@ import { DimensionError, DomainError, SingularMatrixError } from '../errors.js';
 import { type CMatrix, type ComplexLike, complexParts } from '../linalg/cmatrix.js';
 import { adjoint, multiply, pick } from '../linalg/ops.js';
 import { solveSmallInPlace } from '../internal/batched.js';
-import { describeValue } from '../internal/validate.js';
-import { renormalizeStack } from './convert.js';
+import { assertNonNegative, describeValue } from '../internal/validate.js';
+import { K_BOLTZMANN_J_PER_K } from '../units/constants.js';
+import { convertMultiport, renormalizeStack } from './convert.js';
 import { type Multiport, assertMultiport, createMultiport, waveCoefficients, withFields } from './multiport.js';
 import { asPowerScattering, checkPortList, combineMultiports, toWaves } from './ports.js';
 
@@ -37,7 +38,7 @@ export type PortLoad = ComplexLike | ReadonlyArray<ComplexLike> | 'open' | 'shor
 function reduce(
   net: Multiport,
   pairs: ReadonlyArray<readonly [number, number]>,
-  loads: ReadonlyArray<{ port: number; gamma: Float64Array }>,
+  loads: ReadonlyArray<{ port: number; gamma: Float64Array; temperatureK: number }>,
 ): Multiport {
   const n = net.ports;
   const nf = net.frequencyHz.length;
@@ -48,11 +49,14 @@ function reduce(
     partner.push(internal.length - 1, internal.length - 2); // partner of internal[j] is internal[partner[j]]
   }
   const loadGamma: Array<Float64Array | null> = internal.map(() => null);
-  for (const { port, gamma } of loads) {
+  const loadTemp: number[] = internal.map(() => 0);
+  for (const { port, gamma, temperatureK } of loads) {
     internal.push(port);
     partner.push(internal.length - 1);
     loadGamma.push(gamma);
+    loadTemp.push(temperatureK);
   }
+  const hotLoads = loadTemp.some((t) => t > 0);
   const m = internal.length;
   const isInternal = new Set(internal);
   const ext: number[] = [];
@@ -84,6 +88,7 @@ function reduce(
   const w = new Float64Array(2 * m * m);
   const x = new Float64Array(2 * m * e);
   const out = new Float64Array(2 * nf * e * e);
+  if (!noise && hotLoads) noise = new Float64Array(2 * nf * nn); // a noiseless network closed by warm loads
   const outNoise = noise ? new Float64Array(2 * nf * e * e) : undefined;
   const wt = noise ? new Float64Array(2 * m * m) : undefined;
   const ut = noise ? new Float64Array(2 * m * e) : undefined;
@@ -156,7 +161,28 @@ function reduce(
       const kk: CMatrix = { rows: e, cols: e + m, data: kd };
       const order = ext.concat(internal);
       const c = pick({ rows: n, cols: n, data: noise.subarray(o, o + 2 * nn) }, order, order);
-      outNoise.set(multiply(multiply(kk, c), adjoint(kk)).data, ok);
+      const cr = multiply(multiply(kk, c), adjoint(kk));
+      if (hotLoads) {
+        // load noise waves n (a_i = Γ b_i + n, E|n_l|² = k_B T_l (1 − |γ_l|²)) reach the outputs through
+        // V = U S_ii + S_ei (e×m): add V D Vᴴ
+        const v = new Float64Array(2 * e * m);
+        for (let a = 0; a < e; a++) for (let l = 0; l < m; l++) {
+          const q0 = o + 2 * (ext[a] * n + internal[l]);
+          let re = s[q0], im = s[q0 + 1];
+          for (let j = 0; j < m; j++) {
+            const ur = ut[2 * (j * e + a)], ui = ut[2 * (j * e + a) + 1];
+            const q1 = o + 2 * (internal[j] * n + internal[l]);
+            re += ur * s[q1] - ui * s[q1 + 1]; im += ur * s[q1 + 1] + ui * s[q1];
+          }
+          const g2 = gam[2 * l] ** 2 + gam[2 * l + 1] ** 2;
+          const sd = Math.sqrt(Math.max(0, K_BOLTZMANN_J_PER_K * loadTemp[l] * (1 - g2)));
+          v[2 * (a * m + l)] = re * sd; v[2 * (a * m + l) + 1] = im * sd;
+        }
+        const vm: CMatrix = { rows: e, cols: m, data: v };
+        const extra = multiply(vm, adjoint(vm));
+        for (let q = 0; q < cr.data.length; q++) cr.data[q] += extra.data[q];
+      }
+      outNoise.set(cr.data, ok);
     }
   }
   const refOut = new Float64Array(2 * e);
@@ -205,13 +231,17 @@ function loadReflection(name: string, load: PortLoad, refRe: number, refIm: numb
  * Terminates some ports of a network with loads and returns the network seen at the others.
  *
  * @remarks
- * Each listed port is closed by its own (uncoupled) load; the loads are noiseless. The
+ * Each listed port is closed by its own (uncoupled) load. Loads are noiseless unless
+ * `options.loadTemperatureK` is given: a load at temperature T with reflection Γ then sends the
+ * noise wave E|n|² = k_B T (1 − |Γ|²) per hertz into its port (Bosma 1967, from memory), and the
+ * result carries noise waves. The
  * remaining ports keep their order, names and references; the result is in scattering form
  * (with the network's wave definition). A coupled load network is attached with
  * {@link joinPorts} instead. Method: see the module notes (connection-scattering reduction).
  * @param net - The network.
  * @param ports - Zero-based indices of the ports to terminate (distinct).
  * @param loads - One {@link PortLoad} per listed port [Ω] (a frequency-dependent load is itself an array).
+ * @param options - `loadTemperatureK`: physical temperature of the loads [K], one for all or one per listed port (default: noiseless).
  * @returns The reduced network.
  * @throws {@link DimensionError} on mismatched counts or if no port would remain;
  *   {@link DomainError} on bad port indices or loads; {@link SingularMatrixError} (frequency
@@ -222,7 +252,10 @@ function loadReflection(name: string, load: PortLoad, refRe: number, refIm: numb
  * ```
  * @category Network
  */
-export function terminatePorts(net: Multiport, ports: ReadonlyArray<number>, loads: ReadonlyArray<PortLoad>): Multiport {
+export function terminatePorts(
+  net: Multiport, ports: ReadonlyArray<number>, loads: ReadonlyArray<PortLoad>,
+  options: { loadTemperatureK?: number | ReadonlyArray<number> } = {},
+): Multiport {
   assertMultiport('net', net);
   const list = checkPortList('ports', ports, net.ports);
   const nf = net.frequencyHz.length;
@@ -230,9 +263,15 @@ export function terminatePorts(net: Multiport, ports: ReadonlyArray<number>, loa
     throw new DimensionError(`invalid argument "loads": expected ${list.length} loads (one per terminated port), received ${describeValue(loads)}; wrap a frequency-dependent load in its own array.`);
   }
   const perPort = loads;
+  const tl = options.loadTemperatureK ?? 0;
+  const temps = Array.isArray(tl) ? tl : list.map(() => tl as number);
+  if (temps.length !== list.length) {
+    throw new DimensionError(`invalid option "loadTemperatureK": expected one temperature or ${list.length} (one per terminated port), received ${temps.length}.`);
+  }
+  temps.forEach((t, i) => assertNonNegative(`loadTemperatureK[${i}]`, t, 'K'));
   const p = asPowerScattering(net);
   const reduced = reduce(p, [], list.map((port, i) => ({
-    port, gamma: loadReflection(`loads[${i}]`, perPort[i], p.referenceOhm[2 * port], p.referenceOhm[2 * port + 1], nf),
+    port, gamma: loadReflection(`loads[${i}]`, perPort[i], p.referenceOhm[2 * port], p.referenceOhm[2 * port + 1], nf), temperatureK: temps[i],
   })));
   return toWaves(reduced, net.waves);
 }
@@ -269,7 +308,7 @@ export function keepPorts(net: Multiport, ports: ReadonlyArray<number>, others: 
   // reduced ports are the kept ones in ascending order; reorder to the requested order
   const ascending = keep.slice().sort((a, b) => a - b);
   const order = keep.map((p) => ascending.indexOf(p));
-  const out = reduced.form === 'scattering' ? reduced : asPowerScattering(reduced);
+  const out = reduced.form === 'scattering' ? reduced : convertMultiport(reduced, 'scattering');
   return reorderScattering(out, order);
 }
 

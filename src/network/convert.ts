@@ -13,7 +13,7 @@
 import { DimensionError, DomainError, SingularMatrixError } from '../errors.js';
 import type { ComplexLike, CMatrix } from '../linalg/cmatrix.js';
 import { adjoint, multiply } from '../linalg/ops.js';
-import { batchedSolveInPlace, batchedTransposeInPlace } from '../internal/batched.js';
+import { batchedSolveInPlace, batchedTransposeInPlace, solveSmallInPlace } from '../internal/batched.js';
 import { describeValue } from '../internal/validate.js';
 import {
   type Multiport, type MultiportForm, type WaveDefinition,
@@ -33,9 +33,11 @@ export function scatteringStack(net: Multiport): Float64Array {
   if (net.form === 'scattering') return src.slice();
   if (net.form === 'transfer') return transferToScattering(src, nf, net);
   const { d1, d2, d3 } = voltageCurrentCoefficients(net.referenceOhm, net.waves);
-  const lhs = new Float64Array(2 * nf * nn);
   const rhs = new Float64Array(2 * nf * nn);
+  const fail = (k: number): SingularMatrixError => singular(`converting the ${net.form} form to scattering parameters: the port relation matrix`, k, net, 'the network has no scattering matrix with these reference impedances; choose other references');
   if (net.form === 'impedance' || net.form === 'admittance') {
+    // one scratch matrix, solved frequency by frequency (cache-friendly, half the memory)
+    const lhs = new Float64Array(2 * nn);
     // Z: LHS = Z D₃ + D₂, RHS = Z D₃ − D₁.  Y: LHS = Y D₂ + D₃, RHS = D₃ − Y D₁.
     const isZ = net.form === 'impedance';
     const cl = isZ ? d3 : d2;
@@ -47,21 +49,26 @@ export function scatteringStack(net: Multiport): Float64Array {
       const o = 2 * k * nn;
       for (let i = 0; i < n; i++) {
         for (let j = 0; j < n; j++) {
-          const q = o + 2 * (i * n + j);
+          const l = 2 * (i * n + j);
+          const q = o + l;
           const mr = src[q], mi = src[q + 1];
           const lr = cl[2 * j], li = cl[2 * j + 1];
           const rr = cr[2 * j], ri = cr[2 * j + 1];
-          lhs[q] = mr * lr - mi * li;
-          lhs[q + 1] = mr * li + mi * lr;
+          lhs[l] = mr * lr - mi * li;
+          lhs[l + 1] = mr * li + mi * lr;
           rhs[q] = sr * (mr * rr - mi * ri);
           rhs[q + 1] = sr * (mr * ri + mi * rr);
         }
-        const q = o + 2 * (i * n + i);
-        lhs[q] += dl[2 * i]; lhs[q + 1] += dl[2 * i + 1];
-        rhs[q] -= sr * dr[2 * i]; rhs[q + 1] -= sr * dr[2 * i + 1];
+        const l = 2 * (i * n + i);
+        lhs[l] += dl[2 * i]; lhs[l + 1] += dl[2 * i + 1];
+        rhs[o + l] -= sr * dr[2 * i]; rhs[o + l + 1] -= sr * dr[2 * i + 1];
       }
+      if (solveSmallInPlace(n, n, lhs, 0, rhs, k * nn) >= 0) throw fail(k);
     }
-  } else {
+    return rhs;
+  }
+  {
+    const lhs = new Float64Array(2 * nf * nn);
     // chain: M_v = [[1, −A], [0, −C]], M_i = [[0, B], [1, D]]
     const mv = new Float64Array(8), mi = new Float64Array(8);
     for (let k = 0; k < nf; k++) {
@@ -80,10 +87,8 @@ export function scatteringStack(net: Multiport): Float64Array {
         }
       }
     }
-  }
-  const bad = batchedSolveInPlace(n, n, nf, lhs, rhs);
-  if (bad >= 0) {
-    throw singular(`converting the ${net.form} form to scattering parameters: the port relation matrix`, bad, net, 'the network has no scattering matrix with these reference impedances; choose other references');
+    const bad = batchedSolveInPlace(n, n, nf, lhs, rhs);
+    if (bad >= 0) throw fail(bad);
   }
   return rhs;
 }

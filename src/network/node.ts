@@ -15,10 +15,10 @@ import { type TouchstoneData, type TouchstoneFormatOptions, formatTouchstone, pa
  *
  * @remarks
  * The port count of a version 1 file is taken from its `.sNp` extension (e.g. `.s4p` → 4);
- * version 2 files state it themselves. Parsing: {@link parseTouchstone}.
+ * version 2 files state it themselves. Parsing: parseTouchstone of the main entry.
  * @param path - File path.
  * @returns The parsed file.
- * @throws {@link ParseError} on malformed content or an unreadable file.
+ * @throws ParseError (from the main entry) on malformed content or an unreadable file.
  * @category Network
  */
 export function readTouchstoneFile(path: string): TouchstoneData {
@@ -33,11 +33,11 @@ export function readTouchstoneFile(path: string): TouchstoneData {
 }
 
 /**
- * Writes a network to disk as a Touchstone file ({@link formatTouchstone}).
+ * Writes a network to disk as a Touchstone file (formatTouchstone of the main entry).
  * @param path - File path; by convention `.sNp` with N the port count.
  * @param net - The network.
  * @param options - Format options.
- * @throws {@link DomainError} as {@link formatTouchstone}; Node's file-system errors.
+ * @throws DomainError (from the main entry) as formatTouchstone does; Node file-system errors.
  * @category Network
  */
 export function writeTouchstoneFile(path: string, net: Multiport, options: TouchstoneFormatOptions = {}): void {

@@ -9,10 +9,10 @@
  * (IBIS Touchstone Issue Resolution Document 4.1, 2022).
  * @module
  */
-import { DomainError, NumericError, ParseError } from '../errors.js';
+import { DomainError, ParseError } from '../errors.js';
 import { describeValue } from '../internal/validate.js';
 import { convertMultiport } from './convert.js';
-import { type Multiport, assertMultiport, createMultiport } from './multiport.js';
+import { type Multiport, assertMultiport } from './multiport.js';
 
 /**
  * Parameter type letter of a Touchstone file: scattering, admittance, impedance, and the
@@ -96,15 +96,19 @@ class Scanner {
   skipSpace(comments: string[] | null): void {
     const t = this.text;
     const n = t.length;
-    while (this.pos < n) {
-      const c = t.charCodeAt(this.pos);
-      if (c === 10) { this.line++; this.pos++; } else if (c === 32 || c === 9 || c === 13) { this.pos++; } else if (c === 33) {
-        let e = t.indexOf('\n', this.pos);
+    let p = this.pos;
+    let line = this.line;
+    while (p < n) {
+      const c = t.charCodeAt(p);
+      if (c === 32 || c === 9 || c === 13) { p++; } else if (c === 10) { line++; p++; } else if (c === 33) {
+        let e = t.indexOf('\n', p);
         if (e < 0) e = n;
-        if (comments) comments.push(t.slice(this.pos + 1, e).replace(/\r$/, ''));
-        this.pos = e;
-      } else return;
+        if (comments) comments.push(t.slice(p + 1, e).replace(/\r$/, ''));
+        p = e;
+      } else break;
     }
+    this.pos = p;
+    this.line = line;
   }
 
   /** The rest of the current line (up to '!' or the line end), advancing past it but not past the newline. */
@@ -213,7 +217,7 @@ function parseOptionLine(body: string, line: number): OptionLine {
 /** Converts a pair in the file's format to re/im. */
 function pairToComplex(a: number, b: number, format: TouchstoneNumberFormat, out: Float64Array, o: number): void {
   if (format === 'RI') { out[o] = a; out[o + 1] = b; return; }
-  const mag = format === 'MA' ? a : 10 ** (a / 20);
+  const mag = format === 'MA' ? a : 10 ** (a / 20); // may overflow to Infinity: checked by the caller
   const ang = (b * Math.PI) / 180;
   out[o] = mag * Math.cos(ang);
   out[o + 1] = mag * Math.sin(ang);
@@ -222,7 +226,7 @@ function pairToComplex(a: number, b: number, format: TouchstoneNumberFormat, out
 /** Grows a Float64Array to hold at least `need` entries. */
 function ensure(buf: Float64Array, need: number): Float64Array {
   if (need <= buf.length) return buf;
-  const next = new Float64Array(Math.max(need, 2 * buf.length));
+  const next = new Float64Array(Math.max(need, Math.ceil(1.5 * buf.length)));
   next.set(buf);
   return next;
 }
@@ -280,13 +284,19 @@ function readNetworkData(sc: Scanner, layout: Layout, opt: OptionLine, count: nu
   const n = layout.n;
   const nn = n * n;
   const per = layout.order.length;
-  // no block can be shorter than 4 characters per value pair: bound the first allocation by the text
-  const cap = Math.max(1, Math.min(count ?? 64, Math.floor((sc.text.length - sc.pos) / (4 * per + 2)) + 1));
+  // A block has at least 4 characters per value pair: that bounds the first allocation by the text
+  // (a corrupted count cannot allocate more than the text could hold). Without a count (version 1)
+  // the capacity is re-estimated from the length of the first block.
+  const minCap = Math.floor((sc.text.length - sc.pos) / (4 * per + 2)) + 1;
+  const cap = Math.max(1, Math.min(count ?? 1, minCap));
   let freq: Float64Array = new Float64Array(cap);
   let data: Float64Array = new Float64Array(2 * nn * cap);
   let nf = 0;
   let last = -Infinity;
+  const blockStart = sc.pos;
   const pair = new Float64Array(2);
+  const ri = opt.format === 'RI';
+  const sym = layout.symmetric !== 'full';
   for (;;) {
     sc.skipSpace(comments);
     if (sc.pos >= sc.text.length || !sc.atNumberStart()) break;
@@ -307,21 +317,27 @@ function readNetworkData(sc: Scanner, layout: Layout, opt: OptionLine, count: nu
     for (let v = 0; v < per; v++) {
       sc.skipSpace(comments);
       if (sc.pos >= sc.text.length) throw new ParseError(`unexpected end of file inside the data of frequency ${fr} Hz: expected ${2 * per} numbers after the frequency, found ${2 * v}`, sc.eofLine());
-      const a = sc.number(`value ${2 * v + 1} of ${2 * per} for frequency ${fr} Hz`);
+      const a = sc.number('a network-data value');
       sc.skipSpace(comments);
       if (sc.pos >= sc.text.length) throw new ParseError(`unexpected end of file inside the data of frequency ${fr} Hz`, sc.eofLine());
-      const b = sc.number(`value ${2 * v + 2} of ${2 * per} for frequency ${fr} Hz`);
-      pairToComplex(a, b, opt.format, pair, 0);
+      const b = sc.number('a network-data value');
+      if (ri) { pair[0] = a; pair[1] = b; } else pairToComplex(a, b, opt.format, pair, 0);
       const q = layout.order[v];
       data[base + 2 * q] = pair[0];
       data[base + 2 * q + 1] = pair[1];
-      if (layout.symmetric !== 'full') {
+      if (sym) {
         const i = Math.floor(q / n), j = q % n;
         data[base + 2 * (j * n + i)] = pair[0];
         data[base + 2 * (j * n + i) + 1] = pair[1];
       }
     }
     nf++;
+    if (nf === 1 && count === null) {
+      const used = Math.max(1, sc.pos - blockStart);
+      const estimate = Math.min(minCap, Math.ceil(((sc.text.length - blockStart) / used) * 1.02) + 1);
+      freq = ensure(freq, estimate);
+      data = ensure(data, 2 * nn * estimate);
+    }
   }
   if (nf === 0) throw new ParseError('expected network data (a frequency followed by its values), found none', sc.line);
   if (count !== null && nf !== count) throw new ParseError(`[Number of Frequencies] is ${count}, but ${nf} frequencies were found`, sc.pos >= sc.text.length ? sc.eofLine() : sc.line);
@@ -331,7 +347,8 @@ function readNetworkData(sc: Scanner, layout: Layout, opt: OptionLine, count: nu
 /** Scales normalised data to ohms/siemens and turns G/H into Y/Z (two-ports). */
 function finishData(d: DataResult, n: number, parameter: TouchstoneParameter, refs: Float64Array, normalised: boolean, line: number): { form: 'scattering' | 'admittance' | 'impedance'; data: Float64Array } {
   const nn = n * n;
-  const data = d.data.length === 2 * nn * d.nf ? d.data : d.data.slice(0, 2 * nn * d.nf);
+  const used = 2 * nn * d.nf;
+  const data = d.data.length === used ? d.data : d.data.length <= 1.1 * used ? d.data.subarray(0, used) : d.data.slice(0, used);
   if (parameter === 'S') return { form: 'scattering', data };
   const r0 = refs[0];
   if (parameter === 'Z' || parameter === 'Y') {
@@ -365,13 +382,16 @@ function finishData(d: DataResult, n: number, parameter: TouchstoneParameter, re
 
 function build(d: DataResult, n: number, parameter: TouchstoneParameter, refs: Float64Array, normalised: boolean, line: number): Multiport {
   const { form, data } = finishData(d, n, parameter, refs, normalised, line);
-  const refList = Array.from({ length: n }, (_, i) => refs[i]);
-  try {
-    return createMultiport(form, d.freq.subarray(0, d.nf), data, { referenceOhm: refList });
-  } catch (e) {
-    if (e instanceof NumericError) throw new ParseError(`the data do not form a valid network: ${e.message}`, line);
-    throw e;
+  for (let q = 0; q < data.length; q++) {
+    if (!Number.isFinite(data[q])) {
+      const k = Math.floor(q / (2 * n * n));
+      throw new ParseError(`a value at frequency ${d.freq[k]} Hz is not finite after conversion (e.g. a dB magnitude too large)`, line);
+    }
   }
+  const referenceOhm = new Float64Array(2 * n);
+  for (let i = 0; i < n; i++) referenceOhm[2 * i] = refs[i];
+  const portNames = Array.from({ length: n }, (_, i) => String(i + 1));
+  return { ports: n, frequencyHz: d.freq.slice(0, d.nf), form, data, referenceOhm, waves: 'power', portNames };
 }
 
 function noiseTable(d: DataResult, r: number): TouchstoneNoiseTable | undefined {
@@ -653,7 +673,7 @@ export function formatTouchstone(net: Multiport, options: TouchstoneFormatOption
   const data = convertMultiport(net, form).data;
   const scale = version === 1 && parameter !== 'S' ? (parameter === 'Z' ? 1 / ref[0] : ref[0]) : 1;
   const fScale = 1 / UNIT_SCALE[unit.toUpperCase()];
-  const num = digits === undefined ? (x: number): string => String(x) : (x: number): string => String(Number(x.toPrecision(digits)));
+  const num = digits === undefined ? (x: number): string => String(x) : (x: number): string => x.toPrecision(digits);
   const pairText = (re: number, im: number): string => {
     if (format === 'RI') return `${num(re * scale)} ${num(im * scale)}`;
     const mag = Math.hypot(re, im) * scale;

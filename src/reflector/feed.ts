@@ -2,8 +2,10 @@
  * Feed patterns for reflector analysis.
  * @module
  */
-import { assertFinite, assertNonNegative } from '../internal/validate.js';
-import { DomainError } from '../errors.js';
+import { assertColumn, assertFinite, assertFiniteCMatrix, assertNonNegative, assertPositive } from '../internal/validate.js';
+import { DimensionError, DomainError } from '../errors.js';
+import type { CMatrix } from '../linalg/cmatrix.js';
+import type { PortPatternSource } from '../reception/patterns.js';
 
 /**
  * A far-field sample of a feed: θ̂ and φ̂ components in the feed frame [V].
@@ -68,4 +70,70 @@ export function cosinePowerFeed(n: number, amplitudeV = 1): FeedPattern {
   assertFinite('amplitudeV', amplitudeV);
   const g = (t: number) => (t < Math.PI / 2 ? amplitudeV * Math.cos(t) ** n : 0);
   return bodyOfRevolutionFeed(g, g, 'x');
+}
+
+/**
+ * Wraps analytic feed patterns (one function per port) as a reception-module
+ * pattern source in the feed frame, so that the reflector functions and the
+ * reception module's noise integrals take them like any other array.
+ * @param feeds - One pattern function per port (feed frame) [V].
+ * @param frequencyHz - Frequency the patterns describe [Hz], > 0.
+ * @param driveCurrentA - RMS drive current I₀ the patterns are referred to [A], > 0.
+ * @returns A pattern source with `feeds.length` ports.
+ * @throws {@link DimensionError} for an empty list or a non-function entry.
+ * @category Reflector
+ */
+export function analyticFeedSource(feeds: readonly FeedPattern[], frequencyHz: number, driveCurrentA = 1): PortPatternSource {
+  if (!Array.isArray(feeds) || feeds.length === 0) throw new DimensionError('invalid argument "feeds": expected at least one feed pattern function.');
+  feeds.forEach((f, i) => {
+    if (typeof f !== 'function') throw new DimensionError(`invalid argument "feeds[${i}]": expected a function (θ, φ) → field sample.`);
+  });
+  assertPositive('frequencyHz', frequencyHz, 'Hz');
+  assertPositive('driveCurrentA', driveCurrentA, 'A');
+  return {
+    portCount: feeds.length,
+    frequencyHz,
+    driveCurrentA,
+    fill(thetaRad, phiRad, start, count, outTheta, outPhi, ld) {
+      for (let n = 0; n < feeds.length; n++) {
+        const f = feeds[n];
+        for (let k = 0; k < count; k++) {
+          const v = f(thetaRad[start + k], phiRad[start + k]);
+          const o = 2 * (n * ld + k);
+          outTheta[o] = v.thetaRe; outTheta[o + 1] = v.thetaIm;
+          outPhi[o] = v.phiRe; outPhi[o + 1] = v.phiIm;
+        }
+      }
+    },
+  };
+}
+
+/**
+ * The radiated pattern of a beamformed array feed as one feed pattern: for
+ * receive weights w (y = wᴴv) the equivalent transmit excitation is conj(w)
+ * (docs/conventions.md), so f_w = Σₙ conj(wₙ)·fₙ.
+ * @param source - The array feed's ports (feed frame).
+ * @param weights - Receive weights w, N×1.
+ * @returns A single feed pattern, e.g. for {@link feedEfficiencies}-style analysis.
+ * @throws {@link DimensionError} if `weights` is not N×1.
+ * @category Reflector
+ */
+export function beamformedFeedPattern(source: PortPatternSource, weights: CMatrix): FeedPattern {
+  assertColumn('weights', weights, source.portCount, 'one weight per feed port');
+  assertFiniteCMatrix('weights', weights);
+  const n = source.portCount;
+  const th = new Float64Array(2 * n), ph = new Float64Array(2 * n);
+  const t1 = new Float64Array(1), p1 = new Float64Array(1);
+  const w = weights.data;
+  return (thetaRad, phiRad) => {
+    t1[0] = thetaRad; p1[0] = phiRad;
+    source.fill(t1, p1, 0, 1, th, ph, 1);
+    let tr = 0, ti = 0, pr = 0, pi = 0;
+    for (let i = 0; i < n; i++) {
+      const wr = w[2 * i], wi = -w[2 * i + 1];
+      tr += wr * th[2 * i] - wi * th[2 * i + 1]; ti += wr * th[2 * i + 1] + wi * th[2 * i];
+      pr += wr * ph[2 * i] - wi * ph[2 * i + 1]; pi += wr * ph[2 * i + 1] + wi * ph[2 * i];
+    }
+    return { thetaRe: tr, thetaIm: ti, phiRe: pr, phiIm: pi };
+  };
 }

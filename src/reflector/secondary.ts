@@ -8,7 +8,8 @@ import { gemmKernel } from '../internal/gemm.js';
 import { assertFiniteArray, assertInteger, assertPositive } from '../internal/validate.js';
 import { type CMatrix, zeros } from '../linalg/cmatrix.js';
 import { wavenumberRadPerM } from '../units/convert.js';
-import type { FeedPattern } from './feed.js';
+import type { PortPatternSource, SampledPortPatterns } from '../reception/patterns.js';
+import { assertPatternSource } from '../reception/patterns.js';
 import type { Paraboloid } from './paraboloid.js';
 import { type ApertureSamples, incidentAmplitudes, sampleAperture } from './surface.js';
 
@@ -29,15 +30,12 @@ export interface SecondaryPatternOptions {
 }
 
 /**
- * Secondary patterns of one or more feeds: θ̂ and φ̂ components of the
- * scattered far field, reflector frame, phase referenced to the focus.
+ * Secondary patterns of the feed ports: θ̂ and φ̂ components of the scattered
+ * far field in the reflector frame, phase referenced to the focus, in the
+ * embedded-pattern convention (usable directly by the reception module).
  * @category Reflector
  */
-export interface SecondaryPatterns {
-  /** f_θ [V], N feeds × M directions. */
-  theta: CMatrix;
-  /** f_φ [V], N × M. */
-  phi: CMatrix;
+export interface SecondaryPatterns extends SampledPortPatterns {
   /** Radial × azimuthal integration points used. */
   integrationPoints: number;
   /** Radial Gauss–Legendre order used. */
@@ -172,54 +170,52 @@ function radiate(
  * A secondary pattern is in the same embedded-pattern convention as the feed:
  * driving the feed port with I₀ radiates E = f_sec·e^{−jkr}/r from the dish.
  * @param dish - Reflector (see {@link Paraboloid} for the frames).
- * @param feeds - One pattern function per feed port (feed frame).
- * @param frequencyHz - Frequency [Hz].
+ * @param feed - The feed ports' patterns in the feed frame (a reception-module pattern source: an array feed, or `analyticFeedSource` of pattern functions); its frequency is used.
  * @param thetaRad - Directions: θ from the reflector axis +z [rad], length M.
  * @param phiRad - Directions: φ [rad], length M.
  * @param options - Integration orders and blockage.
- * @returns f_θ, f_φ (N × M) and the integration points used.
- * @throws {@link DimensionError} on mismatched direction arrays or an empty feed list; {@link DomainError} on non-finite input.
+ * @returns f_θ, f_φ (N × M, as sampled port patterns) and the integration points used.
+ * @throws {@link DimensionError} on mismatched direction arrays; {@link DomainError} on non-finite input.
  * @category Reflector
  */
 export function secondaryPatternsPhysicalOptics(
-  dish: Paraboloid, feeds: readonly FeedPattern[], frequencyHz: number, thetaRad: Float64Array, phiRad: Float64Array, options: SecondaryPatternOptions = {},
+  dish: Paraboloid, feed: PortPatternSource, thetaRad: Float64Array, phiRad: Float64Array, options: SecondaryPatternOptions = {},
 ): SecondaryPatterns {
-  if (!Array.isArray(feeds) || feeds.length === 0) throw new DimensionError('invalid argument "feeds": expected at least one feed pattern function.');
-  const { samples: s, k, nr, na, block } = prepare(dish, frequencyHz, thetaRad, phiRad, options);
-  const p = s.count, n = feeds.length;
+  assertPatternSource('feed', feed);
+  const { samples: s, k, nr, na, block } = prepare(dish, feed.frequencyHz, thetaRad, phiRad, options);
+  const p = s.count, n = feed.portCount;
   const f = dish.focalLengthM;
   const src: [Float64Array, Float64Array, Float64Array] = [new Float64Array(2 * n * p), new Float64Array(2 * n * p), new Float64Array(2 * n * p)];
-  const amp = new Float64Array(6 * p);
-  feeds.forEach((feed, fi) => {
-    if (typeof feed !== 'function') throw new DimensionError(`invalid argument "feeds[${fi}]": expected a function (θ, φ) → field sample.`);
-    incidentAmplitudes(s, feed, amp);
-    for (let q = 0; q < p; q++) {
-      if (block && s.blocked[q]) continue;
-      const rf = s.rf[q];
-      const ux = s.x[q] / rf, uy = s.y[q] / rf, uz = s.z[q] / rf;
-      const nx = -s.x[q] / (2 * f), ny = -s.y[q] / (2 * f), nz = 1;
-      // c = 2 N × (r̂' × e), complex; then multiply by w·e^{−jkρ_f}/ρ_f·(−jk/4π).
-      const o = 6 * q;
-      const exr = amp[o], exi = amp[o + 1], eyr = amp[o + 2], eyi = amp[o + 3], ezr = amp[o + 4], ezi = amp[o + 5];
+  const [ex, ey, ez] = incidentAmplitudes(s, feed);
+  for (let q = 0; q < p; q++) {
+    if (block && s.blocked[q]) continue;
+    const rf = s.rf[q];
+    const ux = s.x[q] / rf, uy = s.y[q] / rf, uz = s.z[q] / rf;
+    const nx = -s.x[q] / (2 * f), ny = -s.y[q] / (2 * f), nz = 1;
+    const ph = -k * rf;
+    const mag = (s.w[q] / rf) * (k / (4 * Math.PI));
+    // g = −j·e^{−jkρ_f}·mag = mag·(sin ph − j cos ph)
+    const gr = mag * Math.sin(ph), gi = -mag * Math.cos(ph);
+    for (let i = 0; i < n; i++) {
+      const o = 2 * (i * p + q);
+      const exr = ex[o], exi = ex[o + 1], eyr = ey[o], eyi = ey[o + 1], ezr = ez[o], ezi = ez[o + 1];
+      // h = r̂' × e; c = 2 N × h (PO current per unit projected area, times η)
       const hxr = uy * ezr - uz * eyr, hxi = uy * ezi - uz * eyi;
       const hyr = uz * exr - ux * ezr, hyi = uz * exi - ux * ezi;
       const hzr = ux * eyr - uy * exr, hzi = ux * eyi - uy * exi;
-      const cx = [2 * (ny * hzr - nz * hyr), 2 * (ny * hzi - nz * hyi)];
-      const cy = [2 * (nz * hxr - nx * hzr), 2 * (nz * hxi - nx * hzi)];
-      const cz = [2 * (nx * hyr - ny * hxr), 2 * (nx * hyi - ny * hxi)];
-      const ph = -k * rf;
-      const mag = (s.w[q] / rf) * (k / (4 * Math.PI));
-      // −j·e^{jph}·mag = mag·(sin ph − j cos ph)
-      const gr = mag * Math.sin(ph), gi = -mag * Math.cos(ph);
-      const idx = 2 * (fi * p + q);
-      for (const [c, v] of [[0, cx], [1, cy], [2, cz]] as const) {
-        src[c][idx] = gr * v[0] - gi * v[1];
-        src[c][idx + 1] = gr * v[1] + gi * v[0];
-      }
+      const cxr = 2 * (ny * hzr - nz * hyr), cxi = 2 * (ny * hzi - nz * hyi);
+      const cyr = 2 * (nz * hxr - nx * hzr), cyi = 2 * (nz * hxi - nx * hzi);
+      const czr = 2 * (nx * hyr - ny * hxr), czi = 2 * (nx * hyi - ny * hxi);
+      src[0][o] = gr * cxr - gi * cxi; src[0][o + 1] = gr * cxi + gi * cxr;
+      src[1][o] = gr * cyr - gi * cyi; src[1][o + 1] = gr * cyi + gi * cyr;
+      src[2][o] = gr * czr - gi * czi; src[2][o + 1] = gr * czi + gi * czr;
     }
-  });
+  }
   const out = radiate(src, n, s, k, thetaRad, phiRad, () => [1, 0], false);
-  return { ...out, integrationPoints: p, radialOrder: nr, azimuthOrder: na };
+  return {
+    thetaRad, phiRad, thetaComponentV: out.theta, phiComponentV: out.phi, driveCurrentA: feed.driveCurrentA, frequencyHz: feed.frequencyHz,
+    integrationPoints: p, radialOrder: nr, azimuthOrder: na,
+  };
 }
 
 /**
@@ -239,52 +235,49 @@ export function secondaryPatternsPhysicalOptics(
  * is no longer a good stand-in for the curved surface (the tests quantify
  * this).
  * @param dish - Reflector.
- * @param feeds - One pattern function per feed port (feed frame).
- * @param frequencyHz - Frequency [Hz].
+ * @param feed - The feed ports' patterns in the feed frame (a reception-module pattern source: an array feed, or `analyticFeedSource` of pattern functions); its frequency is used.
  * @param thetaRad - Directions θ [rad], length M.
  * @param phiRad - Directions φ [rad], length M.
  * @param options - Integration orders and blockage.
- * @returns f_θ, f_φ (N × M) and the integration points used.
+ * @returns f_θ, f_φ (N × M, as sampled port patterns) and the integration points used.
  * @throws {@link DimensionError} on mismatched direction arrays; {@link DomainError} on non-finite input.
  * @category Reflector
  */
 export function secondaryPatternsApertureField(
-  dish: Paraboloid, feeds: readonly FeedPattern[], frequencyHz: number, thetaRad: Float64Array, phiRad: Float64Array, options: SecondaryPatternOptions = {},
+  dish: Paraboloid, feed: PortPatternSource, thetaRad: Float64Array, phiRad: Float64Array, options: SecondaryPatternOptions = {},
 ): SecondaryPatterns {
-  if (!Array.isArray(feeds) || feeds.length === 0) throw new DimensionError('invalid argument "feeds": expected at least one feed pattern function.');
-  const { samples: s, k, nr, na, block } = prepare(dish, frequencyHz, thetaRad, phiRad, options);
-  const p = s.count, n = feeds.length;
+  assertPatternSource('feed', feed);
+  const { samples: s, k, nr, na, block } = prepare(dish, feed.frequencyHz, thetaRad, phiRad, options);
+  const p = s.count, n = feed.portCount;
   const f = dish.focalLengthM;
   const src: [Float64Array, Float64Array, Float64Array] = [new Float64Array(2 * n * p), new Float64Array(2 * n * p), new Float64Array(2 * n * p)];
-  const amp = new Float64Array(6 * p);
+  const [ex, ey, ez] = incidentAmplitudes(s, feed);
   const pathPhase = -k * 2 * f;
   const cpp = Math.cos(pathPhase), spp = Math.sin(pathPhase);
-  feeds.forEach((feed, fi) => {
-    incidentAmplitudes(s, feed, amp);
-    for (let q = 0; q < p; q++) {
-      if (block && s.blocked[q]) continue;
-      const rf = s.rf[q];
-      const nx0 = -s.x[q] / (2 * f), ny0 = -s.y[q] / (2 * f);
-      const nn = Math.hypot(nx0, ny0, 1);
-      const nx = nx0 / nn, ny = ny0 / nn, nz = 1 / nn;
-      const o = 6 * q;
-      const dr = nx * amp[o] + ny * amp[o + 2] + nz * amp[o + 4];
-      const di = nx * amp[o + 1] + ny * amp[o + 3] + nz * amp[o + 5];
+  for (let q = 0; q < p; q++) {
+    if (block && s.blocked[q]) continue;
+    const rf = s.rf[q];
+    const nx0 = -s.x[q] / (2 * f), ny0 = -s.y[q] / (2 * f);
+    const nn = Math.hypot(nx0, ny0, 1);
+    const nx = nx0 / nn, ny = ny0 / nn, nz = 1 / nn;
+    const g = s.w[q] / rf;
+    for (let i = 0; i < n; i++) {
+      const o = 2 * (i * p + q);
+      const dr = nx * ex[o] + ny * ey[o] + nz * ez[o];
+      const di = nx * ex[o + 1] + ny * ey[o + 1] + nz * ez[o + 1];
       // Reflected transverse field at the plane: (2(n̂·e)n̂ − e)/ρ_f · e^{−jk2f} · w
-      const axr = 2 * dr * nx - amp[o], axi = 2 * di * nx - amp[o + 1];
-      const ayr = 2 * dr * ny - amp[o + 2], ayi = 2 * di * ny - amp[o + 3];
-      const g = s.w[q] / rf;
-      const idx = 2 * (fi * p + q);
-      src[0][idx] = g * (axr * cpp - axi * spp); src[0][idx + 1] = g * (axr * spp + axi * cpp);
-      src[1][idx] = g * (ayr * cpp - ayi * spp); src[1][idx + 1] = g * (ayr * spp + ayi * cpp);
+      const axr = 2 * dr * nx - ex[o], axi = 2 * di * nx - ex[o + 1];
+      const ayr = 2 * dr * ny - ey[o], ayi = 2 * di * ny - ey[o + 1];
+      src[0][o] = g * (axr * cpp - axi * spp); src[0][o + 1] = g * (axr * spp + axi * cpp);
+      src[1][o] = g * (ayr * cpp - ayi * spp); src[1][o + 1] = g * (ayr * spp + ayi * cpp);
     }
-  });
+  }
   // radiate() projects (F_x, F_y, 0) on θ̂ = (cosθcosφ, cosθsinφ, −sinθ), φ̂; the Huygens
   // factor (jk/4π)(1 + cosθ)/cosθ turns cosθ·(F_x cosφ + F_y sinφ) into the formula above.
   const out = radiate(src, n, s, k, thetaRad, phiRad, (t) => {
     const c = Math.cos(t);
     if (Math.abs(c) < 1e-12) throw new DomainError('invalid argument "thetaRad": the aperture-field method is not evaluated at θ = 90°; use physical optics.');
-    return [0, (k / (4 * Math.PI)) * (1 + c) / c];
+    return [0, ((k / (4 * Math.PI)) * (1 + c)) / c];
   }, true);
   // The φ̂ projection carries no cosθ factor: undo the 1/cosθ on it.
   for (let j = 0; j < thetaRad.length; j++) {
@@ -294,5 +287,8 @@ export function secondaryPatternsApertureField(
       out.phi.data[o] *= c; out.phi.data[o + 1] *= c;
     }
   }
-  return { ...out, integrationPoints: p, radialOrder: nr, azimuthOrder: na };
+  return {
+    thetaRad, phiRad, thetaComponentV: out.theta, phiComponentV: out.phi, driveCurrentA: feed.driveCurrentA, frequencyHz: feed.frequencyHz,
+    integrationPoints: p, radialOrder: nr, azimuthOrder: na,
+  };
 }

@@ -6,7 +6,7 @@
  */
 import { gaussLegendre } from '../geometry/quadrature.js';
 import type { Paraboloid } from './paraboloid.js';
-import type { FeedPattern } from './feed.js';
+import type { PortPatternSource } from '../reception/patterns.js';
 import { DomainError } from '../errors.js';
 
 /** Integration points over the projected aperture (disk of radius D/2 around the offset). @internal */
@@ -55,28 +55,35 @@ export function sampleAperture(dish: Paraboloid, radialOrder: number, azimuthOrd
 }
 
 /**
- * Incident field amplitude vector e (reflector-frame Cartesian, complex) at
- * each surface point, such that E_inc = e·exp(−jkρ_f)/ρ_f. Writes 6 numbers
- * per point: [exRe, exIm, eyRe, eyIm, ezRe, ezIm]. @internal
+ * Incident field amplitude vectors e (reflector-frame Cartesian, complex) of
+ * every port at every surface point, such that E_inc = e·exp(−jkρ_f)/ρ_f.
+ * Layout: three N×P interleaved matrices (x, y, z components). @internal
  */
-export function incidentAmplitudes(s: ApertureSamples, feed: FeedPattern, out: Float64Array): Float64Array {
-  for (let k = 0; k < s.count; k++) {
+export function incidentAmplitudes(s: ApertureSamples, source: PortPatternSource): [Float64Array, Float64Array, Float64Array] {
+  const p = s.count, n = source.portCount;
+  const th = new Float64Array(p), ph = new Float64Array(p);
+  for (let k = 0; k < p; k++) {
     // Direction from the focus to the point, in the feed frame (x, −y, −z).
     const dx = s.x[k] / s.rf[k], dy = -s.y[k] / s.rf[k], dz = -s.z[k] / s.rf[k];
-    const th = Math.atan2(Math.hypot(dx, dy), dz);
-    const ph = Math.atan2(dy, dx);
-    const v = feed(th, ph);
-    if (!Number.isFinite(v.thetaRe) || !Number.isFinite(v.thetaIm) || !Number.isFinite(v.phiRe) || !Number.isFinite(v.phiIm)) {
-      throw new DomainError(`invalid feed pattern: non-finite value at θ_f = ${th}, φ_f = ${ph} rad.`);
-    }
-    const ct = Math.cos(th), st = Math.sin(th), cp = Math.cos(ph), sp = Math.sin(ph);
-    // θ̂_f = (ct cp, ct sp, −st), φ̂_f = (−sp, cp, 0) in the feed frame.
-    const fxr = v.thetaRe * ct * cp - v.phiRe * sp, fxi = v.thetaIm * ct * cp - v.phiIm * sp;
-    const fyr = v.thetaRe * ct * sp + v.phiRe * cp, fyi = v.thetaIm * ct * sp + v.phiIm * cp;
-    const fzr = -v.thetaRe * st, fzi = -v.thetaIm * st;
-    // Back to the reflector frame: (x, −y, −z).
-    const o = 6 * k;
-    out[o] = fxr; out[o + 1] = fxi; out[o + 2] = -fyr; out[o + 3] = -fyi; out[o + 4] = -fzr; out[o + 5] = -fzi;
+    th[k] = Math.atan2(Math.hypot(dx, dy), dz);
+    ph[k] = Math.atan2(dy, dx);
   }
-  return out;
+  const ft = new Float64Array(2 * n * p), fp = new Float64Array(2 * n * p);
+  source.fill(th, ph, 0, p, ft, fp, p);
+  const ex = new Float64Array(2 * n * p), ey = new Float64Array(2 * n * p), ez = new Float64Array(2 * n * p);
+  for (let k = 0; k < p; k++) {
+    const ct = Math.cos(th[k]), st = Math.sin(th[k]), cp = Math.cos(ph[k]), sp = Math.sin(ph[k]);
+    for (let i = 0; i < n; i++) {
+      const o = 2 * (i * p + k);
+      const tr = ft[o], ti = ft[o + 1], pr = fp[o], pi = fp[o + 1];
+      if (!Number.isFinite(tr) || !Number.isFinite(ti) || !Number.isFinite(pr) || !Number.isFinite(pi)) {
+        throw new DomainError(`invalid feed pattern: port ${i} is not finite at θ_f = ${th[k]}, φ_f = ${ph[k]} rad.`);
+      }
+      // θ̂_f = (ct cp, ct sp, −st), φ̂_f = (−sp, cp, 0) in the feed frame; back to the reflector frame: (x, −y, −z).
+      ex[o] = tr * ct * cp - pr * sp; ex[o + 1] = ti * ct * cp - pi * sp;
+      ey[o] = -(tr * ct * sp + pr * cp); ey[o + 1] = -(ti * ct * sp + pi * cp);
+      ez[o] = tr * st; ez[o + 1] = ti * st;
+    }
+  }
+  return [ex, ey, ez];
 }

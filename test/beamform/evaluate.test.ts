@@ -1,6 +1,6 @@
 import { describe, it, expect } from 'vitest';
 import {
-  beamResponse, beamPowerPattern, beamOutputPower, beamSnr, whiteNoiseGain, arrayGain, interferenceRejection,
+  beamResponse, beamPowerPattern, beamPowerPatternInto, beamOutputPower, beamSnr, whiteNoiseGain, arrayGain, interferenceRejection,
 } from '../../src/beamform/evaluate.js';
 import { conjugateFieldWeights, constrainedMinimumVarianceWeights, maxDirectivityWeights, maxSnrWeights } from '../../src/beamform/weights.js';
 import { findSpectrumPeaks } from '../../src/beamform/peaks.js';
@@ -15,7 +15,7 @@ describe('beam evaluation', () => {
   const n = 8;
   const a = lineSteering(n, [0.2]);
   it('conjugate match of a unit-modulus steering vector: WNG = N, array gain in white noise = N', () => {
-    // Cauchy–Schwarz; Van Trees 2002, §2.6 (from memory): the uniform beam's array gain in white noise is N.
+    // Cauchy–Schwarz; Van Trees 2002 (from memory): the uniform beam's array gain in white noise is N.
     const w = conjugateFieldWeights(a);
     expect(whiteNoiseGain(w, a)).toBeCloseTo(n, 12);
     expect(arrayGain(w, a, scale(identity(n), 3))).toBeCloseTo(n, 12);
@@ -30,6 +30,10 @@ describe('beam evaluation', () => {
     const two = beamPowerPattern(w, [scan, scale(scan, 2)]);
     for (let k = 0; k < 25; k++) expect(two[k]).toBeCloseTo(5 * p[k], 10);
     expect(() => beamPowerPattern(w, [])).toThrow(DimensionError);
+    const out = new Float64Array(25).fill(7);
+    expect(beamPowerPatternInto(out, w, scan)).toBe(out); // returns out, overwrites stale contents
+    for (let k = 0; k < 25; k++) expect(out[k]).toBe(p[k]);
+    expect(() => beamPowerPatternInto(new Float64Array(24), w, scan)).toThrow(DimensionError);
     expect(() => beamPowerPattern(w, [scan, zeros(n, 3)])).toThrow(DimensionError);
   });
   it('array factor agrees with the pattern module (wᴴa convention shared)', () => {
@@ -70,7 +74,7 @@ describe('beam evaluation', () => {
 
 describe('LCMV derivative constraint on a line', () => {
   it('a zero-derivative constraint flattens the main beam (central difference of wᴴa(u) ≈ 0)', () => {
-    // Constraint wᴴ ∂a/∂u = 0 makes d(wᴴa)/du vanish at u₀ (Van Trees 2002, §6.7.4, from memory); the central
+    // Constraint wᴴ ∂a/∂u = 0 makes d(wᴴa)/du vanish at u₀ (Van Trees 2002, from memory); the central
     // difference then has an O(h²) truncation error only, against O(1) for the same beam without it.
     const n = 10, u0 = 0.23, h = 1e-4; // interferer off the conjugate beam's nulls, so MVDR ≠ conjugate match
     const r = add(identity(n), scale(multiply(lineSteering(n, [-0.05]), adjoint(lineSteering(n, [-0.05]))), 100));
@@ -104,7 +108,7 @@ describe('maximum directivity of isotropic point elements', () => {
     return r;
   }
   it('half-wave broadside: R_iso = I and the maximum directivity is N', () => {
-    // sin(mπ)/(mπ) = 0: uniform weights are optimal, D = N (Balanis, Antenna Theory, 4th ed., §6.3, from memory).
+    // sin(mπ)/(mπ) = 0: uniform weights are optimal, D = N (Balanis, Antenna Theory, 4th ed., from memory).
     const n = 6;
     const a = lineSteering(n, [0]);
     const riso = isotropicCorrelation(n, LAMBDA_M / 2);

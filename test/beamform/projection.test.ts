@@ -70,7 +70,7 @@ function subBlock(b: ReturnType<typeof randomMatrix>, k: number) {
 
 describe('maximum-SNR beam for a signal of any rank', () => {
   it('its SNR is the largest generalised eigenvalue (independent solver) and beats random beams', () => {
-    // Generalised Rayleigh quotient (Van Trees 2002, §6.2, from memory): max wᴴR_s w / wᴴR_n w = λ_max(R_s, R_n).
+    // Generalised Rayleigh quotient (Van Trees 2002, from memory): max wᴴR_s w / wᴴR_n w = λ_max(R_s, R_n).
     fc.assert(fc.property(fc.integer({ min: 2, max: 9 }), fc.integer({ min: 1, max: 1e6 }), (n, seed) => {
       const g = randomMatrix(n, 2, seed);
       const rs = multiply(g, adjoint(g)); // rank two
@@ -99,6 +99,7 @@ describe('maximum-SNR beam for a signal of any rank', () => {
     expect(() => maxSnrWeightsForCorrelation(rs, rs)).toThrow(SingularMatrixError);
     expect(() => maxSnrWeightsForCorrelation(rs, subtract(rs, rs))).toThrow(NotPositiveDefiniteError);
     expect(maxSnrWeightsForCorrelation(rs, add(rs, identity(5)), {}).snr).toBeGreaterThan(0);
+    expect(() => maxSnrWeightsForCorrelation(randomMatrix(5, 5, 1), identity(5))).toThrow(/"signal"/);
     expect(Number.isFinite(maxSnrWeightsForCorrelation(rs, rs, { diagonalLoading: 1e-2 }).snr)).toBe(true);
   });
 });

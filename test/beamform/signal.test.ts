@@ -51,6 +51,16 @@ describe('snapshot simulation', () => {
     expect(s3.snapshots.data[0]).not.toBe(s1.snapshots.data[0]);
   });
 
+  it('noise only (K = 0): mean element power equals noisePower', () => {
+    const t = 5000;
+    const sim = simulateSnapshots({ steering: zeros(N, 0), sourcePowers: [], noisePower: 2, snapshotCount: t, seed: 12 });
+    let p = 0;
+    for (let q = 0; q < sim.snapshots.data.length; q++) p += sim.snapshots.data[q] ** 2;
+    // Mean of N·T exponential variables of mean 2: relative sd 1/√(N·T) ≈ 0.0045; allow 5σ.
+    expect(Math.abs(p / (N * t) / 2 - 1)).toBeLessThan(5 / Math.sqrt(N * t));
+    expect(sim.sourceSignals.rows).toBe(0);
+  });
+
   it('interferers add their power; bad inputs are typed errors', () => {
     const a = lineSteering(N, [0]);
     const b = lineSteering(N, [0.5]);
@@ -203,6 +213,12 @@ describe('source count and spectra: bad input', () => {
   it('typed errors', () => {
     const r = modelCorrelation([0.1], [1], 1);
     expect(() => estimateSourceCount(r, 0)).toThrow(DomainError);
+    const skew = modelCorrelation([0.1], [1], 1); skew.data[3] += 0.5; // entry (0, 1) no longer conj(entry (1, 0))
+    expect(() => estimateSourceCount(skew, 10)).toThrow(/"correlation"/);
+    expect(() => musicSpectrum(skew, lineSteering(N, [0.1]), 1)).toThrow(/"correlation"/);
+    expect(() => bartlettSpectrum(skew, lineSteering(N, [0.1]))).toThrow(DomainError);
+    expect(() => rootMusic(skew, 1, { spacingM: LAMBDA_M / 2, frequencyHz: FREQUENCY_HZ })).toThrow(/"correlation"/);
+    expect(() => simulateSnapshots({ steering: lineSteering(N, [0]), sourcePowers: [1], noiseCorrelation: skew, snapshotCount: 2, seed: 1 })).toThrow(/"noiseCorrelation"/);
     expect(() => estimateSourceCount(r, 10, 'bic' as never)).toThrow(DomainError);
     expect(() => estimateSourceCount(multiply(lineSteering(N, [0.1]), adjoint(lineSteering(N, [0.1]))), 10)).toThrow(DomainError);
     expect(() => musicSpectrum(r, lineSteering(9, [0.1]), 1)).toThrow(DimensionError);

@@ -17,7 +17,7 @@ const arbCase = fc.record({ n: fc.integer({ min: 2, max: 9 }), seed: fc.integer(
 describe('maximum-SNR beam', () => {
   it('its SNR is ≥ that of every other beamformer on random HPD noise (theorem)', () => {
     // Generalised Rayleigh quotient: max_w |wᴴa|²/wᴴR_n w = aᴴR_n⁻¹a, attained only by w ∝ R_n⁻¹a
-    // (Van Trees, Optimum Array Processing, 2002, §6.2, from memory).
+    // (Van Trees, Optimum Array Processing, 2002, from memory).
     fc.assert(fc.property(arbCase, ({ n, seed }) => {
       const rn = randomHpd(n, seed, 0.05);
       const a = randomMatrix(n, 1, seed + 1);
@@ -38,7 +38,7 @@ describe('maximum-SNR beam', () => {
   });
 
   it('MVDR on R = σ²aaᴴ + R_n equals the maximum-SNR beam up to scale', () => {
-    // Matrix inversion lemma: R⁻¹a = R_n⁻¹a / (1 + σ² aᴴR_n⁻¹a) (Van Trees 2002, §6.2, from memory);
+    // Matrix inversion lemma: R⁻¹a = R_n⁻¹a / (1 + σ² aᴴR_n⁻¹a) (Van Trees 2002, from memory);
     // with the same distortionless normalisation both beams coincide.
     fc.assert(fc.property(arbCase, fc.double({ min: 0.01, max: 100, noNaN: true }), ({ n, seed }, power) => {
       const rn = randomHpd(n, seed, 0.05);
@@ -139,6 +139,9 @@ describe('conditioning policy and bad input', () => {
   it('non-Hermitian or non-finite correlation: DomainError', () => {
     const bad = randomMatrix(5, 5, 9);
     expect(() => maxSnrWeights(a, bad)).toThrow(DomainError);
+    expect(() => maxSnrWeights(a, bad)).toThrow(/"noise"/); // the message names the caller's argument
+    expect(() => minimumVarianceWeights(a, bad)).toThrow(/"correlation"/);
+    expect(() => maxDirectivityWeights(a, zeros(5, 5))).toThrow(/"isotropicCorrelation"/);
     const nan = randomHpd(5, 3); nan.data[4] = NaN;
     expect(() => maxSnrWeights(a, nan)).toThrow(DomainError);
     expect(() => maxSnrWeights(a, randomHpd(5, 3), { diagonalLoading: -1 })).toThrow(DomainError);

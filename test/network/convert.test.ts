@@ -2,7 +2,7 @@ import { describe, it, expect } from 'vitest';
 import { Complex } from 'complex.js';
 import { createMultiport, multiportMatrix } from '../../src/network/multiport.js';
 import { convertMultiport, renormalizeMultiport } from '../../src/network/convert.js';
-import { fromRows, entry, transpose, identity } from '../../src/linalg/index.js';
+import { fromRows, entry, transpose, identity, multiply } from '../../src/linalg/index.js';
 import { DomainError, SingularMatrixError, DimensionError } from '../../src/errors.js';
 import { expectCMatrixClose, randomMatrix } from '../helpers/matchers.js';
 import { maxAbsDifference } from '../../src/linalg/ops.js';
@@ -51,6 +51,14 @@ describe('two-port conversions vs. Pozar, Microwave Engineering, 4th ed., 2012, 
       const back = convertMultiport(convertMultiport(zNet, form), 'impedance');
       expectCMatrixClose(multiportMatrix(back, 0), fromRows(zEx), { rtol: 1e-13 });
     }
+  });
+  it('transfer form: cascading two-ports with equal real references multiplies T matrices', () => {
+    const a = createMultiport('impedance', [1e9], [fromRows(zEx)]);
+    const b = createMultiport('chain', [1e9], [fromRows([[1, c(10, 20)], [c(0.002, 0.001), 1.02]])]);
+    const ta = multiportMatrix(convertMultiport(a, 'transfer'), 0), tb = multiportMatrix(convertMultiport(b, 'transfer'), 0);
+    // chain-matrix product is the independent cascade (Pozar 2012, §4.4, from memory)
+    const chain = createMultiport('chain', [1e9], [multiply(multiportMatrix(convertMultiport(a, 'chain'), 0), multiportMatrix(b, 0))]);
+    expectCMatrixClose(multiportMatrix(convertMultiport(chain, 'transfer'), 0), multiply(ta, tb), { rtol: 1e-12 });
   });
   it('series impedance: chain [[1, Z], [0, 1]] has S11 = Z/(Z + 2Z0), S21 = 2Z0/(Z + 2Z0)', () => {
     // Pozar 2012, Table 4.1 (ABCD of a series impedance) (from memory)

@@ -7,7 +7,7 @@ import {
 } from '../../src/network/noise.js';
 import { createMultiport, multiportMatrix } from '../../src/network/multiport.js';
 import { convertMultiport, renormalizeMultiport } from '../../src/network/convert.js';
-import { cascadeTwoPorts, joinPorts } from '../../src/network/connect.js';
+import { cascadeTwoPorts, joinPorts, terminatePorts } from '../../src/network/connect.js';
 import { fromRows, multiply, inverse, entry } from '../../src/linalg/index.js';
 import type { CMatrix } from '../../src/linalg/cmatrix.js';
 import { K_BOLTZMANN_J_PER_K, T0_K } from '../../src/units/constants.js';
@@ -75,6 +75,23 @@ describe('Twiss (1955) vs. the scattering form', () => {
       expectCMatrixClose({ rows: 3, cols: 3, data: j.noiseWaves!.subarray(18 * k, 18 * (k + 1)) as Float64Array },
         { rows: 3, cols: 3, data: expected.noiseWaves!.subarray(18 * k, 18 * (k + 1)) as Float64Array }, { rtol: 1e-11 });
     }
+  });
+});
+
+describe('terminations at a temperature (Bosma 1967)', () => {
+  it('a lossless network closed by loads at T is thermal at T; a thermal network closed by warm loads too', () => {
+    const x = randomPassiveImpedance(4, 81);
+    for (let q = 0; q < x.data.length; q += 2) x.data[q] = 0; // Z = jX: lossless
+    const f = [1e9];
+    const lossless = createMultiport('impedance', f, [x], { referenceOhm: [50, { re: 30, im: 20 }, 50, 75] });
+    const t = terminatePorts(lossless, [1, 3], [{ re: 40, im: 10 }, 120], { loadTemperatureK: 250 });
+    const expected = withThermalNoise(t, 250);
+    expectCMatrixClose({ rows: 2, cols: 2, data: t.noiseWaves! }, { rows: 2, cols: 2, data: expected.noiseWaves! }, { rtol: 1e-12 });
+    const warm = withThermalNoise(createMultiport('impedance', f, [randomPassiveImpedance(3, 82)]), 400);
+    const t2 = terminatePorts(warm, [0], [{ re: 10, im: -30 }], { loadTemperatureK: [400] });
+    expectCMatrixClose({ rows: 2, cols: 2, data: t2.noiseWaves! }, { rows: 2, cols: 2, data: withThermalNoise(t2, 400).noiseWaves! }, { rtol: 1e-12 });
+    expect(() => terminatePorts(warm, [0], [50], { loadTemperatureK: [1, 2] })).toThrow(DimensionError);
+    expect(() => terminatePorts(warm, [0], [50], { loadTemperatureK: -1 })).toThrow(DomainError);
   });
 });
 

@@ -1,0 +1,144 @@
+/**
+ * Reception through a reflector with an array feed: the single-call
+ * evaluation of "reflector + array feed + amplifiers + environment + beams".
+ * @module
+ */
+import { DimensionError, DomainError } from '../errors.js';
+import { assertNonNegative, assertPositive } from '../internal/validate.js';
+import type { CMatrix } from '../linalg/cmatrix.js';
+import type { NoiseParametersInput } from '../network/noise.js';
+import { type SphereQuadrature } from '../geometry/quadrature.js';
+import { type PortPatternSource, type QuadratureDirections, quadratureDirections } from '../reception/patterns.js';
+import { type LossModel, type NoiseBudget, arrayNoiseBudget } from '../reception/budget.js';
+import { type BeamFigures, beamFigures, maxSnrWeightsUnpolarized, minimumReceiverTemperature } from '../reception/figures.js';
+import type { Paraboloid } from './paraboloid.js';
+import { type SecondaryPatternOptions, type SecondaryPatterns, secondaryPatternsPhysicalOptics } from './secondary.js';
+
+/**
+ * Whether a ray leaving the focus in feed-frame direction (θ_f, φ_f) hits the
+ * reflector surface inside its projected aperture (works for offset dishes).
+ * @param dish - Reflector.
+ * @param thetaRad - Feed-frame polar angle θ_f [rad].
+ * @param phiRad - Feed-frame azimuth φ_f [rad].
+ * @returns True when the ray is intercepted by the dish.
+ * @category Reflector
+ */
+export function rayHitsReflector(dish: Paraboloid, thetaRad: number, phiRad: number): boolean {
+  // Reflector-frame direction d = (x_f, −y_f, −z_f); the ray meets the paraboloid at ρ_f = 2f/(1 − d_z).
+  const st = Math.sin(thetaRad);
+  const dx = st * Math.cos(phiRad), dy = -st * Math.sin(phiRad), dz = -Math.cos(thetaRad);
+  if (dz >= 1 - 1e-15) return false;
+  const rf = (2 * dish.focalLengthM) / (1 - dz);
+  const x = rf * dx - dish.offsetM, y = rf * dy, a = dish.diameterM / 2;
+  return x * x + y * y <= a * a;
+}
+
+/**
+ * Description of a reflector antenna with an array feed for {@link evaluateReflectorArrayFeed}.
+ * @category Reflector
+ */
+export interface ReflectorArrayFeedDescription {
+  /** The reflector (its frame is the frame of the beam directions). */
+  readonly dish: Paraboloid;
+  /** The feed's ports: open-circuit embedded patterns in the feed frame (phase reference at the focus) and the feed array's impedance matrix Z_A [Ω]. */
+  readonly feed: { readonly patterns: PortPatternSource; readonly impedanceOhm: CMatrix };
+  /** Sphere quadrature in the feed frame for the noise integrals (a geometry-module rule or explicit directions). */
+  readonly feedQuadrature: SphereQuadrature | QuadratureDirections;
+  /** Brightness of the sky reflected into the feed by the dish [K], ≥ 0. */
+  readonly skyTemperatureK: number;
+  /** Brightness seen by feed spillover past the rim (ground behind a zenith-pointing dish) [K], ≥ 0. */
+  readonly groundTemperatureK: number;
+  /** Bandwidth B [Hz], > 0. */
+  readonly bandwidthHz: number;
+  /** Amplifier noise parameters, one shared set or one per port. @defaultValue noiseless receivers */
+  readonly amplifiers?: NoiseParametersInput | ReadonlyArray<NoiseParametersInput>;
+  /** Physical temperature of the feed structure [K]. @defaultValue 290 */
+  readonly physicalTemperatureK?: number;
+  /** Ohmic-loss model of the feed (reception module). @defaultValue 'fromPatterns' */
+  readonly loss?: LossModel;
+  /** Beam directions in the reflector frame [rad]. */
+  readonly beams: { readonly thetaRad: Float64Array; readonly phiRad: Float64Array };
+  /** Open-circuit beam weights, N×K. @defaultValue max-SNR weights for an unpolarized source per beam */
+  readonly weights?: CMatrix;
+  /** Flux density of an unpolarized test source for the SNR [W m⁻² Hz⁻¹]. */
+  readonly fluxDensityWPerM2Hz?: number;
+  /** Integration controls of the physical-optics secondary patterns. */
+  readonly secondaryOptions?: SecondaryPatternOptions;
+}
+
+/**
+ * Result of {@link evaluateReflectorArrayFeed}.
+ * @category Reflector
+ */
+export interface ReflectorArrayFeedEvaluation {
+  /** Noise budget of the feed ports (sky through the dish, spillover, loss, receivers) [V²]. */
+  readonly budget: NoiseBudget;
+  /** Secondary patterns of every port at the beam directions [V]. */
+  readonly beamPatterns: SecondaryPatterns;
+  /** Open-circuit weights used, N×K. */
+  readonly weights: CMatrix;
+  /** Figures per beam (T_sys and parts, A_e, A_e/T_sys, efficiencies with the dish's projected area as the physical area). */
+  readonly figures: BeamFigures[];
+  /** The array feed's minimum receiver temperature T_rec,min [K]. */
+  readonly minimumReceiverTemperatureK: number;
+}
+
+/**
+ * Evaluates a reflector antenna with an array feed: noise of every feed port,
+ * each port's response to a distant source through the dish, beams and the
+ * IEEE receiving-array figures of merit.
+ *
+ * @remarks
+ * Noise is computed on the feed side with the reception module's brightness
+ * integral: a feed-frame direction whose ray hits the dish sees the sky
+ * reflected by the (lossless) dish, every other direction sees the ground
+ * brightness — the spillover split of the array-feed noise model (Warnick,
+ * Ivashina, Maaskant, Woestenburg, IEEE Trans. Antennas Propag. 58(6), 2010;
+ * K. F. Warnick & B. D. Jeffs, "Efficiencies and system temperature for a
+ * beamforming array", IEEE AWPL 7, 2008 — from memory). Signals use each
+ * port's physical-optics secondary pattern, which is an embedded pattern of
+ * the whole antenna, so the reception row of docs/conventions.md applies
+ * unchanged. T_sys is referred to the isotropic noise response of the feed
+ * ports, 2k_B B(Z + Zᴴ) (IEEE Std 145-2013 receiving-array definitions).
+ * Scattering from the feed and struts onto the dish and back is neglected.
+ * @param d - Reflector, feed, environment, amplifiers and beams.
+ * @returns Budget, secondary beam patterns, weights and figures per beam.
+ * @throws {@link DimensionError} on port-count mismatch; {@link DomainError} for negative temperatures or a feed whose frequency differs from the patterns'.
+ * @category Reflector
+ */
+export function evaluateReflectorArrayFeed(d: ReflectorArrayFeedDescription): ReflectorArrayFeedEvaluation {
+  assertNonNegative('skyTemperatureK', d.skyTemperatureK, 'K');
+  assertNonNegative('groundTemperatureK', d.groundTemperatureK, 'K');
+  assertPositive('bandwidthHz', d.bandwidthHz, 'Hz');
+  if (d.feed === null || typeof d.feed !== 'object') throw new DomainError('invalid argument "feed": expected {patterns, impedanceOhm}.');
+  if (d.feed.impedanceOhm.rows !== d.feed.patterns.portCount) {
+    throw new DimensionError(`invalid argument "feed.impedanceOhm": expected ${d.feed.patterns.portCount}×${d.feed.patterns.portCount} (one row per feed port), received ${d.feed.impedanceOhm.rows}×${d.feed.impedanceOhm.cols}.`);
+  }
+  const quadrature = 'weightSr' in d.feedQuadrature ? d.feedQuadrature : quadratureDirections(d.feedQuadrature);
+  const dish = d.dish;
+  const budget = arrayNoiseBudget({
+    patterns: d.feed.patterns,
+    quadrature,
+    impedanceOhm: d.feed.impedanceOhm,
+    environment: {
+      brightnessK: (t: number, p: number) => (rayHitsReflector(dish, t, p) ? d.skyTemperatureK : d.groundTemperatureK),
+      isSky: (t: number, p: number) => rayHitsReflector(dish, t, p),
+    },
+    amplifiers: d.amplifiers,
+    physicalTemperatureK: d.physicalTemperatureK,
+    bandwidthHz: d.bandwidthHz,
+    loss: d.loss,
+  });
+  const beamPatterns = secondaryPatternsPhysicalOptics(dish, d.feed.patterns, d.beams.thetaRad, d.beams.phiRad, d.secondaryOptions);
+  const weights = d.weights ?? maxSnrWeightsUnpolarized(budget.total, beamPatterns);
+  if (weights.rows !== budget.portCount || weights.cols !== d.beams.thetaRad.length) {
+    throw new DimensionError(`invalid argument "weights": expected ${budget.portCount}×${d.beams.thetaRad.length} (ports × beams), received ${weights.rows}×${weights.cols}.`);
+  }
+  const tMin = minimumReceiverTemperature(budget);
+  const figures = beamFigures(budget, weights, beamPatterns, {
+    physicalAreaM2: dish.apertureAreaM2,
+    fluxDensityWPerM2Hz: d.fluxDensityWPerM2Hz,
+    minimumReceiverTemperatureK: tMin,
+  });
+  return { budget, beamPatterns, weights, figures, minimumReceiverTemperatureK: tMin };
+}
