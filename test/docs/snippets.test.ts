@@ -1,10 +1,10 @@
 /**
- * Runs every ```ts block of the getting-started guide and the README (imports of 'phasewise',
- * 'phasewise/plot' and 'phasewise/node' point at the sources) and checks the numbers the
- * text quotes.
+ * Runs every ```ts block of the README and of every guide in docs/ (imports of 'phasewise',
+ * 'phasewise/plot' and 'phasewise/node' point at the sources); for the getting-started guide it
+ * also checks the numbers the text quotes.
  */
 import { describe, it, expect, vi } from 'vitest';
-import { mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 
@@ -55,13 +55,14 @@ describe('docs/getting-started.md', () => {
   });
 });
 
-describe('README.md', () => {
-  it('every ts block runs and prints', async () => {
-    const b = blocks('README.md');
+const GUIDES = ['README.md', ...readdirSync(join(root, 'docs')).filter((f) => f.endsWith('.md') && f !== 'getting-started.md').sort().map((f) => `docs/${f}`)];
+
+describe.each(GUIDES.filter((g) => blocks(g).length > 0))('%s', (guide) => {
+  it('every ts block runs without NaN', async () => {
+    const b = blocks(guide);
     expect(b.length).toBeGreaterThan(0);
     for (const [i, code] of b.entries()) {
-      const out = await runSnippet(code, `readme-${i}`);
-      expect(out.length, `block ${i}`).toBeGreaterThan(0);
+      const out = await runSnippet(code, `${guide.replace(/\W+/g, '-')}-${i}`);
       expect(out.join('\n')).not.toMatch(/NaN/);
     }
   });
