@@ -16,4 +16,4 @@ export * from './pattern/index.js';
 export * from './beamform/index.js';
 export * from './measure/index.js';
 export * from './reflector/index.js';
-export * from './pattern/index.js';
+export * from './floquet/index.js';

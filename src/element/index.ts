@@ -7,9 +7,11 @@ export {
   dipoleSelfImpedance, sideBySideMutualImpedance, collinearMutualImpedance, echelonMutualImpedance,
   dipoleMutualImpedance, dipoleArrayImpedanceMatrix,
 } from './mutualImpedance.js';
-export type { PatternExcitation, EmbeddedPatternSet } from './patternSet.js';
+export type {
+  PatternExcitation, OpenCircuitExcitation, ShortCircuitExcitation, LoadedExcitation, Ludwig3Result, EmbeddedPatternSet, PatternSamples,
+} from './patternSet.js';
 export {
-  embeddedPatternSet, dipoleEmbeddedPatterns, convertPatternExcitation, ludwig3Components, translatePhaseReference,
+  embeddedPatternSet, dipoleEmbeddedPatterns, dipoleArrayFarFields, convertPatternExcitation, ludwig3Components, translatePhaseReference,
 } from './patternSet.js';
 export type { PatternInterpolator } from './patternInterpolation.js';
 export { patternInterpolator, rotatePatternSet } from './patternInterpolation.js';
@@ -19,3 +21,5 @@ export {
   isotropicRadiation, radiationResistanceMatrix,
 } from './radiation.js';
 export { parsePatternJson, formatPatternJson, parsePatternCsv, formatPatternCsv } from './patternFormats.js';
+export type { DipolesFromLayoutOptions } from './fromLayout.js';
+export { dipolesFromLayout } from './fromLayout.js';

@@ -248,6 +248,61 @@ export function dipoleMutualImpedance(a: WireDipole, b: WireDipole, frequencyHz:
 }
 
 /**
+ * Open-addressing hash table from (shape pair, quantised offset) to a complex
+ * value; keys are verified exactly, so hash collisions only cost a probe.
+ */
+class PairTable {
+  private cap = 1024;
+  private size = 0;
+  private keys = new Float64Array(4 * this.cap);
+  private vals = new Float64Array(2 * this.cap);
+  private used = new Uint8Array(this.cap);
+
+  private slot(a: number, x: number, y: number, z: number): number {
+    let h = Math.imul(a | 0, 0x9e3779b1) ^ Math.imul(x | 0, 0x85ebca77) ^ Math.imul(y | 0, 0xc2b2ae3d) ^ Math.imul(z | 0, 0x27d4eb2f);
+    h = Math.imul(h ^ (h >>> 15), 0x2c1b3c6d);
+    h ^= (x / 4294967296) | 0;
+    return (h ^ (h >>> 13)) & (this.cap - 1);
+  }
+
+  get(a: number, x: number, y: number, z: number, out: Float64Array): boolean {
+    for (let i = this.slot(a, x, y, z); this.used[i]; i = (i + 1) & (this.cap - 1)) {
+      const o = 4 * i;
+      if (this.keys[o] === a && this.keys[o + 1] === x && this.keys[o + 2] === y && this.keys[o + 3] === z) {
+        out[0] = this.vals[2 * i]; out[1] = this.vals[2 * i + 1];
+        return true;
+      }
+    }
+    return false;
+  }
+
+  set(a: number, x: number, y: number, z: number, v: Float64Array): void {
+    if (2 * (this.size + 1) > this.cap) this.grow();
+    let i = this.slot(a, x, y, z);
+    while (this.used[i]) i = (i + 1) & (this.cap - 1);
+    this.used[i] = 1;
+    this.keys.set([a, x, y, z], 4 * i);
+    this.vals[2 * i] = v[0]; this.vals[2 * i + 1] = v[1];
+    this.size++;
+  }
+
+  private grow(): void {
+    const { keys, vals, used, cap } = this;
+    this.cap = 2 * cap;
+    this.keys = new Float64Array(4 * this.cap);
+    this.vals = new Float64Array(2 * this.cap);
+    this.used = new Uint8Array(this.cap);
+    this.size = 0;
+    const v = new Float64Array(2);
+    for (let i = 0; i < cap; i++) {
+      if (!used[i]) continue;
+      v[0] = vals[2 * i]; v[1] = vals[2 * i + 1];
+      this.set(keys[4 * i], keys[4 * i + 1], keys[4 * i + 2], keys[4 * i + 3], v);
+    }
+  }
+}
+
+/**
  * Open-circuit impedance matrix Z [Ω] of an array of thin sinusoidal dipoles by
  * the induced-EMF method (V = Z I, terminal currents), optionally over a PEC
  * ground plane.
@@ -255,7 +310,10 @@ export function dipoleMutualImpedance(a: WireDipole, b: WireDipole, frequencyHz:
  * @remarks
  * Diagonal: {@link dipoleSelfImpedance} (plus the coupling to the element's own
  * image over ground); off-diagonal: {@link dipoleMutualImpedance}. Only the
- * pairs i < j are computed and mirrored (Z is symmetric by reciprocity). Under
+ * pairs i < j are computed and mirrored (Z is symmetric by reciprocity), and
+ * pairs whose relative geometry (lengths, radii, axes and centre offset, the
+ * latter to 1e-10 λ, either order) repeats are evaluated once — on a regular
+ * lattice O(N) evaluations instead of N²/2. Under
  * the single-mode assumption an open-circuited dipole carries no current, so
  * these pairwise values are the exact N-port matrix of the model.
  *
@@ -286,22 +344,47 @@ export function dipoleArrayImpedanceMatrix(dipoles: ReadonlyArray<WireDipole>, f
     return g;
   });
   const images = plane ? geo.map((g) => imageGeometry(g, plane)) : undefined;
+  // Pairs with the same relative geometry (shapes, axes and offset equal to 1e-10 λ) share one
+  // evaluation: on regular lattices this turns N²/2 evaluations into O(N).
+  const quantum = (2 * Math.PI) / k * 1e-10;
+  const shapeIds = new Map<string, number>();
+  const shapeOf = (g: DipoleGeometry) => {
+    const key = `${g.halfLengthM}:${g.radiusM}:${g.ax}:${g.ay}:${g.az}`;
+    let id = shapeIds.get(key);
+    if (id === undefined) { id = shapeIds.size; shapeIds.set(key, id); }
+    return id;
+  };
+  const shapes = geo.map(shapeOf);
+  const imageShapes = images ? images.map(shapeOf) : undefined;
+  const cache = new PairTable();
+  const coupled = (a: DipoleGeometry, sa: number, b: DipoleGeometry, sb: number, pair: [number, number], what: string, out: Float64Array): void => {
+    let qx = Math.round((b.cx - a.cx) / quantum), qy = Math.round((b.cy - a.cy) / quantum), qz = Math.round((b.cz - a.cz) / quantum);
+    let s1 = sa, s2 = sb;
+    // canonical order of the reciprocal pair: (a, b, Δ) ≡ (b, a, −Δ)
+    if (sa > sb || (sa === sb && (qx < 0 || (qx === 0 && (qy < 0 || (qy === 0 && qz < 0)))))) {
+      s1 = sb; s2 = sa; qx = -qx; qy = -qy; qz = -qz;
+    }
+    const shapePair = s1 * 1048576 + s2;
+    if (cache.get(shapePair, qx, qy, qz, out)) return;
+    freePairInto(out, a, b, k, opts, pair, what);
+    cache.set(shapePair, qx, qy, qz, out);
+  };
   const data = new Float64Array(2 * n * n);
   const out = new Float64Array(2);
   for (let i = 0; i < n; i++) {
     freeSelfInto(out, geo[i], k);
     let zr = out[0], zi = out[1];
-    if (images) {
-      freePairInto(out, geo[i], images[i], k, opts, [i, i], ' (element and its own ground image)');
+    if (images && imageShapes) {
+      coupled(geo[i], shapes[i], images[i], imageShapes[i], [i, i], ' (element and its own ground image)', out);
       zr += out[0]; zi += out[1];
     }
     data[2 * (i * n + i)] = zr;
     data[2 * (i * n + i) + 1] = zi;
     for (let j = i + 1; j < n; j++) {
-      freePairInto(out, geo[i], geo[j], k, opts, [i, j], '');
+      coupled(geo[i], shapes[i], geo[j], shapes[j], [i, j], '', out);
       zr = out[0]; zi = out[1];
-      if (images) {
-        freePairInto(out, geo[i], images[j], k, opts, [i, j], ` (element ${i} and the ground image of element ${j})`);
+      if (images && imageShapes) {
+        coupled(geo[i], shapes[i], images[j], imageShapes[j], [i, j], ` (element ${i} and the ground image of element ${j})`, out);
         zr += out[0]; zi += out[1];
       }
       data[2 * (i * n + j)] = zr; data[2 * (i * n + j) + 1] = zi;

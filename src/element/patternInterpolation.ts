@@ -6,7 +6,7 @@
 import { DomainError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
 import { assertFiniteArray, describeValue } from '../internal/validate.js';
-import { embeddedPatternSet, setWavenumber, type EmbeddedPatternSet } from './patternSet.js';
+import { embeddedPatternSet, setWavenumber, type EmbeddedPatternSet, type PatternSamples } from './patternSet.js';
 
 /**
  * A set prepared for repeated interpolation (see {@link patternInterpolator}).
@@ -22,7 +22,7 @@ export interface PatternInterpolator {
    * @returns f·θ̂ and f·φ̂ [V], each N×M.
    * @throws {@link DomainError} for NaN angles, unequal lengths, or θ outside the grid.
    */
-  evaluate(thetaRad: ArrayLike<number>, phiRad: ArrayLike<number>): { thetaComponentV: CMatrix; phiComponentV: CMatrix };
+  evaluate(thetaRad: ArrayLike<number>, phiRad: ArrayLike<number>): PatternSamples;
   /**
    * Allocation-free form of `evaluate`: writes into `thetaOut`/`phiOut` (N×M, not aliasing the set) and returns them.
    * @param thetaOut - Output f·θ̂ [V], N×M.
@@ -31,14 +31,16 @@ export interface PatternInterpolator {
    * @param phiRad - Azimuths [rad].
    * @returns The two outputs.
    */
-  evaluateInto(thetaOut: CMatrix, phiOut: CMatrix, thetaRad: ArrayLike<number>, phiRad: ArrayLike<number>): { thetaComponentV: CMatrix; phiComponentV: CMatrix };
+  evaluateInto(thetaOut: CMatrix, phiOut: CMatrix, thetaRad: ArrayLike<number>, phiRad: ArrayLike<number>): PatternSamples;
 }
 
 interface Prepared {
   nt: number; np: number; n: number; k: number;
   theta: Float64Array; phi0: number; dphi: number;
-  /** per port, per column: x re, x im, y re, y im, z re, z im (phase centre removed). */
+  /** per column, per port (port fastest): x re, x im, y re, y im, z re, z im (phase centre removed). */
   cart: Float64Array;
+  /** accumulator, 6 per port. */
+  acc: Float64Array;
   centres: Float64Array | undefined;
 }
 
@@ -66,19 +68,18 @@ function prepare(set: EmbeddedPatternSet): Prepared {
           let a = tr; tr = a * c - ti * s; ti = a * s + ti * c;
           a = pr; pr = a * c - pi * s; pi = a * s + pi * c;
         }
-        const q = 6 * (r * m + col);
+        const q = 6 * (col * n + r);
         cart[q] = tr * ct * cp - pr * sp; cart[q + 1] = ti * ct * cp - pi * sp;
         cart[q + 2] = tr * ct * sp + pr * cp; cart[q + 3] = ti * ct * sp + pi * cp;
         cart[q + 4] = -tr * st; cart[q + 5] = -ti * st;
       }
     }
   }
-  return { nt, np, n, k, theta: set.thetaRad, phi0: set.phiRad[0], dphi: (2 * Math.PI) / np, cart, centres };
+  return { nt, np, n, k, theta: set.thetaRad, phi0: set.phiRad[0], dphi: (2 * Math.PI) / np, cart, acc: new Float64Array(6 * n), centres };
 }
 
 const wt = new Float64Array(4), wp = new Float64Array(4);
 const jp = new Int32Array(4);
-const acc = new Float64Array(6);
 
 /** Stencil start and Lagrange weights in θ (returns start index; order in `order.v`). */
 function thetaStencil(pr: Prepared, th: number, order: { v: number }): number {
@@ -112,30 +113,30 @@ function phiStencil(pr: Prepared, ph: number): void {
 }
 
 /**
- * Interpolated Cartesian far-field vector of port r at a direction whose
- * stencils are loaded (acc ← complex x, y, z), phase centre restored.
+ * Interpolated Cartesian far-field vectors of every port at a direction whose
+ * stencils are loaded (pr.acc ← complex x, y, z per port), phase centres restored.
+ * Ports are innermost in memory, so each stencil point is one contiguous run.
  */
-function accumulate(pr: Prepared, r: number, s: number, q: number, rx: number, ry: number, rz: number): void {
-  const m = pr.nt * pr.np;
-  const base = 6 * r * m;
+function accumulateAll(pr: Prepared, s: number, q: number, rx: number, ry: number, rz: number): void {
+  const n = pr.n, acc = pr.acc, cart = pr.cart, len = 6 * n;
   acc.fill(0);
   for (let b = 0; b < 4; b++) {
-    const colBase = base + 6 * jp[b] * pr.nt;
+    const colBase = jp[b] * pr.nt;
     for (let a = 0; a < q; a++) {
       const w = wp[b] * wt[a];
-      const o = colBase + 6 * (s + a);
-      acc[0] += w * pr.cart[o]; acc[1] += w * pr.cart[o + 1];
-      acc[2] += w * pr.cart[o + 2]; acc[3] += w * pr.cart[o + 3];
-      acc[4] += w * pr.cart[o + 4]; acc[5] += w * pr.cart[o + 5];
+      const o = len * (colBase + s + a);
+      for (let e = 0; e < len; e++) acc[e] += w * cart[o + e];
     }
   }
   if (pr.centres) {
-    const ph = pr.k * (rx * pr.centres[3 * r] + ry * pr.centres[3 * r + 1] + rz * pr.centres[3 * r + 2]);
-    const c = Math.cos(ph), sn = Math.sin(ph);
-    for (let e = 0; e < 6; e += 2) {
-      const a = acc[e];
-      acc[e] = a * c - acc[e + 1] * sn;
-      acc[e + 1] = a * sn + acc[e + 1] * c;
+    for (let r = 0; r < n; r++) {
+      const ph = pr.k * (rx * pr.centres[3 * r] + ry * pr.centres[3 * r + 1] + rz * pr.centres[3 * r + 2]);
+      const c = Math.cos(ph), sn = Math.sin(ph);
+      for (let e = 6 * r; e < 6 * r + 6; e += 2) {
+        const x = acc[e];
+        acc[e] = x * c - acc[e + 1] * sn;
+        acc[e + 1] = x * sn + acc[e + 1] * c;
+      }
     }
   }
 }
@@ -172,7 +173,7 @@ export function patternInterpolator(set: EmbeddedPatternSet): PatternInterpolato
   embeddedPatternSet(set);
   const pr = prepare(set);
   const order = { v: 4 };
-  const evaluateInto = (thetaOut: CMatrix, phiOut: CMatrix, thetaRad: ArrayLike<number>, phiRad: ArrayLike<number>) => {
+  const evaluateInto = (thetaOut: CMatrix, phiOut: CMatrix, thetaRad: ArrayLike<number>, phiRad: ArrayLike<number>): PatternSamples => {
     const m = thetaRad.length, n = pr.n;
     if (phiRad.length !== m || thetaOut.rows !== n || thetaOut.cols !== m || phiOut.rows !== n || phiOut.cols !== m) {
       throw new DomainError(`invalid arguments: expected ${m} φ values and ${n}×${m} outputs, received ${phiRad.length} φ values and outputs ${thetaOut.rows}×${thetaOut.cols}, ${phiOut.rows}×${phiOut.cols}.`);
@@ -186,13 +187,14 @@ export function patternInterpolator(set: EmbeddedPatternSet): PatternInterpolato
       const st = Math.sin(th), ct = Math.cos(th), sp = Math.sin(ph), cp = Math.cos(ph);
       const rx = st * cp, ry = st * sp, rz = ct;
       const tx = ct * cp, ty = ct * sp, tz = -st;
+      accumulateAll(pr, s, order.v, rx, ry, rz);
+      const acc = pr.acc;
       for (let r = 0; r < n; r++) {
-        accumulate(pr, r, s, order.v, rx, ry, rz);
-        const o = 2 * (r * m + d);
-        to[o] = acc[0] * tx + acc[2] * ty + acc[4] * tz;
-        to[o + 1] = acc[1] * tx + acc[3] * ty + acc[5] * tz;
-        po[o] = -acc[0] * sp + acc[2] * cp;
-        po[o + 1] = -acc[1] * sp + acc[3] * cp;
+        const o = 2 * (r * m + d), e = 6 * r;
+        to[o] = acc[e] * tx + acc[e + 2] * ty + acc[e + 4] * tz;
+        to[o + 1] = acc[e + 1] * tx + acc[e + 3] * ty + acc[e + 5] * tz;
+        po[o] = -acc[e] * sp + acc[e + 2] * cp;
+        po[o + 1] = -acc[e + 1] * sp + acc[e + 3] * cp;
       }
     }
     return { thetaComponentV: thetaOut, phiComponentV: phiOut };
@@ -263,14 +265,15 @@ export function rotatePatternSet(set: EmbeddedPatternSet, rotation: ArrayLike<nu
       const s0 = thetaStencil(pr, sth, order);
       phiStencil(pr, sph);
       const col = j * nt + i;
+      accumulateAll(pr, s0, order.v, sx, sy, sz);
+      const acc = pr.acc;
       for (let r = 0; r < n; r++) {
-        accumulate(pr, r, s0, order.v, sx, sy, sz);
         // Q·f
-        const fx = [0, 0], fy = [0, 0], fz = [0, 0];
+        const fx = [0, 0], fy = [0, 0], fz = [0, 0], e = 6 * r;
         for (let c = 0; c < 2; c++) {
-          fx[c] = q[0] * acc[c] + q[1] * acc[2 + c] + q[2] * acc[4 + c];
-          fy[c] = q[3] * acc[c] + q[4] * acc[2 + c] + q[5] * acc[4 + c];
-          fz[c] = q[6] * acc[c] + q[7] * acc[2 + c] + q[8] * acc[4 + c];
+          fx[c] = q[0] * acc[e + c] + q[1] * acc[e + 2 + c] + q[2] * acc[e + 4 + c];
+          fy[c] = q[3] * acc[e + c] + q[4] * acc[e + 2 + c] + q[5] * acc[e + 4 + c];
+          fz[c] = q[6] * acc[e + c] + q[7] * acc[e + 2 + c] + q[8] * acc[e + 4 + c];
         }
         const o = 2 * (r * m + col);
         for (let c = 0; c < 2; c++) {

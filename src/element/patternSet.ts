@@ -14,7 +14,7 @@ import {
 } from '../internal/validate.js';
 import { C0_M_PER_S } from '../units/constants.js';
 import {
-  accumulateElementFarField, checkFarFieldOptions, SINUSOIDAL_CURRENT, type FarFieldOptions,
+  accumulateElementFarField, checkDirections, checkFarFieldOptions, SINUSOIDAL_CURRENT, type FarFieldOptions,
 } from './farField.js';
 import { assertAboveGround, dipoleGeometry, type WireDipole } from './types.js';
 
@@ -31,10 +31,64 @@ import { assertAboveGround, dipoleGeometry, type WireDipole } from './types.js';
  *   "all other ports matched/loaded" solver export; Z_L = 50 Ω is common practice).
  * @category Elements
  */
-export type PatternExcitation =
-  | { readonly kind: 'open-circuit-current'; readonly driveCurrentA: number }
-  | { readonly kind: 'short-circuit-voltage'; readonly driveVoltageV: number }
-  | { readonly kind: 'loaded-voltage'; readonly driveVoltageV: number; readonly loadOhm: CMatrix };
+export type PatternExcitation = OpenCircuitExcitation | ShortCircuitExcitation | LoadedExcitation;
+
+/**
+ * Port driven by current I₀, all other ports open (the phasewise default).
+ * @category Elements
+ */
+export interface OpenCircuitExcitation {
+  /** Tag. */
+  readonly kind: 'open-circuit-current';
+  /** Drive current I₀ [A, RMS], > 0. */
+  readonly driveCurrentA: number;
+}
+
+/**
+ * Port driven by an ideal voltage source V₀, all other ports shorted.
+ * @category Elements
+ */
+export interface ShortCircuitExcitation {
+  /** Tag. */
+  readonly kind: 'short-circuit-voltage';
+  /** Source EMF V₀ [V, RMS], > 0. */
+  readonly driveVoltageV: number;
+}
+
+/**
+ * Port driven by EMF V₀ behind its load Z_L,n; every other port m terminated in Z_L,m.
+ * @category Elements
+ */
+export interface LoadedExcitation {
+  /** Tag. */
+  readonly kind: 'loaded-voltage';
+  /** Source EMF V₀ [V, RMS], > 0. */
+  readonly driveVoltageV: number;
+  /** Load (and source) impedance of each port [Ω], N×1. */
+  readonly loadOhm: CMatrix;
+}
+
+/**
+ * θ̂ and φ̂ components of N ports at M directions.
+ * @category Elements
+ */
+export interface PatternSamples {
+  /** f·θ̂ [V], N×M. */
+  readonly thetaComponentV: CMatrix;
+  /** f·φ̂ [V], N×M. */
+  readonly phiComponentV: CMatrix;
+}
+
+/**
+ * Co- and cross-polar components (Ludwig 3) of a set of patterns.
+ * @category Elements
+ */
+export interface Ludwig3Result {
+  /** Co-polar component [V], P×M. */
+  readonly co: CMatrix;
+  /** Cross-polar component [V], P×M. */
+  readonly cross: CMatrix;
+}
 
 /**
  * Per-port far-field patterns sampled on a θ-φ grid.
@@ -215,6 +269,37 @@ export function dipoleEmbeddedPatterns(
 }
 
 /**
+ * Open-circuit embedded patterns of a dipole array (single-mode assumption, as
+ * in {@link dipoleEmbeddedPatterns}) at an arbitrary list of directions.
+ *
+ * @param dipoles - The N dipoles.
+ * @param frequencyHz - Frequency [Hz], > 0.
+ * @param thetaRad - Polar angles [rad], length M.
+ * @param phiRad - Azimuths [rad], length M.
+ * @param options - Drive current I₀ [A] and ground plane.
+ * @returns f·θ̂ and f·φ̂ [V], each N×M (row n = port n).
+ * @throws {@link DomainError} for bad dipoles or angles.
+ * @category Elements
+ */
+export function dipoleArrayFarFields(
+  dipoles: ReadonlyArray<WireDipole>, frequencyHz: number, thetaRad: ArrayLike<number>, phiRad: ArrayLike<number>, options: FarFieldOptions = {},
+): PatternSamples {
+  const k = checkDirections(frequencyHz, thetaRad, phiRad);
+  const i0 = checkFarFieldOptions(options);
+  if (!Array.isArray(dipoles) || dipoles.length === 0) {
+    throw new DomainError(`invalid argument "dipoles": expected a non-empty array of WireDipole, received ${describeValue(dipoles)}.`);
+  }
+  const n = dipoles.length, m = thetaRad.length;
+  const t = new Float64Array(2 * n * m), p = new Float64Array(2 * n * m);
+  dipoles.forEach((d, i) => {
+    const g = dipoleGeometry(`dipoles[${i}]`, d, k);
+    if (options.groundPlane) assertAboveGround(`dipoles[${i}]`, g, options.groundPlane);
+    accumulateElementFarField(t, p, i * m, g, SINUSOIDAL_CURRENT, k, i0, thetaRad, phiRad, options.groundPlane);
+  });
+  return { thetaComponentV: { rows: n, cols: m, data: t }, phiComponentV: { rows: n, cols: m, data: p } };
+}
+
+/**
  * Re-expresses embedded patterns under another excitation convention, using
  * the array's open-circuit impedance matrix (network theory).
  *
@@ -302,7 +387,7 @@ function diagonalOf(col: CMatrix): CMatrix {
  * @throws {@link DimensionError} for mismatched shapes; {@link DomainError} for a bad reference or NaN angles.
  * @category Elements
  */
-export function ludwig3Components(thetaComponentV: CMatrix, phiComponentV: CMatrix, phiRad: ArrayLike<number>, reference: 'x' | 'y' = 'x'): { co: CMatrix; cross: CMatrix } {
+export function ludwig3Components(thetaComponentV: CMatrix, phiComponentV: CMatrix, phiRad: ArrayLike<number>, reference: 'x' | 'y' = 'x'): Ludwig3Result {
   assertFiniteCMatrix('thetaComponentV', thetaComponentV);
   assertFiniteCMatrix('phiComponentV', phiComponentV);
   const { rows, cols } = thetaComponentV;

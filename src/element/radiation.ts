@@ -337,9 +337,13 @@ export function isotropicRadiation(radiator: IsotropicRadiator, frequencyHz: num
  * brightness T gives 4k_B T B R = 2k_B T B (Z + Zᴴ)). `weightsSr` are the
  * solid-angle weights of the set's grid columns — e.g. build the set on
  * `sphereQuadrature(...).thetaRad/phiRad` and pass its `weights` (same column
- * order, θ fastest). For patterns that vanish below a ground plane use a rule
- * suited to the hemisphere (a full-sphere Gauss rule converges only
- * algebraically across the horizon kink).
+ * order, θ fastest). Patterns over a PEC ground plane vanish below the
+ * horizon; with an EVEN number of Gauss–Legendre θ nodes the symmetric rule
+ * has no node on the horizon and sums exactly half of the mirror-symmetric
+ * dipole-plus-image pattern, so it keeps its spectral accuracy (tested to
+ * 1e-9). With an odd count the node at θ = π/2 is counted in full and the
+ * error is O(1/n) for elements with a field at the horizon (vertical dipoles:
+ * 28 % at n = 15, 6.6 % at n = 65, measured).
  *
  * @param set - Open-circuit embedded patterns (excitation `open-circuit-current`).
  * @param weightsSr - Quadrature weight of each grid column [sr], length nθ·nφ.

@@ -13,14 +13,16 @@ import { assertPositive } from '../internal/validate.js';
  * an effective wavenumber k_e (default k₀ in free space and over a ground plane, k₀√((εr + 1)/2)
  * on a slab, common practice); `'cosine'` I(x) = I₀ cos(πx/L) (the resonant entire-domain mode,
  * k_e = π/L). Both are normalised to the feed current I₀ at x = 0. Across the strip the current is
- * uniform. A round wire of radius a is represented by a strip of width 4a (common practice; equivalent
- * radius of a flat strip = w/4).
+ * uniform, so a round wire of radius a corresponds to a strip of width w = a·e^{3/2} ≈ 4.48 a (the
+ * strip's geometric mean distance w·e^{−3/2} equals the wire radius; the often-quoted w = 4a belongs
+ * to the edge-singular strip current). The test suite checks this equivalence against the element
+ * module's induced-EMF wire dipoles.
  * @category Floquet
  */
 export interface StripDipole {
   /** Dipole length L [m], > 0. */
   readonly lengthM: number;
-  /** Strip width w [m], > 0 (wire: 4 × radius). */
+  /** Strip width w [m], > 0 (round wire of radius a: w = a·e^{3/2}). */
   readonly widthM: number;
   /** Current shape. @defaultValue 'piecewiseSinusoidal' */
   readonly current?: 'piecewiseSinusoidal' | 'cosine';

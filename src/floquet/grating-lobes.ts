@@ -7,51 +7,6 @@
 import { assertInRange, assertInteger } from '../internal/validate.js';
 import { wavelengthM, wavenumberRadPerM } from '../units/convert.js';
 import { type PlanarLattice, rectangularLattice, scaleLattice, shortestReciprocalVector, triangularLattice } from './lattice.js';
-import { type ScanDirection, propagatingFloquetModes } from './modes.js';
-
-/**
- * A grating lobe: a propagating Floquet mode other than the main beam.
- * @category Floquet
- */
-export interface GratingLobe {
-  /** Floquet index along b₁. */
-  readonly m: number;
-  /** Floquet index along b₂. */
-  readonly n: number;
-  /** Direction cosine u of the lobe (dimensionless). */
-  readonly u: number;
-  /** Direction cosine v of the lobe (dimensionless). */
-  readonly v: number;
-  /** Polar angle of the lobe [rad]. */
-  readonly thetaRad: number;
-  /** Azimuth of the lobe [rad]. */
-  readonly phiRad: number;
-}
-
-/**
- * Grating lobes present in free space for a scan: every propagating Floquet mode (m, n) ≠ (0, 0).
- *
- * @remarks
- * The lobe of mode (m, n) points along (u, v) = (u₀, v₀) + (m b₁ + n b₂)/k (see {@link ScanDirection}).
- * A lobe exactly on the horizon (k_t = k, the onset) is not yet counted: the test is k_t < k.
- * @param lattice - Array lattice.
- * @param frequencyHz - Frequency [Hz], > 0.
- * @param scan - Scan direction (θ ∈ [0, π/2]).
- * @returns Grating lobes sorted by distance from the main beam in u-v.
- * @throws {@link DomainError} for a non-positive frequency or a scan outside visible space.
- * @category Floquet
- */
-export function gratingLobes(lattice: PlanarLattice, frequencyHz: number, scan: ScanDirection): GratingLobe[] {
-  const k = wavenumberRadPerM(frequencyHz);
-  const lobes: GratingLobe[] = [];
-  for (const mode of propagatingFloquetModes(lattice, frequencyHz, scan)) {
-    if (mode.m === 0 && mode.n === 0) continue;
-    const u = mode.kxRadPerM / k;
-    const v = mode.kyRadPerM / k;
-    lobes.push({ m: mode.m, n: mode.n, u, v, thetaRad: Math.asin(Math.min(1, Math.hypot(u, v))), phiRad: Math.atan2(v, u) });
-  }
-  return lobes;
-}
 
 /**
  * One circle of a grating-lobe diagram.
@@ -71,7 +26,7 @@ export interface GratingLobeCircle {
 }
 
 /**
- * Data of a grating-lobe diagram: the visible-space unit circle copied to every reciprocal-lattice point (m b₁ + n b₂)/k.
+ * Data of a grating-lobe diagram (the lobes present at one scan: the pattern module's `gratingLobes`): the visible-space unit circle copied to every reciprocal-lattice point (m b₁ + n b₂)/k.
  *
  * @remarks
  * A scan point (u₀, v₀) lying inside the circle centred at −(m b₁ + n b₂)/k produces the grating

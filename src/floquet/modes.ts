@@ -10,41 +10,21 @@ import { assertFinite, assertInRange, assertInteger, assertPositive } from '../i
 import { ETA0_OHM } from '../units/constants.js';
 import { wavenumberRadPerM } from '../units/convert.js';
 import type { PlanarLattice } from './lattice.js';
+import type { SphericalAngles } from '../geometry/directions.js';
 
 /**
- * Scan direction of a planar array (main beam direction r̂₀).
+ * Scan direction of a planar array (main beam direction r̂₀): θ from +z in [0, π/2], φ from +x
+ * toward +y (the geometry module's {@link SphericalAngles}; from direction cosines use
+ * {@link anglesFromUv}).
  *
  * @remarks
- * θ from +z, φ from +x toward +y. The infinite array pointed at r̂₀ has receive weights
- * wₙ = exp(+j k r̂₀·rₙ) (DESIGN steering convention) and the equivalent transmit excitation
- * (port currents) Iₙ = conj(wₙ) = exp(−j k r̂₀·rₙ); the (0,0) Floquet mode then has
- * transverse wavenumber k_t00 = k (sinθ₀cosφ₀, sinθ₀sinφ₀) and radiates toward r̂₀.
+ * The infinite array pointed at r̂₀ has receive weights wₙ = exp(+j k r̂₀·rₙ) (DESIGN steering
+ * convention) and the equivalent transmit excitation (port currents) Iₙ = conj(wₙ) =
+ * exp(−j k r̂₀·rₙ); the (0,0) Floquet mode then has transverse wavenumber
+ * k_t00 = k (sinθ₀cosφ₀, sinθ₀sinφ₀) and radiates toward r̂₀.
  * @category Floquet
  */
-export interface ScanDirection {
-  /** Polar angle from +z [rad], in [0, π/2]. */
-  readonly thetaRad: number;
-  /** Azimuth from +x toward +y [rad]. */
-  readonly phiRad: number;
-}
-
-/**
- * Scan direction from direction cosines u = sinθcosφ, v = sinθsinφ (upper hemisphere).
- * @param u - Direction cosine along x (dimensionless).
- * @param v - Direction cosine along y (dimensionless).
- * @returns The scan direction with θ ∈ [0, π/2].
- * @throws {@link DomainError} if u² + v² > 1 (outside visible space) or an argument is not finite.
- * @category Floquet
- */
-export function scanFromDirectionCosines(u: number, v: number): ScanDirection {
-  assertFinite('u', u);
-  assertFinite('v', v);
-  const s = Math.hypot(u, v);
-  if (s > 1 + 1e-12) {
-    throw new DomainError(`invalid arguments "u", "v": the scan direction must lie in visible space (u² + v² ≤ 1), received u = ${u}, v = ${v} (√(u²+v²) = ${s}); reduce the scan angle.`);
-  }
-  return { thetaRad: Math.asin(Math.min(1, s)), phiRad: s === 0 ? 0 : Math.atan2(v, u) };
-}
+export type ScanDirection = SphericalAngles;
 
 /** Validates a scan direction (θ in [0, maxTheta]). @internal */
 export function assertScan(scan: ScanDirection, maxThetaRad = Math.PI / 2): void {

@@ -20,9 +20,24 @@ import { ETA0_OHM } from '../units/constants.js';
  * @category Floquet
  */
 export type ArrayBacking =
-  | { readonly kind: 'freeSpace' }
-  | { readonly kind: 'groundPlane'; readonly heightM: number }
-  | { readonly kind: 'groundedSlab'; readonly relativePermittivity: number; readonly thicknessM: number };
+  | {
+    /** Dipoles in free space. */
+    readonly kind: 'freeSpace';
+  }
+  | {
+    /** Dipoles over a PEC ground plane. */
+    readonly kind: 'groundPlane';
+    /** Height of the dipoles above the plane [m], > 0. */
+    readonly heightM: number;
+  }
+  | {
+    /** Dipoles printed on a grounded dielectric slab. */
+    readonly kind: 'groundedSlab';
+    /** Relative permittivity εr ≥ 1 (lossless). */
+    readonly relativePermittivity: number;
+    /** Slab thickness t [m], > 0. */
+    readonly thicknessM: number;
+  };
 
 /** Validates a backing description. @internal */
 export function assertBacking(backing: ArrayBacking): void {
@@ -89,8 +104,10 @@ export function layeredImpedancesInto(out: Float64Array, med: SpectralMedium, be
   const eta = med.eta;
   // kz0 = sqrt(k0² − β²), Im ≤ 0.
   const d0 = k0 * k0 - beta * beta;
-  const kzr = d0 >= 0 ? Math.sqrt(d0) : 0;
-  const kzi = d0 >= 0 ? 0 : -Math.sqrt(-d0);
+  const kzr = d0 > 0 ? Math.sqrt(d0) : 0;
+  // At a grating-lobe onset (β = k0 exactly) the free-space TE impedance is infinite (Wood
+  // anomaly); step 1e-12 k0 onto the evanescent side so the result is large but finite, not NaN.
+  const kzi = d0 > 0 ? 0 : -Math.max(Math.sqrt(-d0), 1e-12 * k0);
   // Upward mode impedances: Z_TM,up = η kz0/k0, Z_TE,up = η k0/kz0.
   const tmUr = (eta * kzr) / k0, tmUi = (eta * kzi) / k0;
   const kz2 = kzr * kzr + kzi * kzi;

@@ -134,10 +134,44 @@ export function rectangularGridLayout(grid: RectangularGridSpec): ArrayLayout {
  * Points on the boundary (to 1e-9 relative) are kept.
  * @category Geometry
  */
-export type LatticeBoundary =
-  | { readonly kind: 'rectangle'; readonly widthM: number; readonly heightM: number }
-  | { readonly kind: 'circle'; readonly radiusM: number }
-  | { readonly kind: 'hexagon'; readonly circumradiusM: number; readonly rotationRad?: number };
+export type LatticeBoundary = RectangleBoundary | CircleBoundary | HexagonBoundary;
+
+/**
+ * A centred rectangle |x| ≤ widthM/2, |y| ≤ heightM/2.
+ * @category Geometry
+ */
+export interface RectangleBoundary {
+  /** Discriminant. */
+  readonly kind: 'rectangle';
+  /** Full width along x [m], > 0. */
+  readonly widthM: number;
+  /** Full height along y [m], > 0. */
+  readonly heightM: number;
+}
+
+/**
+ * A centred circle x² + y² ≤ radiusM².
+ * @category Geometry
+ */
+export interface CircleBoundary {
+  /** Discriminant. */
+  readonly kind: 'circle';
+  /** Radius [m], > 0. */
+  readonly radiusM: number;
+}
+
+/**
+ * A centred regular hexagon.
+ * @category Geometry
+ */
+export interface HexagonBoundary {
+  /** Discriminant. */
+  readonly kind: 'hexagon';
+  /** Centre-to-vertex distance [m], > 0. */
+  readonly circumradiusM: number;
+  /** Rotation of the first vertex from +x toward +y [rad]. @defaultValue 0 */
+  readonly rotationRad?: number;
+}
 
 function boundaryTest(b: LatticeBoundary): { radius: number; inside: (x: number, y: number) => boolean } {
   if (b === null || typeof b !== 'object') {

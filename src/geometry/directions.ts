@@ -23,6 +23,17 @@ export interface SphericalAngles {
 }
 
 /**
+ * Direction cosines (u, v) of a direction.
+ * @category Geometry
+ */
+export interface DirectionCosines {
+  /** u = sinθ cosφ. */
+  readonly u: number;
+  /** v = sinθ sinφ. */
+  readonly v: number;
+}
+
+/**
  * Azimuth and elevation of a direction for an array in the xy-plane (broadside +z).
  * @category Geometry
  */
@@ -108,7 +119,7 @@ export function anglesFromUnitVector(r: Vector3): SphericalAngles {
  * @throws {@link DomainError} for non-finite angles.
  * @category Geometry
  */
-export function uvFromAngles(thetaRad: number, phiRad: number): { readonly u: number; readonly v: number } {
+export function uvFromAngles(thetaRad: number, phiRad: number): DirectionCosines {
   const r = unitVectorFromAngles(thetaRad, phiRad);
   return { u: r[0], v: r[1] };
 }

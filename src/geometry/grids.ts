@@ -138,13 +138,24 @@ export function uvGrid(uValues: ArrayLike<number>, vValues: ArrayLike<number>): 
 }
 
 /**
+ * The visible points of a u-v grid as unit vectors.
+ * @category Geometry
+ */
+export interface VisibleDirections {
+  /** Unit vectors (u, v, √(1 − u² − v²)), 3·visibleCount, xyz-interleaved. */
+  readonly directions: Float64Array;
+  /** Grid index of each direction. */
+  readonly indices: Uint32Array;
+}
+
+/**
  * Front-hemisphere unit vectors of the visible points of a u-v grid.
  * @param grid - The u-v grid.
  * @returns `directions` (3·visibleCount, xyz-interleaved) and `indices` (grid index of each).
  * @throws {@link DimensionError} if no point of the grid is visible.
  * @category Geometry
  */
-export function visibleDirections(grid: UvGrid): { readonly directions: Float64Array; readonly indices: Uint32Array } {
+export function visibleDirections(grid: UvGrid): VisibleDirections {
   if (!grid || grid.visibleCount < 1) {
     throw new DimensionError('invalid argument "grid": no point lies in the visible region u² + v² ≤ 1; widen the grid.');
   }

@@ -3,14 +3,16 @@ export {
   arrayLayout, withEnabledMask, activeLayout, activeCount, metresFromWavelengths, wavelengthsFromMetres,
   layoutCentroid, layoutDiameterM,
 } from './layout.js';
-export type { LineAxis, UniformLineOptions, RectangularGridSpec, LatticeBoundary, LatticeOptions, RingSpec } from './builders.js';
+export type {
+  LineAxis, UniformLineOptions, RectangularGridSpec, LatticeBoundary, RectangleBoundary, CircleBoundary, HexagonBoundary, LatticeOptions, RingSpec,
+} from './builders.js';
 export { uniformLineLayout, rectangularGridLayout, latticeLayout, triangularLatticeLayout, ringLayout } from './builders.js';
-export type { SphericalAngles, AzimuthElevation } from './directions.js';
+export type { SphericalAngles, AzimuthElevation, DirectionCosines } from './directions.js';
 export {
   UNIT_VECTOR_TOLERANCE, unitVectorFromAngles, unitVectorFromDegrees, anglesFromUnitVector, uvFromAngles, unitVectorFromUv,
   anglesFromUv, unitVectorFromAzEl, azElFromUnitVector, unitVectorsFromAngles,
 } from './directions.js';
-export type { ThetaPhiGrid, UvGrid, PlaneCut } from './grids.js';
+export type { ThetaPhiGrid, UvGrid, PlaneCut, VisibleDirections } from './grids.js';
 export { evenlySpaced, thetaPhiGrid, uvGrid, visibleDirections, planeCut } from './grids.js';
-export type { GaussLegendreRule, SphereQuadrature, SphereQuadratureOptions, SphereQuadratureOrderOptions, SphereQuadratureOrder } from './quadrature.js';
+export type { GaussLegendreRule, SphereQuadrature, SphereQuadratureOptions, SphereQuadratureOrderOptions, SphereQuadratureOrder, SizedSphereQuadrature } from './quadrature.js';
 export { gaussLegendre, sphereQuadrature, sphereQuadratureOrder, sphereQuadratureForLayout } from './quadrature.js';

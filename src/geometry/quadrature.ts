@@ -225,7 +225,8 @@ export interface SphereQuadratureOrder {
  *   (A&S 9.1.62) for b ≤ a.
  * The smallest n and N that bring each part below tolerance/2 are returned,
  * then `extraDegree` adds ⌈p/2⌉ θ nodes and p φ nodes (common practice for a
- * polynomial factor of degree p). The error of a pattern integral is at most
+ * polynomial factor of degree p), and phiCount is rounded up to an even number
+ * so that the rule contains antipodal pairs. The error of a pattern integral is at most
  * errorEstimate·(Σ|wₙ|)² for weights w. The bound is conservative: it asks
  * for about 0.68·a θ nodes where a/2 + O(a^{1/3}) usually suffice.
  * @param electricalDiameterRad - a = k·D (dimensionless), ≥ 0.
@@ -234,7 +235,7 @@ export interface SphereQuadratureOrder {
  * @throws {@link DomainError} for negative or non-finite inputs.
  * @example
  * ```ts
- * sphereQuadratureOrder(2 * Math.PI * 8); // 8-wavelength array: { thetaCount: 47, phiCount: 93, errorEstimate: 4.4e-13 }
+ * sphereQuadratureOrder(2 * Math.PI * 8); // 8-wavelength array: { thetaCount: 47, phiCount: 94, errorEstimate: 2.2e-13 }
  * ```
  * @category Geometry
  */
@@ -254,8 +255,19 @@ export function sphereQuadratureOrder(electricalDiameterRad: number, options: Sp
   while (thetaBound(n) > logTol) n++;
   let m = 1;
   while (phiBound(m) > logTol) m++;
-  const errorEstimate = Math.exp(thetaBound(n)) + Math.exp(phiBound(m));
-  return { thetaCount: n + Math.ceil(extra / 2), phiCount: m + extra, errorEstimate };
+  m += extra;
+  if (m % 2 === 1) m++; // even: the rule then holds antipodal pairs (see PatternEvaluator.evaluateSphereInto)
+  const errorEstimate = Math.exp(thetaBound(n)) + Math.exp(phiBound(m - extra));
+  return { thetaCount: n + Math.ceil(extra / 2), phiCount: m, errorEstimate };
+}
+
+/**
+ * A sphere rule together with its plane-wave error bound.
+ * @category Geometry
+ */
+export interface SizedSphereQuadrature extends SphereQuadrature {
+  /** The bound of {@link SphereQuadratureOrder.errorEstimate}. */
+  readonly errorEstimate: number;
 }
 
 /**
@@ -272,7 +284,7 @@ export function sphereQuadratureForLayout(
   layout: ArrayLayout,
   frequencyHz: number,
   options: SphereQuadratureOrderOptions & SphereQuadratureOptions = {},
-): SphereQuadrature & { readonly errorEstimate: number } {
+): SizedSphereQuadrature {
   assertPositive('frequencyHz', frequencyHz, 'Hz');
   const a = wavenumberRadPerM(frequencyHz) * layoutDiameterM(layout);
   const order = sphereQuadratureOrder(a, options);

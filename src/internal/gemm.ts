@@ -4,13 +4,23 @@
  * @module
  */
 
+import { simdGemm } from './zgemm-wasm.js';
+
+/** Complex multiply–adds from which the SIMD kernel pays for its packing (measured: break-even near 8³). */
+export const SIMD_MIN_WORK = 4096;
+
 /**
  * C[m×n] (+)= alpha·A[m×k]·B[k×n] (alpha real), all interleaved row-major with
  * the given leading dimensions (in complex elements) and offsets (in complex
  * elements). With `accumulate` false, C is overwritten (alpha still applies).
  * The k-loop is unrolled by four so each row of C is loaded and stored once
  * per four rank-one updates; the inner loop walks a row of B contiguously.
- * C must not alias A or B.
+ * C must not alias A or B (disjoint regions of one buffer are fine).
+ *
+ * Products of at least {@link SIMD_MIN_WORK} complex multiply–adds (and at
+ * least two rows and columns) go to the WebAssembly SIMD kernel
+ * (`simdGemm`, f64x2 on split real/imaginary planes) when the runtime has
+ * WebAssembly SIMD; this scalar loop is the fallback and serves small products.
  */
 export function gemmKernel(
   m: number, n: number, k: number,
@@ -19,6 +29,20 @@ export function gemmKernel(
   c: Float64Array, offC: number, ldc: number,
   accumulate: boolean,
   alpha = 1,
+): void {
+  if (m >= 2 && n >= 2 && m * n * k >= SIMD_MIN_WORK &&
+    simdGemm(m, n, k, a, offA, lda, b, offB, ldb, c, offC, ldc, accumulate, alpha)) return;
+  gemmScalarKernel(m, n, k, a, offA, lda, b, offB, ldb, c, offC, ldc, accumulate, alpha);
+}
+
+/** The scalar loop of {@link gemmKernel} (same contract), used below the SIMD threshold and as fallback. */
+export function gemmScalarKernel(
+  m: number, n: number, k: number,
+  a: Float64Array, offA: number, lda: number,
+  b: Float64Array, offB: number, ldb: number,
+  c: Float64Array, offC: number, ldc: number,
+  accumulate: boolean,
+  alpha: number,
 ): void {
   if (!accumulate) {
     for (let i = 0; i < m; i++) c.fill(0, 2 * (offC + i * ldc), 2 * (offC + i * ldc + n));

@@ -6,6 +6,9 @@
  * @module
  */
 import { ConvergenceError } from '../errors.js';
+import { gemmKernel } from './gemm.js';
+import { rotationWorkspace } from './rotations-wasm.js';
+import { rank2Workspace } from './tridiagonal-wasm.js';
 
 /** Result of {@link reduceHermitianToTridiagonal}. */
 export interface TridiagonalReduction {
@@ -36,7 +39,15 @@ export interface TridiagonalReduction {
  * by the diagonal phase similarity D (Wilkinson & Reinsch, Handbook for
  * Automatic Computation II, 1971, contribution II/2 "htridi", from memory).
  */
-export function reduceHermitianToTridiagonal(w: Float64Array, n: number): TridiagonalReduction {
+export function reduceHermitianToTridiagonal(house: Float64Array, n: number): TridiagonalReduction {
+  // With WebAssembly SIMD the matrix is worked on in the module memory and the
+  // rank-two update runs there (tridiagonal-wasm.ts); copied back at the end.
+  const ws = n > 8 ? rank2Workspace(n) : null;
+  let w = house;
+  if (ws !== null) {
+    ws.view.set(house.subarray(0, 2 * n * n), 0);
+    w = ws.view;
+  }
   const d = new Float64Array(n);
   const e = new Float64Array(n);
   const er = new Float64Array(n); // complex sub-diagonal before the phase fix
@@ -104,6 +115,22 @@ export function reduceHermitianToTridiagonal(w: Float64Array, n: number): Tridia
       p[2 * i + 1] -= kk * w[ui + 1];
     }
     // A ← A − u qᴴ − q uᴴ on the lower triangle of the trailing block.
+    if (ws !== null) {
+      const v = ws.view;
+      for (let i = k1; i < n; i++) {
+        const ui = 2 * (i * n + k);
+        const ur = w[ui], uim = w[ui + 1], qr = p[2 * i], qi = p[2 * i + 1];
+        const t = 2 * i;
+        v[ws.qc + t] = qr; v[ws.qc + t + 1] = -qi; v[ws.qs + t] = qi; v[ws.qs + t + 1] = qr;
+        v[ws.uc + t] = ur; v[ws.uc + t + 1] = -uim; v[ws.us + t] = uim; v[ws.us + t + 1] = ur;
+        v[ws.u + t] = ur; v[ws.u + t + 1] = uim; v[ws.q + t] = qr; v[ws.q + t + 1] = qi;
+        const a = 2 * (i * n + i);
+        w[a] -= 2 * (ur * qr + uim * qi);
+        w[a + 1] = 0;
+      }
+      ws.update(k1);
+      continue;
+    }
     for (let i = k1; i < n; i++) {
       const ui = 2 * (i * n + k);
       const uir = w[ui], uii = w[ui + 1];
@@ -124,6 +151,7 @@ export function reduceHermitianToTridiagonal(w: Float64Array, n: number): Tridia
     }
   }
   if (n > 0) d[n - 1] = w[2 * ((n - 1) * n + (n - 1))];
+  if (ws !== null) house.set(w.subarray(0, 2 * n * n), 0);
   // Phase fix-up: δ_0 = 1, δ_{i+1} = δ_i e_i / |e_i| makes T′ = Dᴴ T D real.
   const phase = new Float64Array(2 * n);
   if (n > 0) phase[0] = 1;
@@ -140,7 +168,7 @@ export function reduceHermitianToTridiagonal(w: Float64Array, n: number): Tridia
       phase[2 * i + 3] = di;
     }
   }
-  return { n, d, e, house: w, beta, phase };
+  return { n, d, e, house, beta, phase };
 }
 
 /**
@@ -158,8 +186,12 @@ export function reduceHermitianToTridiagonal(w: Float64Array, n: number): Tridia
 export function tridiagonalQl(d: Float64Array, e: Float64Array, n: number, z: Float64Array | null, maxIterPerValue = 60): void {
   const eps = 2.220446049250313e-16;
   const tiny = 2.2250738585072014e-308;
-  const cs = new Float64Array(n);
-  const sn = new Float64Array(n);
+  // With WebAssembly SIMD the rotations go to a transposed copy Zt in the
+  // module memory (see rotations-wasm.ts); otherwise to z by the scalar loop.
+  const ws = z !== null ? rotationWorkspace(n) : null;
+  const cs = ws !== null ? ws.view : new Float64Array(n);
+  const sn = ws !== null ? ws.view : new Float64Array(n);
+  const cOff = ws !== null ? ws.cOffset : 0, sOff = ws !== null ? ws.sOffset : 0;
   e[n - 1] = 0;
   for (let l = 0; l < n; l++) {
     let iter = 0;
@@ -198,10 +230,12 @@ export function tridiagonalQl(d: Float64Array, e: Float64Array, n: number, z: Fl
         p = s * r;
         d[i + 1] = g + p;
         g = c * r - b;
-        cs[i] = c;
-        sn[i] = s;
+        cs[cOff + i] = c;
+        sn[sOff + i] = s;
       }
-      if (z !== null) {
+      if (ws !== null) {
+        ws.apply(i + 1, m);
+      } else if (z !== null) {
         // Rotations i = m−1 … lo (lo = i+1 after an underflow break, else l).
         const lo = i + 1;
         // Four rows at a time: four independent carries keep the pipeline full.
@@ -241,15 +275,25 @@ export function tridiagonalQl(d: Float64Array, e: Float64Array, n: number, z: Fl
       e[m] = 0;
     }
   }
+  if (ws !== null && z !== null) {
+    const v = ws.view, st = ws.stride;
+    for (let k = 0; k < n; k++) for (let t = 0; t < n; t++) z[k * n + t] = v[t * st + k];
+  }
 }
+
+/** Reflectors per block of the back-transformation. */
+const WY_BLOCK = 16;
 
 /**
  * Back-transformation X = Q D Z of the real tridiagonal eigenvectors `z`
  * (n×n, row-major, columns = eigenvectors, possibly fewer columns `cols`) into
  * eigenvectors of the original Hermitian matrix, written to `out`
  * (interleaved complex, n×cols row-major, columns = eigenvectors).
- * Each reflector is applied as a rank-one update X ← X − β u (uᴴ X) whose
- * inner loops run along contiguous rows.
+ * Reflectors are applied in blocks of WY_BLOCK in the compact WY form
+ * H_{k0} ⋯ H_{k1−1} = I − V T Vᴴ, T upper triangular (Schreiber & Van Loan,
+ * "A storage-efficient WY representation for products of Householder
+ * transformations", SIAM J. Sci. Stat. Comput. 10(1), 1989, from memory), so
+ * the work is two matrix products per block (the SIMD product kernel).
  */
 export function backTransform(red: TridiagonalReduction, z: Float64Array, cols: number, out: Float64Array): void {
   const { n, house, beta, phase } = red;
@@ -262,58 +306,58 @@ export function backTransform(red: TridiagonalReduction, z: Float64Array, cols: 
       out[xr + 2 * j + 1] = pi * v;
     }
   }
-  const y = new Float64Array(2 * cols);
-  const c2 = 2 * cols;
-  for (let k = n - 2; k >= 0; k--) {
-    const b = beta[k];
-    if (b === 0) continue;
-    // y = β uᴴ X over rows k+1 … n−1 (two rows per pass: y is loaded once per pair)
-    y.fill(0);
-    let i = k + 1;
-    for (; i + 1 < n; i += 2) {
-      const u = 2 * (i * n + k), u1 = u + 2 * n;
-      const ur = house[u], ui = house[u + 1], vr = house[u1], vi = house[u1 + 1];
-      const row = i * c2, row1 = row + c2;
-      for (let j = 0; j < c2; j += 2) {
-        const xr = out[row + j], xi = out[row + j + 1];
-        const wr = out[row1 + j], wi = out[row1 + j + 1];
-        y[j] += ur * xr + ui * xi + vr * wr + vi * wi;
-        y[j + 1] += ur * xi - ui * xr + vr * wi - vi * wr;
+  const nRefl = n - 2; // reflectors 0 … n−3 (H_{n−2} is always the identity)
+  if (nRefl <= 0) return;
+  const vb = new Float64Array(2 * n * WY_BLOCK);
+  const vh = new Float64Array(2 * n * WY_BLOCK);
+  const t = new Float64Array(2 * WY_BLOCK * WY_BLOCK);
+  const w = new Float64Array(2 * WY_BLOCK * cols);
+  const w2 = new Float64Array(2 * WY_BLOCK * cols);
+  const tmp = new Float64Array(2 * WY_BLOCK);
+  const lastStart = Math.floor((nRefl - 1) / WY_BLOCK) * WY_BLOCK;
+  for (let k0 = lastStart; k0 >= 0; k0 -= WY_BLOCK) {
+    const nb = Math.min(WY_BLOCK, nRefl - k0);
+    const r0 = k0 + 1, mm = n - r0;
+    // V (mm×nb): column c = u_{k0+c}, zero above its first entry; Vᴴ (nb×mm)
+    for (let r = 0; r < mm; r++) {
+      const row = r0 + r;
+      for (let c = 0; c < nb; c++) {
+        const k = k0 + c;
+        let vr = 0, vi = 0;
+        if (row >= k + 1 && beta[k] !== 0) { vr = house[2 * (row * n + k)]; vi = house[2 * (row * n + k) + 1]; }
+        vb[2 * (r * nb + c)] = vr; vb[2 * (r * nb + c) + 1] = vi;
+        vh[2 * (c * mm + r)] = vr; vh[2 * (c * mm + r) + 1] = -vi;
       }
     }
-    if (i < n) {
-      const u = 2 * (i * n + k);
-      const ur = house[u], ui = house[u + 1];
-      const row = i * c2;
-      for (let j = 0; j < c2; j += 2) {
-        const xr = out[row + j], xi = out[row + j + 1];
-        y[j] += ur * xr + ui * xi;
-        y[j + 1] += ur * xi - ui * xr;
+    // T: T[c,c] = β; T[0:c, c] = −β T[0:c, 0:c] (V[:, 0:c]ᴴ v_c)
+    t.fill(0);
+    for (let c = 0; c < nb; c++) {
+      const b = beta[k0 + c];
+      t[2 * (c * nb + c)] = b;
+      if (b === 0) continue;
+      for (let q = 0; q < c; q++) {
+        let sr = 0, si = 0;
+        for (let r = 0; r < mm; r++) {
+          const ar = vh[2 * (q * mm + r)], ai = vh[2 * (q * mm + r) + 1];
+          const br = vb[2 * (r * nb + c)], bi = vb[2 * (r * nb + c) + 1];
+          sr += ar * br - ai * bi;
+          si += ar * bi + ai * br;
+        }
+        tmp[2 * q] = sr; tmp[2 * q + 1] = si;
+      }
+      for (let q = 0; q < c; q++) {
+        let sr = 0, si = 0;
+        for (let p = q; p < c; p++) {
+          const ar = t[2 * (q * nb + p)], ai = t[2 * (q * nb + p) + 1];
+          sr += ar * tmp[2 * p] - ai * tmp[2 * p + 1];
+          si += ar * tmp[2 * p + 1] + ai * tmp[2 * p];
+        }
+        t[2 * (q * nb + c)] = -b * sr; t[2 * (q * nb + c) + 1] = -b * si;
       }
     }
-    for (let j = 0; j < c2; j++) y[j] *= b;
-    i = k + 1;
-    for (; i + 1 < n; i += 2) {
-      const u = 2 * (i * n + k), u1 = u + 2 * n;
-      const ur = house[u], ui = house[u + 1], vr = house[u1], vi = house[u1 + 1];
-      const row = i * c2, row1 = row + c2;
-      for (let j = 0; j < c2; j += 2) {
-        const yr = y[j], yi = y[j + 1];
-        out[row + j] -= ur * yr - ui * yi;
-        out[row + j + 1] -= ur * yi + ui * yr;
-        out[row1 + j] -= vr * yr - vi * yi;
-        out[row1 + j + 1] -= vr * yi + vi * yr;
-      }
-    }
-    if (i < n) {
-      const u = 2 * (i * n + k);
-      const ur = house[u], ui = house[u + 1];
-      const row = i * c2;
-      for (let j = 0; j < c2; j += 2) {
-        const yr = y[j], yi = y[j + 1];
-        out[row + j] -= ur * yr - ui * yi;
-        out[row + j + 1] -= ur * yi + ui * yr;
-      }
-    }
+    // X[r0:n] −= V (T (Vᴴ X[r0:n]))
+    gemmKernel(nb, cols, mm, vh, 0, mm, out, r0 * cols, cols, w, 0, cols, false, 1);
+    gemmKernel(nb, cols, nb, t, 0, nb, w, 0, cols, w2, 0, cols, false, 1);
+    gemmKernel(mm, cols, nb, vb, 0, nb, w2, 0, cols, out, r0 * cols, cols, true, -1);
   }
 }

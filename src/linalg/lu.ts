@@ -165,6 +165,14 @@ function estimateInverseNorm1(n: number, lu: Float64Array, piv: Int32Array): num
   return Math.max(est, (2 * s) / (3 * n));
 }
 
+function checkFactorAndRhs(f: LuResult, b: CMatrix): void {
+  checkFactor(f);
+  assertFiniteCMatrix('b', b);
+  if (b.rows !== f.n) {
+    throw new DimensionError(`invalid argument "b": expected ${f.n} rows (the order of the factored matrix), received ${b.rows}×${b.cols}.`);
+  }
+}
+
 function checkFactor(f: LuResult): void {
   if (f === null || typeof f !== 'object' || !(f.pivots instanceof Int32Array) || f.lu === undefined) {
     throw new DimensionError('invalid argument "factor": expected the result of luFactor.');
@@ -186,11 +194,7 @@ function checkFactor(f: LuResult): void {
  * @category Complex core
  */
 export function luSolve(factor: LuResult, b: CMatrix): CMatrix {
-  checkFactor(factor);
-  assertFiniteCMatrix('b', b);
-  if (b.rows !== factor.n) {
-    throw new DimensionError(`invalid argument "b": expected ${factor.n} rows (the order of the factored matrix), received ${b.rows}×${b.cols}.`);
-  }
+  checkFactorAndRhs(factor, b);
   return { rows: b.rows, cols: b.cols, data: luSolveRaw(factor.n, b.cols, factor.lu.data, factor.pivots, b.data) };
 }
 
@@ -203,11 +207,7 @@ export function luSolve(factor: LuResult, b: CMatrix): CMatrix {
  * @category Complex core
  */
 export function luSolveAdjoint(factor: LuResult, b: CMatrix): CMatrix {
-  checkFactor(factor);
-  assertFiniteCMatrix('b', b);
-  if (b.rows !== factor.n) {
-    throw new DimensionError(`invalid argument "b": expected ${factor.n} rows (the order of the factored matrix), received ${b.rows}×${b.cols}.`);
-  }
+  checkFactorAndRhs(factor, b);
   return { rows: b.rows, cols: b.cols, data: luSolveAdjointRaw(factor.n, b.cols, factor.lu.data, factor.pivots, b.data) };
 }
 

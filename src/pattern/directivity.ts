@@ -86,7 +86,7 @@ export function directivity(layout: ArrayLayout, weights: CMatrix, direction: Ve
     planeWaveBound = rule.errorEstimate;
   }
   const ev = patternEvaluator(layout, weights, frequencyHz, element);
-  const vals = ev.evaluateInto(new Float64Array(2 * q.count), q.directions);
+  const vals = ev.evaluateSphereInto(new Float64Array(2 * q.count), q);
   let integral = 0, fmax = 0;
   for (let k = 0; k < q.count; k++) {
     integral += q.weights[k] * (vals[2 * k] * vals[2 * k] + vals[2 * k + 1] * vals[2 * k + 1]);

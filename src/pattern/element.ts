@@ -19,10 +19,38 @@ import { arrayFactor } from './arrayFactor.js';
  * - `custom`: f = `amplitude(x, y, z)` for the unit vector (x, y, z); must return a finite real.
  * @category Pattern
  */
-export type ElementFactor =
-  | { readonly kind: 'isotropic' }
-  | { readonly kind: 'cosine'; readonly exponent: number }
-  | { readonly kind: 'custom'; readonly amplitude: (x: number, y: number, z: number) => number };
+export type ElementFactor = IsotropicElementFactor | CosineElementFactor | CustomElementFactor;
+
+/**
+ * f = 1 in every direction.
+ * @category Pattern
+ */
+export interface IsotropicElementFactor {
+  /** Discriminant. */
+  readonly kind: 'isotropic';
+}
+
+/**
+ * f = (cosθ)^q in front (z > 0), 0 behind.
+ * @category Pattern
+ */
+export interface CosineElementFactor {
+  /** Discriminant. */
+  readonly kind: 'cosine';
+  /** q > 0 (dimensionless). */
+  readonly exponent: number;
+}
+
+/**
+ * f given by a function of the unit vector.
+ * @category Pattern
+ */
+export interface CustomElementFactor {
+  /** Discriminant. */
+  readonly kind: 'custom';
+  /** Field amplitude at the unit vector (x, y, z); must return a finite real. */
+  readonly amplitude: (x: number, y: number, z: number) => number;
+}
 
 /** @internal Throws unless `element` is a well-formed element factor. */
 export function assertElementFactor(element: ElementFactor): void {

@@ -117,7 +117,8 @@ function plan(size: number): FFT {
  * grid to its centre. The grid covers |u| < λ/(2dx): all of visible space for
  * dx ≤ λ/2; for wider spacings visible space wraps (grating lobes alias).
  * Equal to the direct sum to rounding (tested to 1e-10 relative). Cost
- * O(PQ log PQ). Row transforms are only taken for the Ny non-zero rows.
+ * O(PQ log PQ). Column transforms are only taken for the Nx non-zero columns;
+ * output rows are written contiguously.
  * @param grid - Counts and spacings of the grid.
  * @param weights - N×1 weights, index iy·countX + ix.
  * @param frequencyHz - Frequency [Hz], > 0.
@@ -170,40 +171,39 @@ export function fftGridArrayFactorInto<T extends CMatrix>(out: T, grid: Rectangu
     throw new DimensionError(`invalid argument "out": expected ${Q}×${P}, received ${out.rows}×${out.cols}.`);
   }
   const fu = plan(P), fv = plan(Q);
-  const w = workFor(P, Q, ny);
-  const { rowIn, rowOut, rows, colIn, colOut, phaseU, phaseV } = w;
+  const w = workFor(P, Q, nx);
+  const { rowIn, rowOut, rows: cols, colIn, colOut, phaseU, phaseV } = w;
   const cx = (nx - 1) / 2, cy = (ny - 1) / 2;
   // phase factors e^{−j2π c (p − P/2)/P}
   for (let p = 0; p < P; p++) { const a = (-2 * Math.PI * cx * (p - P / 2)) / P; phaseU[2 * p] = Math.cos(a); phaseU[2 * p + 1] = Math.sin(a); }
   for (let q = 0; q < Q; q++) { const a = (-2 * Math.PI * cy * (q - Q / 2)) / Q; phaseV[2 * q] = Math.cos(a); phaseV[2 * q + 1] = Math.sin(a); }
-  // row transforms (non-zero rows only)
-  rowIn.fill(0);
-  for (let iy = 0; iy < ny; iy++) {
-    for (let ix = 0; ix < nx; ix++) {
-      const s = (ix + iy) & 1 ? -1 : 1, n = iy * nx + ix;
-      rowIn[2 * ix] = s * weights.data[2 * n];
-      rowIn[2 * ix + 1] = s * weights.data[2 * n + 1];
-    }
-    fu.transform(rowOut, rowIn);
-    rows.set(rowOut, 2 * P * iy);
-  }
-  // column transforms, conjugate, phase, scatter
+  // column transforms along y (the nx non-zero columns only)
   colIn.fill(0);
-  const d = out.data;
-  for (let p = 0; p < P; p++) {
+  for (let ix = 0; ix < nx; ix++) {
     for (let iy = 0; iy < ny; iy++) {
-      colIn[2 * iy] = rows[2 * (P * iy + p)];
-      colIn[2 * iy + 1] = rows[2 * (P * iy + p) + 1];
+      const s = (ix + iy) & 1 ? -1 : 1, n = iy * nx + ix;
+      colIn[2 * iy] = s * weights.data[2 * n];
+      colIn[2 * iy + 1] = s * weights.data[2 * n + 1];
     }
     fv.transform(colOut, colIn);
-    const ur = phaseU[2 * p], ui = phaseU[2 * p + 1];
-    for (let q = 0; q < Q; q++) {
-      // conj(G)·e^{jαu}·e^{jαv}
-      const gr = colOut[2 * q], gi = -colOut[2 * q + 1];
-      const pr = ur * phaseV[2 * q] - ui * phaseV[2 * q + 1], pi = ur * phaseV[2 * q + 1] + ui * phaseV[2 * q];
-      const o = 2 * (q * P + p);
-      d[o] = gr * pr - gi * pi;
-      d[o + 1] = gr * pi + gi * pr;
+    cols.set(colOut, 2 * Q * ix);
+  }
+  // row transforms along x, one output row at a time (contiguous writes):
+  // conj(G)·φv·φu = conj(G·conj(φv))·φu, and G·conj(φv) is the transform of the row times conj(φv)
+  rowIn.fill(0);
+  const d = out.data;
+  for (let q = 0; q < Q; q++) {
+    const vr = phaseV[2 * q], vi = -phaseV[2 * q + 1];
+    for (let ix = 0; ix < nx; ix++) {
+      const xr = cols[2 * (Q * ix + q)], xi = cols[2 * (Q * ix + q) + 1];
+      rowIn[2 * ix] = xr * vr - xi * vi;
+      rowIn[2 * ix + 1] = xr * vi + xi * vr;
+    }
+    fu.transform(rowOut, rowIn);
+    for (let p = 0, o = 2 * q * P; p < P; p++, o += 2) {
+      const gr = rowOut[2 * p], gi = -rowOut[2 * p + 1], ur = phaseU[2 * p], ui = phaseU[2 * p + 1];
+      d[o] = gr * ur - gi * ui;
+      d[o + 1] = gr * ui + gi * ur;
     }
   }
   return out;
@@ -214,13 +214,13 @@ interface FftWork {
   phaseU: Float64Array; phaseV: Float64Array;
 }
 let cachedWork: { key: string; work: FftWork } | undefined;
-function workFor(P: number, Q: number, ny: number): FftWork {
-  const key = `${P}x${Q}x${ny}`;
+function workFor(P: number, Q: number, nx: number): FftWork {
+  const key = `${P}x${Q}x${nx}`;
   if (cachedWork?.key !== key) {
     cachedWork = {
       key,
       work: {
-        rowIn: new Float64Array(2 * P), rowOut: new Float64Array(2 * P), rows: new Float64Array(2 * P * ny),
+        rowIn: new Float64Array(2 * P), rowOut: new Float64Array(2 * P), rows: new Float64Array(2 * Q * nx),
         colIn: new Float64Array(2 * Q), colOut: new Float64Array(2 * Q), phaseU: new Float64Array(2 * P), phaseV: new Float64Array(2 * Q),
       },
     };

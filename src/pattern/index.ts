@@ -1,6 +1,6 @@
 export { steeringVector, steeringVectorInto, steeringMatrix, steeringMatrixInto } from './steering.js';
 export { arrayFactor, arrayFactorInto, arrayFactorMagnitude, magnitudesInto } from './arrayFactor.js';
-export type { ElementFactor } from './element.js';
+export type { ElementFactor, IsotropicElementFactor, CosineElementFactor, CustomElementFactor } from './element.js';
 export { elementFactorValues, totalPattern } from './element.js';
 export type { PatternEvaluator } from './evaluator.js';
 export { patternEvaluator } from './evaluator.js';
@@ -16,3 +16,5 @@ export type { UvPatternFigures } from './uvFigures.js';
 export { uvPatternFigures } from './uvFigures.js';
 export type { FftGridArrayFactor } from './gridPaths.js';
 export { separableGridArrayFactor, fftGridArrayFactor, fftGridArrayFactorInto } from './gridPaths.js';
+export type { SchelkunoffArc } from './schelkunoff.js';
+export { schelkunoffZeros, weightsFromSchelkunoffZeros, nullSteeringWeights, schelkunoffVisibleArc } from './schelkunoff.js';

@@ -126,13 +126,13 @@ export function planArrayFactor(positionsM: Float64Array): ArrayFactorPlan {
 }
 
 /** Fills re/im with exp(j(s·values[i] + offset)), by recurrence when `step` is a number. */
-function fillPhases(re: Float64Array, im: Float64Array, values: Float64Array, s: number, offset: number, step: number): void {
+function fillPhases(re: Float64Array, im: Float64Array, values: Float64Array, s: number, offset: number, step: number, at = 0): void {
   const d = values.length;
   if (Number.isNaN(step)) {
     for (let i = 0; i < d; i++) {
       const ph = s * values[i] + offset;
-      re[i] = Math.cos(ph);
-      im[i] = Math.sin(ph);
+      re[at + i] = Math.cos(ph);
+      im[at + i] = Math.sin(ph);
     }
     return;
   }
@@ -148,8 +148,8 @@ function fillPhases(re: Float64Array, im: Float64Array, values: Float64Array, s:
       zi = zr * sn + zi * cs;
       zr = t;
     }
-    re[i] = zr;
-    im[i] = zi;
+    re[at + i] = zr;
+    im[at + i] = zi;
   }
 }
 
@@ -159,14 +159,11 @@ export interface KernelWork {
   colIm: Float64Array;
   rowRe: Float64Array;
   rowIm: Float64Array;
-  /** Row factors of the second direction of a pair (full-grid path). */
-  row2Re: Float64Array;
-  row2Im: Float64Array;
   cwRe: Float64Array;
   cwIm: Float64Array;
   /** Full-grid path: pair sums P = wₐ + w_b and differences Q = wₐ − w_b, interleaved [Pr, Pi, Qr, Qi] per (row, pair). */
   pairs: Float64Array;
-  /** Full-grid path: half-table of cos δ, sin δ for two directions. */
+  /** Full-grid path: half-table of cos δ, sin δ for four directions. */
   half: Float64Array;
 }
 
@@ -175,11 +172,10 @@ export function kernelWork(plan: ArrayFactorPlan): KernelWork {
   const nc = plan.colValues.length, nr = plan.rowB.length;
   return {
     colRe: new Float64Array(nc), colIm: new Float64Array(nc),
-    rowRe: new Float64Array(nr), rowIm: new Float64Array(nr),
-    row2Re: new Float64Array(plan.fullGrid ? nr : 0), row2Im: new Float64Array(plan.fullGrid ? nr : 0),
+    rowRe: new Float64Array(plan.fullGrid ? 4 * nr : nr), rowIm: new Float64Array(plan.fullGrid ? 4 * nr : nr),
     cwRe: new Float64Array(plan.count), cwIm: new Float64Array(plan.count),
     pairs: new Float64Array(plan.fullGrid ? 4 * nr * Math.floor(nc / 2) : 0),
-    half: new Float64Array(plan.fullGrid ? 4 * Math.floor(nc / 2) : 0),
+    half: new Float64Array(plan.fullGrid ? 8 * Math.floor(nc / 2) : 0),
   };
 }
 
@@ -275,19 +271,19 @@ export function evaluateArrayFactor(
 }
 
 /** Row factors exp(j k (b·r̂_b + c·r̂_c)) of one direction into re/im. */
-function fillRows(plan: ArrayFactorPlan, re: Float64Array, im: Float64Array, sb: number, sc: number): void {
+function fillRows(plan: ArrayFactorPlan, re: Float64Array, im: Float64Array, at: number, sb: number, sc: number): void {
   if (plan.planar) {
-    fillPhases(re, im, plan.rowB, sb, sc * plan.rowC[0], plan.rowStep);
+    fillPhases(re, im, plan.rowB, sb, sc * plan.rowC[0], plan.rowStep, at);
     return;
   }
   for (let r = 0; r < plan.rowB.length; r++) {
     const ph = sb * plan.rowB[r] + sc * plan.rowC[r];
-    re[r] = Math.cos(ph);
-    im[r] = Math.sin(ph);
+    re[at + r] = Math.cos(ph);
+    im[at + r] = Math.sin(ph);
   }
 }
 
-/** Half-table cos δ_c, sin δ_c (δ_c = s·(c − (D−1)/2)·step, c < D/2) at half[4c + 2t], t = direction slot. */
+/** Half-table cos δ_c, sin δ_c (δ_c = s·(c − (D−1)/2)·step, c < D/2) at half[8c + 2t], t = direction slot 0…3. */
 function fillHalf(half: Float64Array, h: number, d: number, s: number, step: number, slot: number): void {
   const cs = Math.cos(s * step), sn = Math.sin(s * step);
   let zr = 0, zi = 0;
@@ -301,57 +297,87 @@ function fillHalf(half: Float64Array, h: number, d: number, s: number, step: num
       zi = zr * sn + zi * cs;
       zr = t;
     }
-    half[4 * c + 2 * slot] = zr;
-    half[4 * c + 2 * slot + 1] = zi;
+    half[8 * c + 2 * slot] = zr;
+    half[8 * c + 2 * slot + 1] = zi;
   }
 }
 
-/** Full-grid path, two directions per pass (shares the weight loads). */
+/** Full-grid path, four directions per pass (shares the weight loads, keeps four independent sums in flight). */
 function evaluateFullGrid(plan: ArrayFactorPlan, work: KernelWork, directions: Float64Array, k: number, out: Float64Array, m0: number, m1: number): void {
-  const { pairs, half, rowRe, rowIm, row2Re, row2Im, cwRe, cwIm } = work;
+  const { pairs, half, rowRe, rowIm, cwRe, cwIm } = work;
   const { colValues, colStep, axisA, axisB, axisC } = plan;
   const d = colValues.length, h = d >> 1, odd = d & 1, rows = plan.rowB.length;
   const mid = 0.5 * (colValues[0] + colValues[d - 1]);
-  for (let m = m0; m < m1; m += 2) {
-    const two = m + 1 < m1;
-    const m2 = two ? m + 1 : m;
-    const sa0 = k * directions[3 * m + axisA], sa1 = k * directions[3 * m2 + axisA];
-    fillHalf(half, h, d, sa0, colStep, 0);
-    fillHalf(half, h, d, sa1, colStep, 1);
-    fillRows(plan, rowRe, rowIm, k * directions[3 * m + axisB], k * directions[3 * m + axisC]);
-    fillRows(plan, row2Re, row2Im, k * directions[3 * m2 + axisB], k * directions[3 * m2 + axisC]);
-    let aR0 = 0, aI0 = 0, aR1 = 0, aI1 = 0;
+  const acc = new Float64Array(8);
+  for (let m = m0; m < m1; m += 4) {
+    // slots beyond the end repeat the last direction and are not written back
+    for (let t = 0; t < 4; t++) {
+      const mt = Math.min(m + t, m1 - 1);
+      fillHalf(half, h, d, k * directions[3 * mt + axisA], colStep, t);
+      fillRows(plan, rowRe, rowIm, t * rows, k * directions[3 * mt + axisB], k * directions[3 * mt + axisC]);
+    }
+    let aR0 = 0, aI0 = 0, aR1 = 0, aI1 = 0, aR2 = 0, aI2 = 0, aR3 = 0, aI3 = 0;
     for (let r = 0; r < rows; r++) {
-      let r0 = 0, i0 = 0, r1 = 0, i1 = 0;
+      let r0 = 0, i0 = 0, r1 = 0, i1 = 0, r2 = 0, i2 = 0, r3 = 0, i3 = 0;
       let o = 4 * r * h;
-      for (let c = 0; c < h; c++, o += 4) {
+      for (let c = 0, e = 0; c < h; c++, o += 4, e += 8) {
         const pr = pairs[o], pi = pairs[o + 1], qr = pairs[o + 2], qi = pairs[o + 3];
-        const c0 = half[4 * c], s0 = half[4 * c + 1], c1 = half[4 * c + 2], s1 = half[4 * c + 3];
-        r0 += pr * c0 - qi * s0;
-        i0 += pi * c0 + qr * s0;
-        r1 += pr * c1 - qi * s1;
-        i1 += pi * c1 + qr * s1;
+        let cs = half[e], sn = half[e + 1];
+        r0 += pr * cs - qi * sn; i0 += pi * cs + qr * sn;
+        cs = half[e + 2]; sn = half[e + 3];
+        r1 += pr * cs - qi * sn; i1 += pi * cs + qr * sn;
+        cs = half[e + 4]; sn = half[e + 5];
+        r2 += pr * cs - qi * sn; i2 += pi * cs + qr * sn;
+        cs = half[e + 6]; sn = half[e + 7];
+        r3 += pr * cs - qi * sn; i3 += pi * cs + qr * sn;
       }
       if (odd) {
-        const g = r * d + h;
-        r0 += cwRe[g]; i0 += cwIm[g];
-        r1 += cwRe[g]; i1 += cwIm[g];
+        const g = r * d + h, wr = cwRe[g], wi = cwIm[g];
+        r0 += wr; i0 += wi; r1 += wr; i1 += wi; r2 += wr; i2 += wi; r3 += wr; i3 += wi;
       }
-      const fr0 = rowRe[r], fi0 = rowIm[r], fr1 = row2Re[r], fi1 = row2Im[r];
-      aR0 += r0 * fr0 - i0 * fi0;
-      aI0 += r0 * fi0 + i0 * fr0;
-      aR1 += r1 * fr1 - i1 * fi1;
-      aI1 += r1 * fi1 + i1 * fr1;
+      let fr = rowRe[r], fi = rowIm[r];
+      aR0 += r0 * fr - i0 * fi; aI0 += r0 * fi + i0 * fr;
+      fr = rowRe[rows + r]; fi = rowIm[rows + r];
+      aR1 += r1 * fr - i1 * fi; aI1 += r1 * fi + i1 * fr;
+      fr = rowRe[2 * rows + r]; fi = rowIm[2 * rows + r];
+      aR2 += r2 * fr - i2 * fi; aI2 += r2 * fi + i2 * fr;
+      fr = rowRe[3 * rows + r]; fi = rowIm[3 * rows + r];
+      aR3 += r3 * fr - i3 * fi; aI3 += r3 * fi + i3 * fr;
     }
-    // column mid-point phase exp(j k r̂_a x̄)
-    const p0 = sa0 * mid, p1 = sa1 * mid;
-    const e0r = Math.cos(p0), e0i = Math.sin(p0);
-    out[2 * m] = aR0 * e0r - aI0 * e0i;
-    out[2 * m + 1] = aR0 * e0i + aI0 * e0r;
-    if (two) {
-      const e1r = Math.cos(p1), e1i = Math.sin(p1);
-      out[2 * m2] = aR1 * e1r - aI1 * e1i;
-      out[2 * m2 + 1] = aR1 * e1i + aI1 * e1r;
+    acc[0] = aR0; acc[1] = aI0; acc[2] = aR1; acc[3] = aI1; acc[4] = aR2; acc[5] = aI2; acc[6] = aR3; acc[7] = aI3;
+    for (let t = 0; t < 4 && m + t < m1; t++) {
+      // column mid-point phase exp(j k r̂_a x̄)
+      const ph = k * directions[3 * (m + t) + axisA] * mid, er = Math.cos(ph), ei = Math.sin(ph);
+      out[2 * (m + t)] = acc[2 * t] * er - acc[2 * t + 1] * ei;
+      out[2 * (m + t) + 1] = acc[2 * t] * ei + acc[2 * t + 1] * er;
     }
   }
+}
+
+/**
+ * Plain path for a direction r̂ₘ and its antipode −r̂ₘ at once: exp(−j k r̂·rₙ) is the
+ * conjugate of exp(j k r̂·rₙ), so one cos/sin pair per element serves both sums.
+ * Writes AF(r̂ₘ) to out[2m…] and AF(−r̂ₘ) to out[2mAnti…].
+ */
+export function evaluatePlainWithAntipode(
+  plan: ArrayFactorPlan, work: KernelWork, directions: Float64Array, k: number, out: Float64Array, m: number, mAnti: number,
+): void {
+  const { cwRe, cwIm } = work;
+  const p = plan.positions, n = plan.count;
+  const ux = k * directions[3 * m], uy = k * directions[3 * m + 1], uz = k * directions[3 * m + 2];
+  let ar = 0, ai = 0, br = 0, bi = 0;
+  for (let g = 0; g < n; g++) {
+    const ph = ux * p[3 * g] + uy * p[3 * g + 1] + uz * p[3 * g + 2];
+    const c = Math.cos(ph), s = Math.sin(ph);
+    const wr = cwRe[g], wi = cwIm[g];
+    const wrc = wr * c, wis = wi * s, wrs = wr * s, wic = wi * c;
+    ar += wrc - wis;
+    ai += wrs + wic;
+    br += wrc + wis;
+    bi += wic - wrs;
+  }
+  out[2 * m] = ar;
+  out[2 * m + 1] = ai;
+  out[2 * mAnti] = br;
+  out[2 * mAnti + 1] = bi;
 }

@@ -91,17 +91,47 @@ function checkDirections(thetaRad: Float64Array, phiRad: Float64Array): void {
   assertFiniteArray('phiRad', phiRad);
 }
 
-function prepare(dish: Paraboloid, frequencyHz: number, thetaRad: Float64Array, phiRad: Float64Array, options: SecondaryPatternOptions): { samples: ApertureSamples; k: number; nr: number; na: number; block: boolean } {
-  assertPositive('frequencyHz', frequencyHz, 'Hz');
+/** Everything both methods need before their own source terms. */
+interface Setup {
+  s: ApertureSamples;
+  k: number;
+  nr: number;
+  na: number;
+  block: boolean;
+  p: number;
+  n: number;
+  f: number;
+  /** Source vectors per port and point (x, y, z components), N×P interleaved each. */
+  src: [Float64Array, Float64Array, Float64Array];
+  /** Incident amplitudes per port and point (x, y, z components). */
+  e: [Float64Array, Float64Array, Float64Array];
+}
+
+function setUp(dish: Paraboloid, feed: PortPatternSource, thetaRad: Float64Array, phiRad: Float64Array, options: SecondaryPatternOptions): Setup {
+  assertPatternSource('feed', feed);
+  assertPositive('frequencyHz', feed.frequencyHz, 'Hz');
   checkDirections(thetaRad, phiRad);
   let tmax = 0;
   for (let i = 0; i < thetaRad.length; i++) tmax = Math.max(tmax, Math.abs(thetaRad[i]));
-  const def = reflectorIntegrationOrders(dish, frequencyHz, tmax);
+  const def = reflectorIntegrationOrders(dish, feed.frequencyHz, tmax);
   const nr = options.radialOrder ?? def.radialOrder;
   const na = options.azimuthOrder ?? def.azimuthOrder;
   assertInteger('radialOrder', nr, 2, 20000);
   assertInteger('azimuthOrder', na, 4, 200000);
-  return { samples: sampleAperture(dish, nr, na), k: wavenumberRadPerM(frequencyHz), nr, na, block: options.applyBlockage ?? dish.blockageDiameterM > 0 };
+  const s = sampleAperture(dish, nr, na);
+  const p = s.count, n = feed.portCount;
+  return {
+    s, k: wavenumberRadPerM(feed.frequencyHz), nr, na, block: options.applyBlockage ?? dish.blockageDiameterM > 0, p, n, f: dish.focalLengthM,
+    src: [new Float64Array(2 * n * p), new Float64Array(2 * n * p), new Float64Array(2 * n * p)],
+    e: incidentAmplitudes(s, feed),
+  };
+}
+
+function result(u: Setup, feed: PortPatternSource, thetaRad: Float64Array, phiRad: Float64Array, out: { theta: CMatrix; phi: CMatrix }): SecondaryPatterns {
+  return {
+    thetaRad, phiRad, thetaComponentV: out.theta, phiComponentV: out.phi, driveCurrentA: feed.driveCurrentA, frequencyHz: feed.frequencyHz,
+    integrationPoints: u.p, radialOrder: u.nr, azimuthOrder: u.na,
+  };
 }
 
 const DIRECTION_BLOCK = 128;
@@ -181,12 +211,9 @@ function radiate(
 export function secondaryPatternsPhysicalOptics(
   dish: Paraboloid, feed: PortPatternSource, thetaRad: Float64Array, phiRad: Float64Array, options: SecondaryPatternOptions = {},
 ): SecondaryPatterns {
-  assertPatternSource('feed', feed);
-  const { samples: s, k, nr, na, block } = prepare(dish, feed.frequencyHz, thetaRad, phiRad, options);
-  const p = s.count, n = feed.portCount;
-  const f = dish.focalLengthM;
-  const src: [Float64Array, Float64Array, Float64Array] = [new Float64Array(2 * n * p), new Float64Array(2 * n * p), new Float64Array(2 * n * p)];
-  const [ex, ey, ez] = incidentAmplitudes(s, feed);
+  const u = setUp(dish, feed, thetaRad, phiRad, options);
+  const { s, k, block, p, n, f, src } = u;
+  const [ex, ey, ez] = u.e;
   for (let q = 0; q < p; q++) {
     if (block && s.blocked[q]) continue;
     const rf = s.rf[q];
@@ -212,10 +239,7 @@ export function secondaryPatternsPhysicalOptics(
     }
   }
   const out = radiate(src, n, s, k, thetaRad, phiRad, () => [1, 0], false);
-  return {
-    thetaRad, phiRad, thetaComponentV: out.theta, phiComponentV: out.phi, driveCurrentA: feed.driveCurrentA, frequencyHz: feed.frequencyHz,
-    integrationPoints: p, radialOrder: nr, azimuthOrder: na,
-  };
+  return result(u, feed, thetaRad, phiRad, out);
 }
 
 /**
@@ -246,12 +270,9 @@ export function secondaryPatternsPhysicalOptics(
 export function secondaryPatternsApertureField(
   dish: Paraboloid, feed: PortPatternSource, thetaRad: Float64Array, phiRad: Float64Array, options: SecondaryPatternOptions = {},
 ): SecondaryPatterns {
-  assertPatternSource('feed', feed);
-  const { samples: s, k, nr, na, block } = prepare(dish, feed.frequencyHz, thetaRad, phiRad, options);
-  const p = s.count, n = feed.portCount;
-  const f = dish.focalLengthM;
-  const src: [Float64Array, Float64Array, Float64Array] = [new Float64Array(2 * n * p), new Float64Array(2 * n * p), new Float64Array(2 * n * p)];
-  const [ex, ey, ez] = incidentAmplitudes(s, feed);
+  const u = setUp(dish, feed, thetaRad, phiRad, options);
+  const { s, k, block, p, n, f, src } = u;
+  const [ex, ey, ez] = u.e;
   const pathPhase = -k * 2 * f;
   const cpp = Math.cos(pathPhase), spp = Math.sin(pathPhase);
   for (let q = 0; q < p; q++) {
@@ -287,8 +308,5 @@ export function secondaryPatternsApertureField(
       out.phi.data[o] *= c; out.phi.data[o + 1] *= c;
     }
   }
-  return {
-    thetaRad, phiRad, thetaComponentV: out.theta, phiComponentV: out.phi, driveCurrentA: feed.driveCurrentA, frequencyHz: feed.frequencyHz,
-    integrationPoints: p, radialOrder: nr, azimuthOrder: na,
-  };
+  return result(u, feed, thetaRad, phiRad, out);
 }

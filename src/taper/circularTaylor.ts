@@ -122,8 +122,8 @@ export function circularTaylorAperture(sllDb: number, nbar: number): CircularTay
  *
  * @remarks
  * wₙ = g(ρₙ) with ρₙ the element's distance from the centre divided by `radiusM`; see
- * {@link circularTaylorAperture}. For a filled lattice take the radius as the outermost
- * element radius plus half a spacing (common practice). Weights are real; as array
+ * {@link circularTaylorAperture}. For a filled lattice take the area-equivalent radius
+ * a = √(N·A_cell/π) (common practice; see {@link sampleRadialDistribution}). Weights are real; as array
  * weights they enter AF = wᴴa (docs/conventions.md).
  *
  * @param layout - Element positions (geometry module); their projection on the xy-plane is used,

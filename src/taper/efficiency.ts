@@ -39,9 +39,10 @@ export function weightSums(name: string, w: TaperWeights): { re: number; im: num
  *
  * @remarks
  * The ratio of the broadside directivity of the tapered array to that of the uniform one
- * when the steering vectors of distinct directions are orthogonal (isotropic elements,
- * half-wave-spaced line, or any filled lattice to first order); 1 for the uniform taper and
- * < 1 otherwise (Cauchy–Schwarz). For a phase-steered taper pass the weights without the
+ * when the element pairs are uncorrelated over the sphere (isotropic elements on a
+ * half-wave-spaced line: exact); for planar lattices it is an approximation (a 16×12 λ/2 grid
+ * with separable Dolph–Chebyshev weights: −10·log₁₀η = 0.93 dB against an exact 1.05 dB).
+ * 1 for the uniform taper and < 1 otherwise (Cauchy–Schwarz). For a phase-steered taper pass the weights without the
  * steering phase. 0 for antisymmetric (difference) tapers.
  *
  * References:
@@ -66,8 +67,9 @@ export function taperEfficiency(w: TaperWeights): number {
  * Directivity loss of a taper relative to uniform weighting, −10·log₁₀ η.
  *
  * @remarks
- * Positive number of dB lost; exact under the same orthogonality assumption as
- * {@link taperEfficiency} (common practice elsewhere). Infinite for η = 0.
+ * Positive number of dB lost; exact under the same assumption as {@link taperEfficiency}
+ * (half-wave line of isotropic elements), common practice elsewhere; the exact values for any
+ * layout come from {@link lineTaperFigures} and {@link planarTaperFigures}. Infinite for η = 0.
  *
  * @param w - Real weights or an N×1 complex vector [dimensionless].
  * @returns Loss ≥ 0 [dB, power ratio].

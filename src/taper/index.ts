@@ -18,4 +18,6 @@ export type { CircularTaylorDesign, CircularTaylorTaperResult } from './circular
 export { circularTaylorAperture, circularTaylorTaper } from './circularTaylor.js';
 export { separableTaper } from './separable.js';
 export type { NullSynthesisResult } from './nulls.js';
-export { schelkunoffNulls, projectNulls } from './nulls.js';
+export { schelkunoffNulls, projectNulls, nullsOnLayout } from './nulls.js';
+export type { LineTaperFigures, LineTaperFiguresOptions, PlanarTaperFigures, PlanarTaperFiguresOptions } from './figures.js';
+export { lineTaperFigures, planarTaperFigures } from './figures.js';

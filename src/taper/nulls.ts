@@ -11,6 +11,8 @@ import { adjoint, innerProduct, multiply, subtract, vectorNorm } from '../linalg
 import { polynomialFromRoots, polynomialRoots } from '../linalg/roots.js';
 import { wavenumberRadPerM } from '../units/convert.js';
 import type { TaperWeights } from './efficiency.js';
+import type { ArrayLayout, Vector3 } from '../geometry/layout.js';
+import { steeringMatrix, steeringVector } from '../pattern/steering.js';
 
 /**
  * Result of a null synthesis.
@@ -188,4 +190,37 @@ export function projectNulls(weights: TaperWeights, nullSteering: CMatrix, mainB
   const mainBeamChangeDb = 20 * Math.log10(after / before);
   const mainBeamGainChangeDb = mainBeamChangeDb - 20 * Math.log10(vectorNorm(wNew) / vectorNorm(w));
   return { weights: wNew, mainBeamChangeDb, mainBeamGainChangeDb };
+}
+
+/**
+ * Places nulls at given directions on any layout by least-squares projection
+ * (see {@link projectNulls}), building the steering vectors with the pattern module.
+ *
+ * @remarks
+ * Steering vectors aₙ(r̂) = exp(+j k r̂·rₙ) (docs/conventions.md). The result's main-beam
+ * figures refer to `mainBeamDirection`.
+ *
+ * @param layout - Element positions (geometry module).
+ * @param weights - Taper or weights, N real or N×1 complex [dimensionless].
+ * @param nullDirections - K unit vectors r̂ₖ, xyz-interleaved (length 3K) [dimensionless].
+ * @param mainBeamDirection - Unit vector of the main beam [dimensionless].
+ * @param frequencyHz - Frequency [Hz], > 0.
+ * @returns New weights and the main-beam change.
+ * @throws {@link DimensionError} / {@link DomainError} on bad layouts, weights or directions.
+ * @throws {@link SingularMatrixError} if the null directions give linearly dependent steering vectors.
+ * @example
+ * ```ts
+ * const layout = uniformLineLayout(16, 0.15);
+ * nullsOnLayout(layout, taylorTaper(16, 30, 5).weights, Float64Array.of(0.3, 0, Math.sqrt(0.91)), [0, 0, 1], 1e9);
+ * ```
+ * @category Tapers
+ */
+export function nullsOnLayout(
+  layout: ArrayLayout,
+  weights: TaperWeights,
+  nullDirections: Float64Array,
+  mainBeamDirection: Vector3,
+  frequencyHz: number,
+): NullSynthesisResult {
+  return projectNulls(weights, steeringMatrix(layout, nullDirections, frequencyHz), steeringVector(layout, mainBeamDirection, frequencyHz));
 }

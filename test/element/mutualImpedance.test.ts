@@ -146,6 +146,18 @@ describe('dipoleMutualImpedance and the array matrix', () => {
       }
     }
   });
+  it('regular lattice over ground: reuse of repeated pair geometries gives the pair-by-pair values', () => {
+    const ds: WireDipole[] = [];
+    for (let ix = 0; ix < 4; ix++) for (let iy = 0; iy < 3; iy++) ds.push(dip([(ix - 1.5) * 0.37, (iy - 1) * 0.41, 0.2], [1, 0, 0], 0.3));
+    ds.push(dip([0.1, 0.9, 0.35], [0.3, 1, 0.2], 0.4));
+    const plane = { zM: 0 };
+    const z = dipoleArrayImpedanceMatrix(ds, F, { groundPlane: plane });
+    for (let i = 0; i < ds.length; i++) for (let j = i + 1; j < ds.length; j++) {
+      const p = dipoleMutualImpedance(ds[i], ds[j], F, { groundPlane: plane });
+      const a = entry(z, i, j);
+      close(a.re, a.im, p.re, p.im, 1e-9);
+    }
+  });
   it('coincident elements: typed error naming the pair', () => {
     const ds = [dip([0, 0, 0]), dip([0.5, 0, 0]), dip([0.5, 0, 0.1])];
     let caught: unknown;
@@ -163,5 +175,20 @@ describe('dipoleMutualImpedance and the array matrix', () => {
     expect(() => dipoleArrayImpedanceMatrix([], F)).toThrow(DomainError);
     expect(() => dipoleArrayImpedanceMatrix([dip([0, 0, 0.1])], F, { groundPlane: { zM: 0 } })).toThrow(/ground plane/);
     expect(() => dipoleArrayImpedanceMatrix([dip([0, 0, 0], [0, 0, 0])], F)).toThrow(/non-zero direction/);
+  });
+});
+
+describe('reciprocity (property)', () => {
+  it('Z(a, b) = Z(b, a) for random pairs with centres ≥ 1.2 λ apart (wires ≥ 0.5 λ)', async () => {
+    const fc = (await import('fast-check')).default;
+    const coord = fc.double({ min: -1, max: 1, noNaN: true });
+    const axis = fc.tuple(coord, coord, coord).filter(([x, y, z]) => Math.hypot(x, y, z) > 0.2);
+    fc.assert(fc.property(axis, axis, fc.tuple(coord, coord, coord), fc.double({ min: 0.2, max: 0.7, noNaN: true }), fc.double({ min: 0.2, max: 0.7, noNaN: true }),
+      (a1, a2, c, l1, l2) => {
+        const a = dip([0, 0, 0], a1 as unknown as Vector3, l1);
+        const b = dip([Math.abs(2 * c[0]) + 1.2, c[1], c[2]], a2 as unknown as Vector3, l2);
+        const ab = dipoleMutualImpedance(a, b, F), ba = dipoleMutualImpedance(b, a, F);
+        return Math.hypot(ab.re - ba.re, ab.im - ba.im) <= 1e-9 * Math.hypot(ab.re, ab.im) + 1e-9;
+      }), { seed: 42, numRuns: 40 });
   });
 });

@@ -2,7 +2,7 @@ import { describe, it, expect } from 'vitest';
 import {
   wireDipoleFarField, dipoleMutualImpedance, dipoleArrayImpedanceMatrix, dipoleEmbeddedPatterns,
   convertPatternExcitation, ludwig3Components, translatePhaseReference, patternInterpolator, rotatePatternSet,
-  embeddedPatternSet,
+  embeddedPatternSet, dipoleArrayFarFields,
 } from '../../src/element/index.js';
 import type { WireDipole } from '../../src/element/index.js';
 import type { Vector3 } from '../../src/geometry/layout.js';
@@ -78,6 +78,10 @@ describe('dipoleEmbeddedPatterns and interpolation', () => {
       }
     }
     expect(nt).toBe(13);
+    // the direction-list form gives the same numbers
+    const direct = dipoleArrayFarFields(ds, F, t.map((v) => v[0]), t.map((v) => v[1]));
+    expectCMatrixClose(direct.thetaComponentV, set.thetaComponentV, { rtol: 1e-15 });
+    expectCMatrixClose(direct.phiComponentV, set.phiComponentV, { rtol: 1e-15 });
   });
   for (const [stepDeg, bound] of [[5, 3e-5], [2.5, 2e-6]] as const) {
     it(`cubic interpolation on a ${stepDeg}° grid: max error ≤ ${bound} of the peak (measured)`, () => {

@@ -120,4 +120,12 @@ describe('Twiss identity: Re Z (induced EMF) = (1/(η|I₀|²))∮ fₘ·fₙ* d
     const half = Float64Array.from(r.data, (v) => v / 2);
     expect(maxRel(half, z.data, ds.length)).toBeLessThan(1e-9);
   });
+  it('over a ground plane, directly from the zeroed patterns with an even θ count (no node on the horizon)', () => {
+    const ds = [dip([0, 0, 0.25], [1, 0, 0]), dip([0.6, 0, 0.3], [0, 1, 0]), dip([0.4, 0.4, 0.5], [0, 0, 1], 0.45)];
+    const z = dipoleArrayImpedanceMatrix(ds, F, { groundPlane: { zM: 0 } });
+    const o = sphereQuadratureOrder(K * 2.5, { tolerance: 1e-14, extraDegree: 12 });
+    const q = sphereQuadrature(o.thetaCount + (o.thetaCount % 2), o.phiCount);
+    const set = dipoleEmbeddedPatterns(ds, F, q.thetaRad, q.phiRad, { groundPlane: { zM: 0 } });
+    expect(maxRel(radiationResistanceMatrix(set, q.weights).data, z.data, ds.length)).toBeLessThan(1e-9);
+  });
 });

@@ -17,9 +17,10 @@ describe('infinite dipole array: accelerated Floquet sum', () => {
   // Reference: independent numpy direct double sum |m|,|n| ≤ 1600 with Richardson extrapolation
   // (test/floquet/fixtures/generate_floquet_brute.py; spread between extrapolations ≤ 5e-7 Ω).
   for (const c of fixture.cases) {
-    it(`matches the numpy brute-force sum to 1e-6: ${c.backing.kind}, w = ${(c.widthM / LAMBDA).toFixed(2)}λ`, () => {
+    const skew = (c as { skewM?: number }).skewM ?? 0;
+    it(`matches the numpy brute-force sum to 1e-6: ${c.backing.kind}, w = ${(c.widthM / LAMBDA).toFixed(2)}λ${skew ? ', triangular lattice' : ''}`, () => {
       const arr = infiniteDipoleArray({
-        lattice: rectangularLattice(c.dxM, c.dyM),
+        lattice: planarLattice([c.dxM, 0], [skew, c.dyM]),
         element: { lengthM: c.lengthM, widthM: c.widthM, effectiveWavenumberRadPerM: c.keRadPerM },
         backing: c.backing as ArrayBacking,
         frequencyHz: c.frequencyHz,
@@ -45,6 +46,20 @@ describe('infinite dipole array: accelerated Floquet sum', () => {
     const za = infiniteArrayActiveImpedance(a, scan).impedanceOhm;
     const zb = infiniteArrayActiveImpedance(b, scan).impedanceOhm;
     expect(za.sub(zb).abs() / zb.abs()).toBeLessThan(1e-4);
+  });
+
+  it('cosine current = piecewise-sinusoidal current with k_e = π/L; slab default k_e = k₀√((εr + 1)/2)', () => {
+    const L = 0.4 * LAMBDA;
+    const slab: ArrayBacking = { kind: 'groundedSlab', relativePermittivity: 3, thicknessM: 0.05 * LAMBDA };
+    const scan = { thetaRad: 0.4, phiRad: 0.2 };
+    const z = (element: { lengthM: number; widthM: number; current?: 'cosine' | 'piecewiseSinusoidal'; effectiveWavenumberRadPerM?: number }) =>
+      infiniteArrayActiveImpedance(infiniteDipoleArray({ lattice, element, backing: slab, frequencyHz: F, relativeTolerance: 1e-5 }), scan).impedanceOhm;
+    const cos = z({ lengthM: L, widthM: 0.01 * LAMBDA, current: 'cosine' });
+    const pws = z({ lengthM: L, widthM: 0.01 * LAMBDA, effectiveWavenumberRadPerM: Math.PI / L });
+    expect(cos.sub(pws).abs() / cos.abs()).toBeLessThan(1e-12);
+    const dflt = z({ lengthM: L, widthM: 0.01 * LAMBDA });
+    const expl = z({ lengthM: L, widthM: 0.01 * LAMBDA, effectiveWavenumberRadPerM: K * Math.sqrt(2) });
+    expect(dflt.sub(expl).abs() / dflt.abs()).toBeLessThan(1e-12);
   });
 
   it('mirror symmetry: Z(θ, φ) = Z(θ, −φ) = Z(θ, π − φ) (rectangular), Z(θ, φ) = Z(θ, −φ) (triangular)', () => {
@@ -159,5 +174,18 @@ describe('energy conservation and embedded element gain', () => {
     expect(Math.abs(p.mainBeamFraction - 0.5)).toBeLessThan(1e-9);
     expect(p.impedanceOhm.re).toBeGreaterThan(0);
     expect(() => infiniteArrayScanPerformance(arr, { thetaRad: 0.6, phiRad: 0.3 }, -50)).toThrow(DomainError);
+  });
+});
+
+describe('layered-medium impedances at a grating-lobe onset', () => {
+  it('β = k₀ exactly gives a large finite TE impedance, not NaN (Wood anomaly of a free-standing array)', async () => {
+    const { layeredImpedancesInto, spectralMedium } = await import('../../src/floquet/spectral-green.js');
+    const out = new Float64Array(8);
+    for (const backing of [{ kind: 'freeSpace' }, { kind: 'groundPlane', heightM: 0.1 }, { kind: 'groundedSlab', relativePermittivity: 3, thicknessM: 0.01 }] as ArrayBacking[]) {
+      layeredImpedancesInto(out, spectralMedium(backing, K), K);
+      for (let i = 0; i < 4; i++) expect(Number.isFinite(out[i])).toBe(true);
+    }
+    layeredImpedancesInto(out, spectralMedium({ kind: 'freeSpace' }, K), K);
+    expect(Math.hypot(out[2], out[3])).toBeGreaterThan(1e9);
   });
 });

@@ -150,3 +150,15 @@ export function orthonormalityError(x: CMatrix, m?: CMatrix): number {
   }
   return Math.sqrt(s);
 }
+
+/** M unit vectors uniform over the sphere (z uniform in [−1, 1], φ uniform), xyz-interleaved. */
+export function randomUnitVectors(m: number, seed: number): Float64Array {
+  const rnd = seededRandom(seed), d = new Float64Array(3 * m);
+  for (let i = 0; i < m; i++) {
+    const z = 2 * rnd() - 1, p = 2 * Math.PI * rnd(), s = Math.sqrt(1 - z * z);
+    d[3 * i] = s * Math.cos(p);
+    d[3 * i + 1] = s * Math.sin(p);
+    d[3 * i + 2] = z;
+  }
+  return d;
+}

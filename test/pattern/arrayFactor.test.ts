@@ -7,8 +7,8 @@ import { planArrayFactor } from '../../src/pattern/kernel.js';
 import { zeros, fromParts } from '../../src/linalg/index.js';
 import { wavenumberRadPerM, C0_M_PER_S } from '../../src/units/index.js';
 import { DimensionError, DomainError } from '../../src/errors.js';
-import { randomMatrix, seededRandom } from '../helpers/matchers.js';
-import { randomDirections, referenceArrayFactor, relativeMaxError } from './helpers.js';
+import { randomMatrix, randomUnitVectors, seededRandom } from '../helpers/matchers.js';
+import { referenceArrayFactor, relativeMaxError } from './helpers.js';
 
 const F = 3e9;
 const K = wavenumberRadPerM(F);
@@ -23,7 +23,7 @@ describe('steering vector and matrix', () => {
   });
   it('steering matrix columns equal steering vectors; wᴴA equals arrayFactor', () => {
     const layout = triangularLatticeLayout(0.6 * LAMBDA, { kind: 'circle', radiusM: 2 * LAMBDA });
-    const dirs = randomDirections(7, seededRandom(3));
+    const dirs = randomUnitVectors(7, 3);
     const a = steeringMatrix(layout, dirs, F);
     const w = randomMatrix(layout.count, 1, 5);
     const af = arrayFactor(layout, w, dirs, F);
@@ -58,7 +58,7 @@ describe('arrayFactor', () => {
   });
   it('factored (lattice) summation equals the textbook sum to 1e-13 relative: planar grid, ring, 3-D lattice, thinned', () => {
     const rnd = seededRandom(11);
-    const dirs = randomDirections(201, rnd); // odd count exercises the unpaired last direction
+    const dirs = randomUnitVectors(201, 12); // odd count exercises the unpaired last direction
     const grid = rectangularGridLayout({ countX: 16, countY: 12, spacingXM: 0.5 * LAMBDA, spacingYM: 0.6 * LAMBDA });
     const pts: Array<[number, number, number]> = [];
     for (let i = 0; i < 6; i++) for (let j = 0; j < 7; j++) for (let l = 0; l < 5; l++) pts.push([0.4 * LAMBDA * i, 0.55 * LAMBDA * j, 0.3 * LAMBDA * l * l]);

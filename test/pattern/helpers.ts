@@ -29,15 +29,3 @@ export function relativeMaxError(a: Float64Array, b: Float64Array): number {
   }
   return e / s;
 }
-
-/** Random unit vectors over the whole sphere (seeded generator in [0, 1)). */
-export function randomDirections(m: number, rnd: () => number): Float64Array {
-  const d = new Float64Array(3 * m);
-  for (let i = 0; i < m; i++) {
-    const z = 2 * rnd() - 1, phi = 2 * Math.PI * rnd(), s = Math.sqrt(1 - z * z);
-    d[3 * i] = s * Math.cos(phi);
-    d[3 * i + 1] = s * Math.sin(phi);
-    d[3 * i + 2] = z;
-  }
-  return d;
-}

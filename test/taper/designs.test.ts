@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { ConvergenceError, DimensionError, DomainError } from '../../src/errors.js';
+import { DimensionError, DomainError } from '../../src/errors.js';
 import { arrayLayout } from '../../src/geometry/layout.js';
 import { sampleLineDistribution, samplePlanarDistribution, sampleRadialDistribution } from '../../src/taper/aperture.js';
 import { baylissLineSource, baylissTaper } from '../../src/taper/bayliss.js';
@@ -20,7 +20,7 @@ function lobePeaksDb(values: Float64Array, refValue: number): number[] {
 }
 
 /** Odd line-source pattern by Simpson quadrature: D(u) = ∫_{−½}^{½} g(p) sin(2πup) dp. */
-function oddPattern(g: (p: number) => number, u: number, steps = 4000): number {
+function oddPattern(g: (p: number) => number, u: number, steps = 600): number {
   let s = 0;
   for (let i = 0; i <= steps; i++) {
     const p = -0.5 + i / steps;
@@ -47,7 +47,8 @@ describe('baylissLineSource', () => {
   it.each([[25, 4], [30, 5], [35, 6], [40, 7]])('%i dB, n̄ = %i: quadrature pattern has n̄−1 sidelobes at the level (Bayliss 1968)', (sll, nbar) => {
     // Independent check: pattern by Simpson quadrature of the returned distribution.
     const d = baylissLineSource(sll, nbar);
-    const du = 1 / 100;
+    // Simpson with 600 panels: relative error < 1e-5 for u ≤ 11; grid step 0.02 misses a lobe peak by < 0.005 dB.
+    const du = 1 / 50;
     const u = Array.from({ length: Math.round((nbar + 4) / du) }, (_, i) => i * du);
     const vals = Float64Array.from(u, (x) => oddPattern(d.distribution, x));
     const peaks = lobePeaksDb(vals, 1);
@@ -76,7 +77,6 @@ describe('baylissLineSource', () => {
     expect(() => baylissTaper(16, Number.NaN, 4)).toThrow(DomainError);
     expect(() => baylissTaper(16, -30, 4)).toThrow(DomainError);
     expect(() => baylissTaper(16, 30, 0)).toThrow(DomainError);
-    expect(ConvergenceError).toBeDefined();
   });
 });
 
@@ -84,7 +84,7 @@ describe('circularTaylorAperture', () => {
   it.each([[25, 4], [30, 5], [35, 6], [40, 6]])('%i dB, n̄ = %i: Hankel-transform pattern has zeros uₙ and sidelobes ≤ design + 0.6 dB (Taylor 1960)', (sll, nbar) => {
     const d = circularTaylorAperture(sll, nbar);
     // F(u) = 2∫₀¹ g(ρ) J₀(πuρ) ρ dρ by Simpson quadrature (independent of the closed form).
-    const steps = 2000;
+    const steps = 600; // Simpson error < 1e-7 relative for u ≤ 9
     const f = (u: number): number => {
       let s = 0;
       for (let i = 0; i <= steps; i++) {

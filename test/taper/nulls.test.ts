@@ -3,7 +3,9 @@ import { DimensionError, DomainError, SingularMatrixError } from '../../src/erro
 import { fromParts, type CMatrix } from '../../src/linalg/cmatrix.js';
 import { concatColumns, innerProduct } from '../../src/linalg/ops.js';
 import { C0_M_PER_S } from '../../src/units/constants.js';
-import { projectNulls, schelkunoffNulls } from '../../src/taper/nulls.js';
+import { nullsOnLayout, projectNulls, schelkunoffNulls } from '../../src/taper/nulls.js';
+import { arrayLayout } from '../../src/geometry/layout.js';
+import { arrayFactorMagnitude } from '../../src/pattern/arrayFactor.js';
 import { taylorTaper } from '../../src/taper/taylor.js';
 import { seededRandom } from '../helpers/matchers.js';
 
@@ -72,6 +74,14 @@ describe('projectNulls', () => {
     expect(r.mainBeamChangeDb).toBeCloseTo(20 * Math.log10(main / n), 10);
     expect(r.mainBeamGainChangeDb).toBeCloseTo(20 * Math.log10(main / n) - 10 * Math.log10(pNew / n), 10);
     expect(r.mainBeamChangeDb).toBeLessThan(0);
+  });
+  it('nullsOnLayout builds the steering vectors with the pattern module and nulls the AF there', () => {
+    const layout = arrayLayout(Array.from({ length: n }, (_, i) => [x[i], y[i], 0] as [number, number, number]));
+    const dirs = Float64Array.from(nulls.flatMap(([u, v]) => [u, v, Math.sqrt(1 - u * u - v * v)]));
+    const r = nullsOnLayout(layout, w, dirs, [0, 0, 1], F_HZ);
+    const af = arrayFactorMagnitude(layout, r.weights, dirs, F_HZ);
+    for (const v of af) expect(v / n).toBeLessThan(1e-12);
+    expect(r.mainBeamChangeDb).toBeCloseTo(projectNulls(w, a, a0).mainBeamChangeDb, 10);
   });
   it('repeated null is singular; shapes are checked', () => {
     expect(() => projectNulls(w, concatColumns([a0, a0]), a0)).toThrow(SingularMatrixError);

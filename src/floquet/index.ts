@@ -1,0 +1,17 @@
+export type { PlanarLattice } from './lattice.js';
+export { planarLattice, rectangularLattice, triangularLattice, scaleLattice } from './lattice.js';
+export type { ScanDirection, FloquetMode, FloquetModesOptions } from './modes.js';
+export { axialWavenumber, teModeImpedance, tmModeImpedance, floquetModes, propagatingFloquetModes } from './modes.js';
+export type { GratingLobeCircle, ScanConeSpacing } from './grating-lobes.js';
+export { gratingLobeCircles, gratingLobeFreeScanConeRad, latticeScaleForScanCone, spacingForScanCone } from './grating-lobes.js';
+export type { ArrayBacking } from './spectral-green.js';
+export type { StripDipole } from './dipole-spectrum.js';
+export type { InfiniteDipoleArrayOptions, InfiniteDipoleArray, ActiveImpedanceResult } from './infinite-dipole-array.js';
+export { infiniteDipoleArray, infiniteArrayActiveImpedance, infiniteArrayActiveImpedanceInto } from './infinite-dipole-array.js';
+export type { ScanPerformance } from './scan-performance.js';
+export { infiniteArrayScanPerformance } from './scan-performance.js';
+export type { SlabSurfaceWave, PhaseMatchPrediction } from './surface-waves.js';
+export { groundedSlabSurfaceWaves, phaseMatchedScanAngles } from './surface-waves.js';
+export type { ScanBlindnessOptions, BlindAngle, ScanBlindnessResult } from './scan-blindness.js';
+export { findScanBlindness } from './scan-blindness.js';
+export { finiteArrayActiveImpedances, finiteArrayActiveReflections } from './finite-array.js';
