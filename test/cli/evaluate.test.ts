@@ -14,6 +14,9 @@ import { writeTouchstoneFile } from '../../src/network/node.js';
 import { createMultiport } from '../../src/network/multiport.js';
 import { convertMultiport } from '../../src/network/convert.js';
 import type { WireDipole } from '../../src/element/types.js';
+import { identity } from '../../src/linalg/cmatrix.js';
+import { add, scale, subtract } from '../../src/linalg/ops.js';
+import { solve } from '../../src/linalg/lu.js';
 
 async function run(args: string[]): Promise<{ code: number; out: string; err: string }> {
   let out = '', err = '';
@@ -120,6 +123,51 @@ describe('phasewise evaluate: a valid design', () => {
     expect(html).toContain('<svg');
     expect(html).toContain('T_sys [K]');
     expect(html).not.toMatch(/<script|<link|src="http/);
+  });
+
+  it('active reflection coefficients equal (S c)ₙ/cₙ with S = (Z − 50)(Z + 50)⁻¹ (Pozar 1994, from memory)', async () => {
+    const j = JSON.parse(readFileSync(join(dir, 'report-ok', 'figures.json'), 'utf8'));
+    const z = dipoleArrayPorts(dipoles(), F, { groundPlane: { zM: 0 } }).impedanceOhm;
+    const i4 = identity(4);
+    const s = solve(add(z, scale(i4, 50)), subtract(z, scale(i4, 50))); // (Z+50)⁻¹(Z−50) = (Z−50)(Z+50)⁻¹ (they commute)
+    const ar = j.figures.activeReflection;
+    const x = uniformLineLayout(4, D).positionsM;
+    for (const [k, ang] of ar.scanAngleDeg.entries()) {
+      const u = Math.sin((ang * Math.PI) / 180);
+      const c = Array.from({ length: 4 }, (_, m) => ({ re: Math.cos(-2 * Math.PI / LAMBDA * u * x[3 * m]), im: Math.sin(-2 * Math.PI / LAMBDA * u * x[3 * m]) }));
+      for (const t of ar.traces) {
+        let gr = 0, gi = 0;
+        for (let m = 0; m < 4; m++) {
+          const o = 2 * (t.element * 4 + m), sr = s.data[o], si = s.data[o + 1];
+          gr += sr * c[m].re - si * c[m].im; gi += sr * c[m].im + si * c[m].re;
+        }
+        const cn = c[t.element], den = cn.re ** 2 + cn.im ** 2;
+        expect(t.re[k]).toBeCloseTo((gr * cn.re + gi * cn.im) / den, 10);
+        expect(t.im[k]).toBeCloseTo((gi * cn.re - gr * cn.im) / den, 10);
+      }
+    }
+  });
+
+  it('every layout kind and the circular Taylor taper evaluate', async () => {
+    const cases: Array<[Record<string, unknown>, number, boolean]> = [
+      [{ kind: 'rectangular', countX: 2, countY: 2, spacingXM: D, spacingYM: D }, 4, true],
+      [{ kind: 'triangular', spacingM: D, boundary: { kind: 'circle', radiusM: D } }, 7, true],
+      [{ kind: 'triangular', spacingM: D, boundary: { kind: 'hexagon', circumradiusM: D } }, 7, true],
+      [{ kind: 'positions', positionsM: [[0, 0, 0], [D, 0, 0], [0, D, 0]] }, 3, false],
+    ];
+    for (const [i, [layout, count, lattice]] of cases.entries()) {
+      const d = baseDesign();
+      d.layout = layout;
+      d.physicalAreaM2 = count * D * D;
+      d.beams = { thetaDeg: { fromDeg: 0, toDeg: 20, count: 2 }, beamformer: 'taper', taper: { kind: 'circular-taylor', sidelobeDb: 25, nbar: 3 } };
+      const out = join(dir, `report-layout-${i}`);
+      const r = await run(['evaluate', writeDesign(`layout-${i}.json`, d), '--out', out]);
+      expect(r.code, r.err).toBe(0);
+      const j = JSON.parse(readFileSync(join(out, 'figures.json'), 'utf8'));
+      expect(j.elementCount).toBe(count);
+      expect(existsSync(join(out, 'grating-lobes.svg'))).toBe(lattice);
+      expect(j.beams.map((b: any) => b.scanAngleDeg)).toEqual([0, 20]);
+    }
   });
 
   it('conjugate-field and taper beamformers give weights the figures reflect', async () => {

@@ -19,7 +19,7 @@ import { planarLattice, rectangularLattice, type PlanarLattice } from '../../flo
 import { readTouchstoneFile } from '../../network/node.js';
 import { interpolateMultiport } from '../../network/interpolate.js';
 import { convertMultiport } from '../../network/convert.js';
-import { createMultiport, multiportMatrix } from '../../network/multiport.js';
+import { multiportMatrix } from '../../network/multiport.js';
 import { readPatternFile } from '../../element/node.js';
 import type { WireDipole } from '../../element/types.js';
 import {
@@ -253,9 +253,4 @@ export function beamPowerPatterns(w: CMatrix, p: SampledPortPatterns): Float64Ar
     out.push(row);
   }
   return out;
-}
-
-/** Scattering matrix S (50 Ω power waves, network module) of Z at one frequency. @internal */
-export function scatteringOf(z: CMatrix, frequencyHz: number): CMatrix {
-  return multiportMatrix(convertMultiport(createMultiport('impedance', [frequencyHz], [z]), 'scattering'), 0);
 }

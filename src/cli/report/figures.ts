@@ -11,7 +11,10 @@ import { gratingLobeCircles } from '../../floquet/grating-lobes.js';
 import { linePlotSvg, patternCutSvg, smithChartSvg, gratingLobeDiagramSvg } from '../../plot/index.js';
 import { powerToDb } from '../../units/convert.js';
 import { wavenumberRadPerM } from '../../units/convert.js';
-import { beamPowerPatterns, scanPlaneDirections, scatteringOf, type BuiltDesign } from '../design/build.js';
+import { beamPowerPatterns, scanPlaneDirections, type BuiltDesign } from '../design/build.js';
+import { createMultiport } from '../../network/multiport.js';
+import { activeReflection } from '../../network/sources.js';
+import { zeros } from '../../linalg/cmatrix.js';
 
 /** One beam's row of figures.json. @internal */
 export type BeamRow = { scanAngleDeg: number; thetaDeg: number; phiDeg: number } & BeamFigures;
@@ -132,7 +135,7 @@ export function reportFigures(b: BuiltDesign, ev: ReceivingArrayEvaluation, desi
 
   // Active reflection coefficients Γₙ = Σₘ Sₙₘ cₘ/cₙ of the phase-steered transmit excitation cₘ = exp(−j k r̂·rₘ)
   // (the conjugate of the DESIGN steering vector), for the centre and the outermost element.
-  const s = scatteringOf(b.ports.impedanceOhm, f);
+  const net = createMultiport('impedance', [f], [b.ports.impedanceOhm]);
   const k0 = wavenumberRadPerM(f);
   const p = b.layout.positionsM;
   let centre = 0, edge = 0, rc = Infinity, re = -1;
@@ -143,20 +146,16 @@ export function reportFigures(b: BuiltDesign, ev: ReceivingArrayEvaluation, desi
   }
   const elems = centre === edge ? [centre] : [centre, edge];
   const traces = elems.map((e) => ({ label: e === centre ? `element ${e} (centre)` : `element ${e} (edge)`, element: e, re: [] as number[], im: [] as number[] }));
+  const excitation = zeros(n, 1);
   for (let k = 0; k < scan.length; k++) {
     const th = b.description.beams.thetaRad[k], ph = b.description.beams.phiRad[k];
     const ux = Math.sin(th) * Math.cos(ph), uy = Math.sin(th) * Math.sin(ph), uz = Math.cos(th);
-    const phase = (i: number) => -k0 * (ux * p[3 * i] + uy * p[3 * i + 1] + uz * p[3 * i + 2]);
-    for (const t of traces) {
-      let gr = 0, gi = 0;
-      const pn = phase(t.element);
-      for (let m = 0; m < n; m++) {
-        const a = phase(m) - pn, cr = Math.cos(a), ci = Math.sin(a);
-        const o = 2 * (t.element * n + m), sr = s.data[o], si = s.data[o + 1];
-        gr += sr * cr - si * ci; gi += sr * ci + si * cr;
-      }
-      t.re.push(gr); t.im.push(gi);
+    for (let m = 0; m < n; m++) {
+      const phase = -k0 * (ux * p[3 * m] + uy * p[3 * m + 1] + uz * p[3 * m + 2]);
+      excitation.data[2 * m] = Math.cos(phase); excitation.data[2 * m + 1] = Math.sin(phase);
     }
+    const gamma = activeReflection(net, excitation).data; // 1×N
+    for (const t of traces) { t.re.push(gamma[2 * t.element]); t.im.push(gamma[2 * t.element + 1]); }
   }
   out.figures.activeReflection = { file: 'active-reflection.svg', title: 'Active reflection coefficient over the scan (50 Ω)', unit: 'linear (complex)', referenceOhm: 50, scanAngleDeg: scan, traces };
 
