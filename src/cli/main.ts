@@ -31,7 +31,15 @@ export function buildProgram(io: { out: (s: string) => void; err: (s: string) =>
     .description('Receiving phased-array calculators and design-file evaluation (phasewise).')
     .exitOverride()
     .configureOutput({ writeOut: io.out, writeErr: io.err })
-    .showHelpAfterError(false);
+    .showHelpAfterError(false)
+    .addHelpText('after', [
+      '',
+      'Examples:',
+      '  phasewise demo                                   # bundled S-band array, report in ./phasewise-demo-report',
+      '  phasewise evaluate examples/designs/l-band-feed.json --out feed-report',
+      '  phasewise taper --kind taylor --elements 24 --sidelobe-db 35',
+      '  phasewise <command> --help                       # options and an example for each command',
+    ].join('\n'));
 
   program.command('taper')
     .description('Weights and pattern figures of a line-array taper at broadside.')

@@ -4,6 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { XMLValidator } from 'fast-xml-parser';
 import { runCli } from '../../src/cli/main.js';
+import { parseDesign } from '../../src/cli/design/schema.js';
 import {
   dipoleArrayPorts, evaluateReceivingArray, patternSetPorts, skyAndGroundEnvironment,
 } from '../../src/reception/index.js';
@@ -336,7 +337,16 @@ describe('phasewise demo', () => {
     expect(readFileSync(join(out, 'pattern-cut.svg'), 'utf8')).toBe(readFileSync(join(__dirname, '../../docs/figures/demo-pattern.svg'), 'utf8'));
   });
 
+  it('the sample design file shipped in examples/designs is valid', () => {
+    const file = join(__dirname, '../../examples/designs/l-band-feed.json');
+    const d = parseDesign(readFileSync(file, 'utf8'), file);
+    expect(d.layout.kind).toBe('triangular');
+    // Its stated physical area is the 19 triangular cells √3/2·d² (to the 4 digits given).
+    expect(d.physicalAreaM2).toBeCloseTo(19 * (Math.sqrt(3) / 2) * 0.12 ** 2, 3);
+  });
+
   it('help of every report subcommand carries an example', async () => {
+    expect((await run(['--help'])).out).toContain('Examples:');
     for (const c of ['evaluate', 'demo']) {
       const h = await run([c, '--help']);
       expect(h.code).toBe(0);
