@@ -177,7 +177,10 @@ export function reportSvgs(fig: ReportFigures): Map<string, string> {
     traces: g.patternCut.traces.map((t) => ({ label: t.label, angleRad: g.patternCut.angleDeg.map((a) => (a * Math.PI) / 180), valueDb: t.valueDb })),
   }));
   for (const lf of [g.systemTemperature, g.sensitivity, g.efficiencies]) {
-    out.set(lf.file, linePlotSvg({ title: lf.title, xLabel: lf.xLabel, yLabel: lf.yLabel, traces: lf.traces.map((t) => ({ label: t.label, x: lf.x, y: t.y })) }));
+    // Small sensitivities are drawn in cm²/K so the tick labels stay short (figures.json keeps m²/K).
+    const small = lf === g.sensitivity && Math.max(...lf.traces[0].y.map(Math.abs)) < 0.1;
+    const yLabel = small ? 'A_e/T_sys [cm²/K]' : lf.yLabel;
+    out.set(lf.file, linePlotSvg({ title: lf.title, xLabel: lf.xLabel, yLabel, traces: lf.traces.map((t) => ({ label: t.label, x: lf.x, y: small ? t.y.map((v) => v * 1e4) : t.y })) }));
   }
   if (g.activeReflection) {
     out.set(g.activeReflection.file, smithChartSvg({
