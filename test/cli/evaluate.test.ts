@@ -1,4 +1,4 @@
-import { describe, it, expect, beforeAll } from 'vitest';
+import { describe, it, expect, beforeAll, vi } from 'vitest';
 import { mkdtempSync, readFileSync, writeFileSync, existsSync, readdirSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -124,6 +124,26 @@ describe('phasewise evaluate: a valid design', () => {
     expect(html).toContain('<svg');
     expect(html).toContain('T_sys [K]');
     expect(html).not.toMatch(/<script|<link|src="http/);
+  });
+
+  it('progress bar on stderr only when stderr is a terminal, and --no-progress silences it', async () => {
+    const file = writeDesign('progress.json', baseDesign());
+    const writes: string[] = [];
+    const spy = vi.spyOn(process.stderr, 'write').mockImplementation((chunk: any) => { writes.push(String(chunk)); return true; });
+    const tty = Object.getOwnPropertyDescriptor(process.stderr, 'isTTY');
+    try {
+      Object.defineProperty(process.stderr, 'isTTY', { value: false, configurable: true });
+      expect((await run(['evaluate', file, '--out', join(dir, 'report-p1')])).code).toBe(0);
+      expect(writes.join('')).not.toContain('scan sweep');
+      Object.defineProperty(process.stderr, 'isTTY', { value: true, configurable: true });
+      expect((await run(['evaluate', file, '--out', join(dir, 'report-p2'), '--no-progress'])).code).toBe(0);
+      expect(writes.join('')).not.toContain('scan sweep');
+      expect((await run(['evaluate', file, '--out', join(dir, 'report-p3')])).code).toBe(0);
+      expect(writes.join('')).toContain('3/3 beams');
+    } finally {
+      spy.mockRestore();
+      if (tty) Object.defineProperty(process.stderr, 'isTTY', tty); else delete (process.stderr as { isTTY?: boolean }).isTTY;
+    }
   });
 
   it('active reflection coefficients equal (S c)ₙ/cₙ with S = (Z − 50)(Z + 50)⁻¹ (Pozar 1994, from memory)', async () => {
