@@ -495,6 +495,17 @@ export function maxAbsDifference(a: CMatrix, b: CMatrix): number {
   return m;
 }
 
+/** Validates a list of matrices that must agree in `dim`; returns that common size. */
+function checkParts(parts: ReadonlyArray<CMatrix>, dim: 'rows' | 'cols'): number {
+  if (!Array.isArray(parts) || parts.length === 0) throw new DimensionError(`invalid argument "parts": expected a non-empty array of matrices, received ${describeValue(parts)}.`);
+  parts.forEach((p, i) => assertCMatrix(`parts[${i}]`, p));
+  const size = parts[0][dim];
+  parts.forEach((p, i) => {
+    if (p[dim] !== size) throw new DimensionError(`invalid argument "parts[${i}]": expected ${size} ${dim === 'rows' ? 'rows' : 'columns'} like parts[0], received ${p[dim]}.`);
+  });
+  return size;
+}
+
 /**
  * Horizontal concatenation [a, b, …] of matrices with equal row counts.
  * @param parts - Matrices to join left to right.
@@ -502,14 +513,9 @@ export function maxAbsDifference(a: CMatrix, b: CMatrix): number {
  * @category Complex core
  */
 export function concatColumns(parts: ReadonlyArray<CMatrix>): CMatrix {
-  if (!Array.isArray(parts) || parts.length === 0) throw new DimensionError(`invalid argument "parts": expected a non-empty array of matrices, received ${describeValue(parts)}.`);
-  parts.forEach((p, i) => assertCMatrix(`parts[${i}]`, p));
-  const rows = parts[0].rows;
+  const rows = checkParts(parts, 'rows');
   let cols = 0;
-  parts.forEach((p, i) => {
-    if (p.rows !== rows) throw new DimensionError(`invalid argument "parts[${i}]": expected ${rows} rows like parts[0], received ${p.rows}.`);
-    cols += p.cols;
-  });
+  for (const p of parts) cols += p.cols;
   const out = zeros(rows, cols);
   let c = 0;
   for (const p of parts) {
@@ -526,14 +532,9 @@ export function concatColumns(parts: ReadonlyArray<CMatrix>): CMatrix {
  * @category Complex core
  */
 export function concatRows(parts: ReadonlyArray<CMatrix>): CMatrix {
-  if (!Array.isArray(parts) || parts.length === 0) throw new DimensionError(`invalid argument "parts": expected a non-empty array of matrices, received ${describeValue(parts)}.`);
-  parts.forEach((p, i) => assertCMatrix(`parts[${i}]`, p));
-  const cols = parts[0].cols;
+  const cols = checkParts(parts, 'cols');
   let rows = 0;
-  parts.forEach((p, i) => {
-    if (p.cols !== cols) throw new DimensionError(`invalid argument "parts[${i}]": expected ${cols} columns like parts[0], received ${p.cols}.`);
-    rows += p.rows;
-  });
+  for (const p of parts) rows += p.rows;
   const out = zeros(rows, cols);
   let off = 0;
   for (const p of parts) {

@@ -5,7 +5,7 @@
 import { DomainError } from '../errors.js';
 import { assertFinite } from '../internal/validate.js';
 import type { PatternCutTrace } from './line.js';
-import { type PlotFrameOptions, TRACE_COLORS, checkSeries, esc, fmt, openSvg, resolveFrame } from './svg.js';
+import { type PlotFrameOptions, TRACE_COLORS, checkSeries, drawCornerLegend, esc, fmt, openSvg, resolveFrame } from './svg.js';
 
 /**
  * Options of {@link polarCutSvg}.
@@ -49,7 +49,7 @@ export function polarCutSvg(options: PolarCutOptions): string {
   if (!(step > 0)) throw new DomainError(`invalid argument "ringStepDb": expected > 0, received ${step}.`);
   const f = resolveFrame(options, { width: 480, height: 480 });
   const cx = f.width / 2;
-  const top = f.title ? f.fontSize * 3 : f.fontSize * 1.5;
+  const top = (f.title ? f.fontSize * 3 : f.fontSize * 1.5) + f.fontSize * 0.6;
   const r0 = Math.min(f.width / 2 - f.fontSize * 3, (f.height - top - f.fontSize * 2) / 2);
   const cy = top + f.fontSize + r0;
   const rad = (db: number) => (r0 * (Math.min(Math.max(db, floor), ceil) - floor)) / (ceil - floor);
@@ -79,6 +79,7 @@ export function polarCutSvg(options: PolarCutOptions): string {
     }
     parts.push(`<path class="trace" data-label="${esc(t.label)}" data-points="${t.angleRad.length}" d="${d}" fill="none" stroke="${TRACE_COLORS[i % TRACE_COLORS.length]}" stroke-width="1.6"/>`);
   });
+  if (options.traces.length > 1) parts.push(drawCornerLegend(f, options.traces.map((t) => t.label)));
   parts.push('</svg>');
   return parts.join('');
 }

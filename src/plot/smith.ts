@@ -3,7 +3,7 @@
  * @module
  */
 import { DomainError } from '../errors.js';
-import { type PlotFrameOptions, TRACE_COLORS, checkSeries, esc, fmt, openSvg, resolveFrame } from './svg.js';
+import { type PlotFrameOptions, TRACE_COLORS, checkSeries, drawCornerLegend, esc, fmt, openSvg, resolveFrame } from './svg.js';
 
 /**
  * One reflection-coefficient locus (for example one port over frequency).
@@ -46,8 +46,9 @@ export function smithChartSvg(options: SmithChartOptions): string {
   const f = resolveFrame(options, { width: 480, height: 480 });
   const z0 = options.z0Ohm ?? 50;
   if (!(z0 > 0) || !Number.isFinite(z0)) throw new DomainError(`invalid argument "z0Ohm": expected a finite number > 0 [Ω], received ${z0}.`);
-  const top = f.title ? f.fontSize * 3 : f.fontSize * 1.5;
-  const r0 = Math.min(f.width / 2 - f.fontSize * 2, (f.height - top - f.fontSize * 3) / 2);
+  // Room above the circle for the title and the +j1 label that sits 7 % outside the rim.
+  const top = (f.title ? f.fontSize * 3 : f.fontSize * 1.5) + f.fontSize * 1.2;
+  const r0 = Math.min(f.width / 2 - f.fontSize * 3, (f.height - top - f.fontSize * 3.5) / 2 / 1.07);
   const cx = f.width / 2, cy = top + r0 + f.fontSize * 0.5;
   const X = (g: number) => cx + r0 * g;
   const Y = (g: number) => cy - r0 * g;
@@ -82,8 +83,8 @@ export function smithChartSvg(options: SmithChartOptions): string {
     for (let k = 0; k < t.gammaRe.length; k++) d += `${k === 0 ? 'M' : 'L'}${fmt(X(t.gammaRe[k]))},${fmt(Y(t.gammaIm[k]))}`;
     parts.push(`<path class="trace" data-label="${esc(t.label)}" data-points="${t.gammaRe.length}" d="${d}" fill="none" stroke="${c}" stroke-width="1.6"/>`);
     if (t.gammaRe.length > 0) parts.push(`<circle class="start" cx="${fmt(X(t.gammaRe[0]))}" cy="${fmt(Y(t.gammaIm[0]))}" r="3" fill="${c}"/>`);
-    parts.push(`<text class="legend-entry" x="${fmt(f.fontSize)}" y="${fmt(f.height - f.fontSize * (options.traces.length - i))}" fill="${c}">${esc(t.label)}</text>`);
   });
+  parts.push(drawCornerLegend(f, options.traces.map((t) => t.label)));
   parts.push(`<text class="caption" x="${fmt(f.width - f.fontSize)}" y="${fmt(f.height - f.fontSize)}" text-anchor="end" fill="#333">Γ, normalised to ${fmt(z0)} Ω</text>`);
   parts.push('</svg>');
   return parts.join('');

@@ -194,3 +194,8 @@ export function base64(bytes: Uint8Array): string {
   }
   return out;
 }
+
+/** Legend as coloured labels stacked in the bottom-left corner (for round charts). @internal */
+export function drawCornerLegend(f: Frame, labels: readonly string[]): string {
+  return labels.map((l, i) => `<text class="legend-entry" x="${fmt(f.fontSize)}" y="${fmt(f.height - f.fontSize * (labels.length - i))}" fill="${TRACE_COLORS[i % TRACE_COLORS.length]}">${esc(l)}</text>`).join('');
+}

@@ -3,6 +3,7 @@
  * @module
  */
 import { encode } from 'fast-png';
+import { scaleLinear } from 'd3-scale';
 import { interpolateViridis } from 'd3-scale-chromatic';
 import { color as parseColor } from 'd3-color';
 import { DimensionError, DomainError } from '../errors.js';
@@ -116,10 +117,9 @@ export function uvMapSvg(options: UvMapOptions): string {
     const y = bottom - ((s + 1) / steps) * side;
     parts.push(`<rect x="${fmt(bx)}" y="${fmt(y)}" width="${fmt(barW)}" height="${fmt(side / steps + 0.5)}" fill="rgb(${r},${g},${b})"/>`);
   }
-  for (let s = 0; s <= 4; s++) {
-    const lv = floor + (s / 4) * (ceil - floor);
-    const y = bottom - (s / 4) * side;
-    parts.push(`<text class="colorbar-tick" data-value="${lv}" x="${fmt(bx + barW + 4)}" y="${fmt(y + f.fontSize * 0.35)}" fill="#333">${esc(lv.toFixed(0))}</text>`);
+  for (const lv of scaleLinear().domain([floor, ceil]).ticks(5)) {
+    const y = bottom - ((lv - floor) / (ceil - floor)) * side;
+    parts.push(`<text class="colorbar-tick" data-value="${lv}" x="${fmt(bx + barW + 4)}" y="${fmt(y + f.fontSize * 0.35)}" fill="#333">${esc(String(lv))}</text>`);
   }
   parts.push(`<text class="colorbar-label" x="${fmt(bx + barW / 2)}" y="${fmt(top - 4)}" text-anchor="middle" fill="#222">dB</text></g>`);
   parts.push('</svg>');

@@ -8,7 +8,8 @@ import { assertNonNegative, assertPositive } from '../internal/validate.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
 import type { NoiseParametersInput } from '../network/noise.js';
 import { type SphereQuadrature } from '../geometry/quadrature.js';
-import { type PortPatternSource, type QuadratureDirections, quadratureDirections } from '../reception/patterns.js';
+import { type QuadratureDirections, quadratureDirections } from '../reception/patterns.js';
+import type { ArrayPortSource } from '../reception/ports.js';
 import { type LossModel, type NoiseBudget, arrayNoiseBudget } from '../reception/budget.js';
 import { type BeamFigures, beamFigures, maxSnrWeightsUnpolarized, minimumReceiverTemperature } from '../reception/figures.js';
 import type { Paraboloid } from './paraboloid.js';
@@ -41,7 +42,7 @@ export interface ReflectorArrayFeedDescription {
   /** The reflector (its frame is the frame of the beam directions). */
   readonly dish: Paraboloid;
   /** The feed's ports: open-circuit embedded patterns in the feed frame (phase reference at the focus) and the feed array's impedance matrix Z_A [Ω]. */
-  readonly feed: { readonly patterns: PortPatternSource; readonly impedanceOhm: CMatrix };
+  readonly feed: ArrayPortSource;
   /** Sphere quadrature in the feed frame for the noise integrals (a geometry-module rule or explicit directions). */
   readonly feedQuadrature: SphereQuadrature | QuadratureDirections;
   /** Brightness of the sky reflected into the feed by the dish [K], ≥ 0. */
@@ -57,7 +58,12 @@ export interface ReflectorArrayFeedDescription {
   /** Ohmic-loss model of the feed (reception module). @defaultValue 'fromPatterns' */
   readonly loss?: LossModel;
   /** Beam directions in the reflector frame [rad]. */
-  readonly beams: { readonly thetaRad: Float64Array; readonly phiRad: Float64Array };
+  readonly beams: {
+    /** Polar angles of the beams from the dish axis [rad]. */
+    readonly thetaRad: Float64Array;
+    /** Azimuths of the beams [rad]. */
+    readonly phiRad: Float64Array;
+  };
   /** Open-circuit beam weights, N×K. @defaultValue max-SNR weights for an unpolarized source per beam */
   readonly weights?: CMatrix;
   /** Flux density of an unpolarized test source for the SNR [W m⁻² Hz⁻¹]. */

@@ -8,10 +8,11 @@ import { assertColumn, assertFiniteArray, assertFiniteCMatrix, assertPositive, d
 import { fromParts, type CMatrix } from '../linalg/cmatrix.js';
 import { solve } from '../linalg/lu.js';
 import { adjoint, innerProduct, multiply, subtract, vectorNorm } from '../linalg/ops.js';
-import { polynomialFromRoots, polynomialRoots } from '../linalg/roots.js';
 import { wavenumberRadPerM } from '../units/convert.js';
 import type { TaperWeights } from './efficiency.js';
 import type { ArrayLayout, Vector3 } from '../geometry/layout.js';
+import { linearArrayField } from '../pattern/linearArray.js';
+import { schelkunoffZeros, weightsFromSchelkunoffZeros } from '../pattern/schelkunoff.js';
 import { steeringMatrix, steeringVector } from '../pattern/steering.js';
 
 /**
@@ -57,14 +58,14 @@ function assertDirectionCosines(name: string, u: ArrayLike<number>): void {
  *
  * @remarks
  * For elements at xₙ = x₀ + n·d along the array axis and AF = wᴴa with aₙ = exp(+j k xₙ u)
- * (docs/conventions.md; u = r̂·x̂ the direction cosine along the axis), the array factor is,
- * up to the phase of x₀, the polynomial P(z) = Σ conj(wₙ) zⁿ on the unit circle
- * z = exp(j k d u). Its N−1 zeros are found (Aberth–Ehrlich, {@link polynomialRoots}); for each
- * requested null uₖ the nearest zero not yet moved is replaced by exp(j k d uₖ), and the
- * polynomial is rebuilt ({@link polynomialFromRoots}) with the original leading coefficient.
- * The new weights are rescaled to the original ‖w‖₂, so `mainBeamChangeDb` equals
- * `mainBeamGainChangeDb`. The main-beam change follows from the moved zeros alone:
- * |P_new(z₀)|/|P_old(z₀)| = Π |z₀ − e^{jkduₖ}| / |z₀ − ζₖ| (before rescaling).
+ * (docs/conventions.md; u = r̂·â = cos γ the direction cosine along the axis â, γ the angle
+ * from it), the array factor is, up to the phase of x₀, the polynomial P(ζ) = Σ conj(wₙ) ζⁿ on
+ * the unit circle ζ = exp(j k d u). Its N−1 zeros come from the pattern module's
+ * {@link schelkunoffZeros}; for each requested null uₖ the nearest zero not yet moved is
+ * replaced by exp(j k d uₖ), and the weights are rebuilt by {@link weightsFromSchelkunoffZeros}
+ * and rescaled to the original ‖w‖₂ (so `mainBeamChangeDb` equals `mainBeamGainChangeDb`;
+ * the rebuilt weights carry the monic polynomial's global phase). The main-beam change is
+ * evaluated with the pattern module's line-array field at sinθ₀ = u₀.
  * The number of elements is unchanged, so at most N−1 nulls can be placed; the other
  * zeros, and hence the rest of the pattern, are kept as far as the moves allow.
  *
@@ -78,7 +79,8 @@ function assertDirectionCosines(name: string, u: ArrayLike<number>): void {
  * @param nullDirectionCosines - Null directions as u = r̂·(array axis) ∈ [−1, 1], at most N−1 of them.
  * @param mainBeamDirectionCosine - Main-beam direction u₀ ∈ [−1, 1] for the report (default 0, broadside).
  * @returns New weights and the main-beam change.
- * @throws {@link DomainError} on non-finite or out-of-range arguments, or a zero last weight.
+ * @throws {@link DomainError} on non-finite or out-of-range arguments, a zero last weight, or
+ *   zero response at the main-beam direction.
  * @throws {@link DimensionError} if there are more than N−1 nulls or the weights are not a column.
  * @throws {@link ConvergenceError} if the polynomial roots do not converge.
  * @example
@@ -105,20 +107,10 @@ export function schelkunoffNulls(
   if (nullDirectionCosines.length > n - 1) {
     throw new DimensionError(`invalid argument "nullDirectionCosines": an N = ${n} line has ${n - 1} pattern zeros, so at most ${n - 1} nulls can be placed; received ${nullDirectionCosines.length}.`);
   }
-  const d = w.data;
-  const leadRe = d[2 * (n - 1)], leadIm = -d[2 * (n - 1) + 1];
-  if (leadRe === 0 && leadIm === 0) {
-    throw new DomainError(`invalid argument "weights": the last weight is 0, so the array polynomial has degree < N−1; remove zero edge elements first.`);
-  }
-  // Coefficients of P(z) = Σ conj(wₙ) zⁿ, highest power first.
-  const coeffRe = new Float64Array(n), coeffIm = new Float64Array(n);
-  for (let k = 0; k < n; k++) { coeffRe[k] = d[2 * (n - 1 - k)]; coeffIm[k] = -d[2 * (n - 1 - k) + 1]; }
-  const roots = polynomialRoots(fromParts(coeffRe, coeffIm, n));
-  const r = roots.data;
+  const zeros = schelkunoffZeros(w);
+  const r = zeros.data;
   const kd = wavenumberRadPerM(frequencyHz) * spacingM;
-  const z0Re = Math.cos(kd * mainBeamDirectionCosine), z0Im = Math.sin(kd * mainBeamDirectionCosine);
   const moved = new Uint8Array(n - 1);
-  let logRatio = 0;
   for (let k = 0; k < nullDirectionCosines.length; k++) {
     const zr = Math.cos(kd * nullDirectionCosines[k]), zi = Math.sin(kd * nullDirectionCosines[k]);
     let best = -1, bestDist = Infinity;
@@ -127,24 +119,21 @@ export function schelkunoffNulls(
       const dist = Math.hypot(r[2 * i] - zr, r[2 * i + 1] - zi);
       if (dist < bestDist) { bestDist = dist; best = i; }
     }
-    logRatio += Math.log(Math.hypot(z0Re - zr, z0Im - zi)) - Math.log(Math.hypot(z0Re - r[2 * best], z0Im - r[2 * best + 1]));
     r[2 * best] = zr;
     r[2 * best + 1] = zi;
     moved[best] = 1;
   }
-  const monic = polynomialFromRoots(roots).data;
-  const out = new Float64Array(2 * n);
-  for (let k = 0; k < n; k++) {
-    // P coefficient of z^{N−1−k} = lead·cₖ; wₙ = conj(coefficient of zⁿ).
-    const cr = leadRe * monic[2 * k] - leadIm * monic[2 * k + 1];
-    const ci = leadRe * monic[2 * k + 1] + leadIm * monic[2 * k];
-    out[2 * (n - 1 - k)] = cr;
-    out[2 * (n - 1 - k) + 1] = -ci;
-  }
-  const result = { rows: n, cols: 1, data: out };
+  const result = weightsFromSchelkunoffZeros(zeros);
   const scale = vectorNorm(w) / vectorNorm(result);
-  for (let k = 0; k < out.length; k++) out[k] *= scale;
-  const changeDb = (20 / Math.LN10) * (logRatio + Math.log(scale));
+  for (let k = 0; k < result.data.length; k++) result.data[k] *= scale;
+  // Main-beam change from the pattern module's line-array field (θ from broadside, sinθ₀ = u₀).
+  const theta0 = Math.asin(mainBeamDirectionCosine);
+  const before = linearArrayField(w, spacingM, frequencyHz)(theta0);
+  const after = linearArrayField(result, spacingM, frequencyHz)(theta0);
+  if (!(before > 0)) {
+    throw new DomainError(`invalid argument "mainBeamDirectionCosine": the weights have zero response at u₀ = ${mainBeamDirectionCosine}; pass the direction of the main beam.`);
+  }
+  const changeDb = 20 * Math.log10(after / before);
   return { weights: result, mainBeamChangeDb: changeDb, mainBeamGainChangeDb: changeDb };
 }
 

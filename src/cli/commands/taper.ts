@@ -3,7 +3,7 @@
  * @internal
  * @module
  */
-import { binomialTaper, cosineSquaredTaper, cosineTaper, dolphChebyshevTaper, taylorTaper, uniformTaper, taperEfficiency, directivityLossDb } from '../../taper/index.js';
+import { binomialTaper, cosineSquaredTaper, cosineTaper, dolphChebyshevTaper, taylorTaper, uniformTaper, taperEfficiency, lineTaperFigures } from '../../taper/index.js';
 import { linearArrayFigures } from '../../pattern/index.js';
 import { fromParts } from '../../linalg/cmatrix.js';
 import { C0_M_PER_S } from '../../units/constants.js';
@@ -32,6 +32,7 @@ export interface TaperCommandResult {
   weights: number[];
   taperEfficiency: number;
   directivityLossDb: number;
+  beamBroadening: number | null;
   achievedPeakSidelobeDb: number | null;
   halfPowerBeamwidthDeg: number | null;
   firstNullBeamwidthDeg: number | null;
@@ -61,13 +62,16 @@ export function runTaper(o: TaperCommandOptions): TaperCommandResult {
   }
   // Figures at λ = 1 m (frequency c0), so the spacing in wavelengths is the spacing in metres.
   const figs = linearArrayFigures(fromParts(w, null, w.length), o.spacingWavelengths, C0_M_PER_S);
+  // Exact directivity loss and beam broadening against the uniform array at this spacing.
+  const exact = lineTaperFigures(w, o.spacingWavelengths, C0_M_PER_S);
   return {
     kind: o.kind,
     elements: o.elements,
     spacingWavelengths: o.spacingWavelengths,
     weights: Array.from(w),
     taperEfficiency: taperEfficiency(w),
-    directivityLossDb: directivityLossDb(w),
+    directivityLossDb: exact.directivityLossDb,
+    beamBroadening: exact.beamBroadening ?? null,
     achievedPeakSidelobeDb: figs.peakSidelobeDb ?? null,
     halfPowerBeamwidthDeg: figs.halfPowerWidth === undefined ? null : radToDeg(figs.halfPowerWidth),
     firstNullBeamwidthDeg: figs.firstNullWidth === undefined ? null : radToDeg(figs.firstNullWidth),
@@ -81,7 +85,8 @@ export function formatTaper(r: TaperCommandResult): string {
   const rows = r.weights.map((v, i) => [String(i), num(v, 6)]);
   const figs = [
     ['taper efficiency', num(r.taperEfficiency, 5), ''],
-    ['directivity loss', num(r.directivityLossDb, 4), 'dB'],
+    ['directivity loss vs uniform', num(r.directivityLossDb, 4), 'dB'],
+    ['beam broadening vs uniform', r.beamBroadening === null ? 'n/a' : num(r.beamBroadening, 4), ''],
     ['peak sidelobe (achieved)', r.achievedPeakSidelobeDb === null ? 'none' : num(r.achievedPeakSidelobeDb, 4), 'dB'],
     ['half-power beamwidth', r.halfPowerBeamwidthDeg === null ? 'n/a' : num(r.halfPowerBeamwidthDeg, 4), 'deg'],
     ['first-null beamwidth', r.firstNullBeamwidthDeg === null ? 'n/a' : num(r.firstNullBeamwidthDeg, 4), 'deg'],
