@@ -67,6 +67,8 @@ beforeAll(() => {
   const set3 = dipoleEmbeddedPatterns(dipoles().slice(0, 3), F, th, ph, { groundPlane: { zM: 0 } });
   writePatternFile(join(dir, 'patterns3.json'), set3);
   const set2 = dipoleEmbeddedPatterns(dipoles(), 2 * F, th, ph, { groundPlane: { zM: 0 } });
+  const upper = Float64Array.from({ length: 10 }, (_, i) => (i * Math.PI) / 18); // 0 … 90° only
+  writePatternFile(join(dir, 'patterns-upper.json'), dipoleEmbeddedPatterns(dipoles(), F, upper, ph, { groundPlane: { zM: 0 } }));
   writePatternFile(join(dir, 'patterns-2f.json'), set2);
 });
 
@@ -295,6 +297,7 @@ const MALFORMED: Mutation[] = [
   ['layout count differing from the imported ports', (d) => { d.layout.count = 5; d.elements = { kind: 'imported', touchstoneFile: 'array.s4p', patternFile: 'patterns.json' }; }, 'layout'],
   ['pattern file at another frequency', (d) => { d.elements = { kind: 'imported', touchstoneFile: 'array.s4p', patternFile: 'patterns-2f.json' }; }, 'frequencyHz'],
   ['frequency outside the Touchstone range', (d) => { d.frequencyHz = 2 * F; d.elements = { kind: 'imported', touchstoneFile: 'array.s4p', patternFile: 'patterns-2f.json' }; }, 'frequencyHz'],
+  ['pattern file not covering the sphere the noise integral needs', (d) => { d.elements = { kind: 'imported', touchstoneFile: 'array.s4p', patternFile: 'patterns-upper.json' }; }, 'elements.patternFile'],
 ];
 
 describe('phasewise evaluate: malformed design files exit 2 naming the field', () => {
@@ -307,7 +310,7 @@ describe('phasewise evaluate: malformed design files exit 2 naming the field', (
       const out = join(dir, `out-bad`);
       const r = await run(['evaluate', file, '--out', out]);
       expect(r.code, `${label}: ${r.err}`).toBe(2);
-      expect(r.err, label).toContain(field === 'not valid JSON' ? field : `field "${field}`);
+      expect(r.err, label).toContain(field === 'not valid JSON' || field.startsWith('cannot') ? field : `field "${field}`);
       expect(r.err, label).not.toMatch(/internal error|\n\s+at /);
     }
   });

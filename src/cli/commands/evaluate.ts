@@ -9,6 +9,7 @@ import { basename } from 'node:path';
 import { SingleBar, Presets } from 'cli-progress';
 import { evaluateReceivingArray, type ReceivingArrayEvaluation } from '../../reception/index.js';
 import { UsageError } from '../errors.js';
+import { NumericError } from '../../errors.js';
 import { outputFolder } from '../output.js';
 import { num } from '../format.js';
 import { parseDesign, validateDesign, type Design } from '../design/schema.js';
@@ -64,7 +65,17 @@ function evaluateWithProgress(built: BuiltDesign, progress: boolean): ReceivingA
  */
 export function writeReport(design: Design, designFile: string, designText: string, outDir: string, options: ReportRunOptions = {}): ReportRun {
   const built = buildDesign(design, designFile);
-  const evaluation = evaluateWithProgress(built, options.progress ?? true);
+  let evaluation: ReceivingArrayEvaluation;
+  try {
+    evaluation = evaluateWithProgress(built, options.progress ?? true);
+  } catch (e) {
+    // The library names its own argument; say which design it was and keep the error family (exit 2).
+    if (e instanceof NumericError) {
+      const hint = design.elements.kind === 'imported' ? ' (field "elements.patternFile": the noise integrals need embedded patterns over the whole sphere, θ from 0 to 180°)' : '';
+      throw new UsageError(`cannot evaluate design file "${designFile}": ${e.message}${hint}`);
+    }
+    throw e;
+  }
   const figures = reportFigures(built, evaluation, basename(designFile));
   const svgs = reportSvgs(figures);
   const out = outputFolder(outDir);
