@@ -11,6 +11,8 @@ import { UsageError, exitCodeFor } from './errors.js';
 import { TAPER_KINDS, formatTaper, runTaper } from './commands/taper.js';
 import { formatSpacing, runSpacing } from './commands/spacing.js';
 import { formatYFactor, runYFactor } from './commands/yfactor.js';
+import { formatRun, runEvaluate } from './commands/evaluate.js';
+import { DEMO_FOLDER, runDemo } from './commands/demo.js';
 
 function numberArg(name: string, opts: { integer?: boolean; min?: number; max?: number } = {}) {
   return (value: string): number => {
@@ -29,7 +31,15 @@ export function buildProgram(io: { out: (s: string) => void; err: (s: string) =>
     .description('Receiving phased-array calculators and design-file evaluation (phasewise).')
     .exitOverride()
     .configureOutput({ writeOut: io.out, writeErr: io.err })
-    .showHelpAfterError(false);
+    .showHelpAfterError(false)
+    .addHelpText('after', [
+      '',
+      'Examples:',
+      '  phasewise demo                                   # bundled S-band array, report in ./phasewise-demo-report',
+      '  phasewise evaluate examples/designs/l-band-feed.json --out feed-report',
+      '  phasewise taper --kind taylor --elements 24 --sidelobe-db 35',
+      '  phasewise <command> --help                       # options and an example for each command',
+    ].join('\n'));
 
   program.command('taper')
     .description('Weights and pattern figures of a line-array taper at broadside.')
@@ -68,6 +78,37 @@ export function buildProgram(io: { out: (s: string) => void; err: (s: string) =>
     .action((file: string, o) => {
       const rows = runYFactor(file, o.hotK, o.coldK, Boolean(o.db));
       io.out((o.json ? JSON.stringify(rows, null, 2) : formatYFactor(rows, o.hotK, o.coldK)) + '\n');
+    });
+
+  program.command('evaluate')
+    .description('Evaluate a receiving-array design file and write a report folder (report.html, figures.json, SVG figures).')
+    .argument('<design.json>', 'design file (JSON; paths inside it are relative to its folder)')
+    .requiredOption('--out <folder>', 'report folder (created if needed; nothing is written outside it)')
+    .option('--no-progress', 'no progress bar (it is shown only when stderr is a terminal)')
+    .addHelpText('after', [
+      '',
+      'Example:',
+      '  phasewise evaluate feed-array.json --out feed-report',
+      '',
+      'A minimal design file:',
+      '  {"frequencyHz": 1.4e9, "bandwidthHz": 1e6,',
+      '   "layout": {"kind": "rectangular", "countX": 4, "countY": 4, "spacingXM": 0.107, "spacingYM": 0.107},',
+      '   "elements": {"kind": "dipole", "lengthM": 0.1, "radiusM": 0.0005, "axis": [1, 0, 0], "groundPlaneHeightM": 0.054},',
+      '   "amplifiers": {"minimumNoiseTemperatureK": 25, "noiseResistanceOhm": 4, "optimumSourceAdmittanceS": 0.02},',
+      '   "environment": {"skyK": 10, "groundK": 290},',
+      '   "beams": {"thetaDeg": {"fromDeg": -30, "toDeg": 30, "count": 13}, "beamformer": "max-snr"}}',
+    ].join('\n'))
+    .action((file: string, o) => {
+      io.out(formatRun(runEvaluate(file, o.out, { progress: o.progress !== false })) + '\n');
+    });
+
+  program.command('demo')
+    .description('Evaluate a bundled design (61 dipoles over ground, S-band telemetry, ±40° scan) and write its report.')
+    .option('--out <folder>', 'report folder', DEMO_FOLDER)
+    .option('--no-progress', 'no progress bar')
+    .addHelpText('after', '\nExample:\n  phasewise demo --out demo-report')
+    .action((o) => {
+      io.out(formatRun(runDemo(o.out, { progress: o.progress !== false })) + '\n');
     });
 
   return program;

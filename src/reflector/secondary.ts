@@ -149,17 +149,23 @@ function radiate(
   const m = thetaRad.length, p = s.count;
   const theta = zeros(nFeeds, m), phi = zeros(nFeeds, m);
   const e = new Float64Array(2 * p * DIRECTION_BLOCK);
+  const ku = new Float64Array(DIRECTION_BLOCK), kv = new Float64Array(DIRECTION_BLOCK), kw = new Float64Array(DIRECTION_BLOCK);
   const acc = [new Float64Array(2 * nFeeds * DIRECTION_BLOCK), new Float64Array(2 * nFeeds * DIRECTION_BLOCK), new Float64Array(2 * nFeeds * DIRECTION_BLOCK)];
   for (let m0 = 0; m0 < m; m0 += DIRECTION_BLOCK) {
     const b = Math.min(DIRECTION_BLOCK, m - m0);
+    // k·r̂ of the block's directions, formed once per block.
+    for (let j = 0; j < b; j++) {
+      const t = thetaRad[m0 + j], f = phiRad[m0 + j];
+      const st = Math.sin(t);
+      ku[j] = k * st * Math.cos(f); kv[j] = k * st * Math.sin(f); kw[j] = usePlaneZ ? 0 : k * Math.cos(t);
+    }
     for (let q = 0; q < p; q++) {
-      const xq = s.x[q], yq = s.y[q], zq = usePlaneZ ? 0 : s.z[q];
+      const xq = s.x[q], yq = s.y[q], zq = s.z[q];
+      const row = 2 * q * b;
       for (let j = 0; j < b; j++) {
-        const t = thetaRad[m0 + j], f = phiRad[m0 + j];
-        const st = Math.sin(t);
-        const arg = k * (st * Math.cos(f) * xq + st * Math.sin(f) * yq + Math.cos(t) * zq);
-        e[2 * (q * b + j)] = Math.cos(arg);
-        e[2 * (q * b + j) + 1] = Math.sin(arg);
+        const arg = ku[j] * xq + kv[j] * yq + kw[j] * zq;
+        e[row + 2 * j] = Math.cos(arg);
+        e[row + 2 * j + 1] = Math.sin(arg);
       }
     }
     for (let c = 0; c < 3; c++) gemmKernel(nFeeds, b, p, src[c], 0, p, e, 0, b, acc[c], 0, b, false);
