@@ -4,6 +4,7 @@
  * electrical size of an array.
  * @module
  */
+import type { ThetaPhiGrid } from './grids.js';
 import { ConvergenceError, DomainError } from '../errors.js';
 import { assertInteger, assertNonNegative, assertPositive, assertInRange } from '../internal/validate.js';
 import { wavenumberRadPerM } from '../units/convert.js';
@@ -88,19 +89,7 @@ export function gaussLegendre(n: number): GaussLegendreRule {
  * once: loop over them directly for allocation-free integration.
  * @category Geometry
  */
-export interface SphereQuadrature {
-  /** Number of θ nodes (all of them, both hemispheres when split). */
-  readonly thetaCount: number;
-  /** Number of φ nodes. */
-  readonly phiCount: number;
-  /** Number of directions thetaCount·phiCount. */
-  readonly count: number;
-  /** θ of each θ node [rad], ascending (cosθ = Gauss–Legendre node, descending). */
-  readonly thetaRad: Float64Array;
-  /** φ of each φ node [rad]. */
-  readonly phiRad: Float64Array;
-  /** Unit vectors, 3·count, xyz-interleaved. */
-  readonly directions: Float64Array;
+export interface SphereQuadrature extends ThetaPhiGrid {
   /** Solid-angle weights [sr], length count, summing to 4π. */
   readonly weights: Float64Array;
 }
