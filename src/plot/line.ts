@@ -89,9 +89,7 @@ export function linePlotSvg(options: LinePlotOptions): string {
   checkRange('xRange', options.xRange);
   checkRange('yRange', options.yRange);
   const f = resolveFrame(options, { width: 640, height: 400 });
-  const a = makeArea(f, options.xRange ?? dataRange(traces, 'x'), options.yRange ?? dataRange(traces, 'y'), options.xRange === undefined || options.yRange === undefined);
-  if (options.xRange) a.x.domain(options.xRange);
-  if (options.yRange) a.y.domain(options.yRange);
+  const a = makeArea(f, options.xRange ?? dataRange(traces, 'x'), options.yRange ?? dataRange(traces, 'y'), options.xRange === undefined, options.yRange === undefined);
   const parts = [openSvg(f, 'line plot'), drawAxes(f, a, xLabel, yLabel, 8, 6, options.xTicks)];
   const clip = clipId('plot-area', [a.left, a.top, a.right - a.left, a.bottom - a.top]);
   parts.push(`<clipPath id="${clip}"><rect x="${fmt(a.left)}" y="${fmt(a.top)}" width="${fmt(a.right - a.left)}" height="${fmt(a.bottom - a.top)}"/></clipPath>`);

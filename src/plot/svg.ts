@@ -130,17 +130,19 @@ export function angleTicksDeg(lo: number, hi: number, maxCount = 13): number[] {
   return out;
 }
 
-export function makeArea(f: Frame, xDomain: [number, number], yDomain: [number, number], nice: boolean): Area {
-  const left = Math.round(f.fontSize * 5);
+export function makeArea(f: Frame, xDomain: [number, number], yDomain: [number, number], niceX: boolean, niceY: boolean = niceX): Area {
+  const y = scaleLinear().domain(yDomain);
+  if (niceY) y.nice();
+  // Left margin: the widest y tick label plus room for the rotated axis title.
+  const fmtY = y.tickFormat(6);
+  const widest = Math.max(0, ...y.ticks(6).map((t) => fmtY(t).length));
+  const left = Math.round(Math.max(f.fontSize * 5, f.fontSize * (0.62 * widest + 2.9)));
   const right = f.width - Math.round(f.fontSize * 1.5);
   const top = Math.round(f.title ? f.fontSize * 3 : f.fontSize * 1.5);
   const bottom = f.height - Math.round(f.fontSize * 3.5);
   const x = scaleLinear().domain(xDomain).range([left, right]);
-  const y = scaleLinear().domain(yDomain).range([bottom, top]);
-  if (nice) {
-    x.nice();
-    y.nice();
-  }
+  if (niceX) x.nice();
+  y.range([bottom, top]);
   return { left, top, right, bottom, x, y };
 }
 
