@@ -17,3 +17,4 @@ export * from './beamform/index.js';
 export * from './measure/index.js';
 export * from './reflector/index.js';
 export * from './floquet/index.js';
+export * from './wire/index.js';
