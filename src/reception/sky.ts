@@ -45,7 +45,7 @@ export interface SkyPowerLaw {
  * @throws {@link DomainError} for negative temperatures or non-positive frequencies.
  * @example
  * ```ts
- * skyTemperatureAt({ referenceK: 20, referenceHz: 408e6 }, 816e6); // ≈ 5.1 K (20·2^(−2.55) + 2.725)
+ * skyTemperatureAt({ referenceK: 20, referenceHz: 408e6 }, 816e6); // ≈ 6.14 K (20·2^(−2.55) + 2.725)
  * ```
  * @category Reception
  */
