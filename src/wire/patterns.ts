@@ -112,8 +112,10 @@ export interface WireArrayPortSource extends ArrayPortSource {
  * @throws As {@link solveWires}; {@link DomainError} for a bad drive current.
  * @example
  * ```ts
+ * const dipole = { wires: [{ pointsM: [[-0.07, 0, 0], [0.07, 0, 0]], radiusM: 5e-4 }], ports: [{ wire: 0 }] };
+ * const layout = rectangularGridLayout({ countX: 2, countY: 2, spacingXM: 0.15, spacingYM: 0.15 });
  * const ports = wireArrayPorts(placeWireElement(dipole, layout, { heightM: 0.075 }), 1e9, { groundPlane: { zM: 0 } });
- * ports.impedanceOhm.rows; // one port per element
+ * ports.impedanceOhm.rows; // 4
  * ```
  * @category Wire
  */

@@ -156,7 +156,7 @@ export function solutionInternals(s: WireSolution): SolutionInternals | undefine
  * ```ts
  * const f = 1e9, lambda = 299792458 / f;
  * const dipole = { wires: [{ pointsM: [[-0.235 * lambda, 0, 0], [0.235 * lambda, 0, 0]], radiusM: 0.002 * lambda, segments: 12 }], ports: [{ wire: 0 }] };
- * solveWires(dipole, f).impedanceOhm; // 1×1: 70.2 − j5.0 Ω
+ * solveWires(dipole, f).impedanceOhm.data; // ≈ Float64Array [70.2, −5.0] (Ω, one port)
  * ```
  * @category Wire
  */
