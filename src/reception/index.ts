@@ -24,3 +24,4 @@ export type { ArrayPorts, ReceivingArrayDescription, ReceivingArrayEvaluation, B
 export { evaluateReceivingArray } from './evaluate.js';
 export type { ArrayPortSource, DipoleArrayPortsOptions } from './ports.js';
 export { dipoleArrayPorts, patternSetPorts } from './ports.js';
+export { patternOverlapMatrix } from './overlap.js';
