@@ -214,9 +214,9 @@ export function noiseSourceOnTemperature(enrDb: number, enrReferenceTemperatureK
  * @throws {@link DomainError} for non-positive linear powers, Y ≤ 1, T0 ≤ 0 or T_off < 0.
  * @example
  * ```ts
- * // ENR 15 dB, Y = 10 dB, off at 290 K: F = ENR/(Y − 1) = 31.62/9 → NF 5.457 dB
+ * // ENR 15 dB, Y = 10 dB, off at 290 K: F = ENR/(Y − 1) = 31.62/9 → NF 5.458 dB
  * const r = noiseSourceReceiverTemperature({ enrDb: 15, onPower: 10, offPower: 1 });
- * // r.onTemperatureK: 9460.6, r.noiseFigureDb: 5.457
+ * // r.onTemperatureK: 9460.6, r.noiseFigureDb: 5.458
  * ```
  * @category Measurement
  */

@@ -58,7 +58,7 @@ export function isotropicNoiseMatrix(layout: ArrayLayout, frequencyHz: number, o
   const element = options.element ?? { kind: 'isotropic' };
   assertElementFactor(element);
   const n = layout.count, p = layout.positionsM;
-  const on = (i: number): boolean => !layout.enabled || layout.enabled[i];
+  const on = (i: number): boolean => !layout.enabled || layout.enabled[i] !== 0;
   const k = wavenumberRadPerM(frequencyHz);
   const r = zeros(n, n);
   if (element.kind === 'isotropic' && options.quadrature === undefined) {
