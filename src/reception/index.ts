@@ -24,6 +24,7 @@ export type { ArrayPorts, ReceivingArrayDescription, ReceivingArrayEvaluation, B
 export { evaluateReceivingArray } from './evaluate.js';
 export type { ArrayPortSource, DipoleArrayPortsOptions } from './ports.js';
 export { dipoleArrayPorts, patternSetPorts } from './ports.js';
+export { patternOverlapMatrix } from './overlap.js';
 export { matchedFieldWeightsUnpolarized, beamPowerPatterns } from './fixedBeams.js';
 export type { SkyPowerLaw } from './sky.js';
 export { skyTemperatureAt, CMB_TEMPERATURE_K, SYNCHROTRON_SPECTRAL_INDEX } from './sky.js';
