@@ -154,10 +154,9 @@ function luSolveRaw(n: number, k: number, lu: Float64Array, piv: Int32Array, b: 
   return x;
 }
 
-/** Solves Aᴴ X = B given packed LU of A (no checks); B is n×k. */
-function luSolveAdjointRaw(n: number, k: number, lu: Float64Array, piv: Int32Array, b: Float64Array): Float64Array {
+/** Solves Aᴴ X = B given packed LU of A (no checks; `luH` its adjoint when already formed); B is n×k. */
+function luSolveAdjointRaw(n: number, k: number, lu: Float64Array, piv: Int32Array, b: Float64Array, luH = adjointSquare(n, lu)): Float64Array {
   // Aᴴ = Uᴴ Lᴴ P: solve Uᴴ w = b (lower), Lᴴ v = w (unit upper), x = Pᵀ v.
-  const luH = adjointSquare(n, lu);
   const w = b.slice();
   solveLowerThenUpperInPlace(n, k, luH, false, luH, true, w);
   const x = new Float64Array(2 * n * k);
@@ -171,6 +170,7 @@ function estimateInverseNorm1(n: number, lu: Float64Array, piv: Int32Array): num
   for (let i = 0; i < n; i++) x[2 * i] = 1 / n;
   let est = 0;
   let lastJ = -1;
+  let luH: Float64Array | null = null;
   for (let iter = 0; iter < 5; iter++) {
     const y = luSolveRaw(n, 1, lu, piv, x);
     let ynorm = 0;
@@ -182,7 +182,8 @@ function estimateInverseNorm1(n: number, lu: Float64Array, piv: Int32Array): num
     }
     if (iter > 0 && ynorm <= est) { est = Math.max(est, ynorm); break; }
     est = ynorm;
-    const z = luSolveAdjointRaw(n, 1, lu, piv, xi);
+    luH ??= adjointSquare(n, lu);
+    const z = luSolveAdjointRaw(n, 1, lu, piv, xi, luH);
     let j = 0, zmax = -1, ztx = 0;
     for (let i = 0; i < n; i++) {
       const m = Math.hypot(z[2 * i], z[2 * i + 1]);
