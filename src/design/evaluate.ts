@@ -196,7 +196,8 @@ export function evaluateDesignFrequency(prepared: PreparedDesign, index: number)
     ev = evaluateReceivingArray({
       ports, quadrature, bandwidthHz: d.bandwidthHz, environment, amplifiers,
       physicalTemperatureK: d.environment.physicalTemperatureK ?? 290,
-      loss: d.elements.kind === 'dipole' ? 'lossless' : 'fromPatterns',
+      // wire elements are lossless unless they carry loads (whose dissipation the patterns then lack)
+      loss: d.elements.kind === 'dipole' || (d.elements.kind === 'wire' && (d.elements.loads ?? []).length === 0) ? 'lossless' : 'fromPatterns',
       beams, weights, physicalAreaM2: d.physicalAreaM2,
     });
   } catch (e) {
