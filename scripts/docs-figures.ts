@@ -15,7 +15,7 @@ const DOC_FIGURES: ReadonlyArray<readonly [string, string]> = [
 
 const dir = mkdtempSync(join(tmpdir(), 'pw-docs-'));
 try {
-  runDemo(dir, { progress: false });
+  await runDemo(dir, { progress: false, workers: 1 });
   for (const [from, to] of DOC_FIGURES) {
     copyFileSync(join(dir, from), to);
     console.log(`wrote ${to}`);

@@ -143,3 +143,30 @@ export class ParseError extends NumericError {
     this.line = line;
   }
 }
+
+/**
+ * A design file (the receiving-array job's JSON description) is invalid: a field
+ * is missing, has the wrong type or range, or names data the library rejects
+ * (a band outside an imported file's coverage, a noise table with too few points…).
+ *
+ * @remarks
+ * The message names the file and the field path (`beams.cone.maxThetaDeg`), what
+ * was expected and what was found; `file` and `fields` carry the same facts as data.
+ * @category Errors
+ */
+export class DesignError extends NumericError {
+  /** Name of the design file as given by the caller. */
+  readonly file: string;
+  /** Field paths the problems refer to, in the order reported. */
+  readonly fields: readonly string[];
+  /**
+   * @param file - Design file name.
+   * @param problems - One entry per problem: the field path and the message (expected, received).
+   */
+  constructor(file: string, problems: ReadonlyArray<{ field: string; message: string }>) {
+    super(`invalid design file "${file}":\n${problems.map((p) => `  field "${p.field}": ${p.message}`).join('\n')}`, 'design');
+    this.name = 'DesignError';
+    this.file = file;
+    this.fields = problems.map((p) => p.field);
+  }
+}

@@ -18,3 +18,5 @@ export * from './beamform/index.js';
 export * from './measure/index.js';
 export * from './reflector/index.js';
 export * from './floquet/index.js';
+export * from './design/index.js';
+export { VERSION } from './version.js';

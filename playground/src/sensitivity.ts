@@ -1,13 +1,11 @@
 /**
  * Sensitivity sketch panel: a small grid of half-wave dipoles a quarter wavelength over a
- * ground plane, amplifier noise parameters and a sky/ground environment → T_sys and
- * A_e/T_sys of the maximum-SNR beam at the array's broadside, via the reception module. The
+ * ground plane, amplifier noise parameters and a sky/ground environment → T_sys, A_e/T_sys,
+ * G/T and SEFD of the maximum-SNR beam at the array's broadside, via the design module (the
+ * same job the command line runs on a design file). The
  * array may be tilted from the zenith so that part of its half-space sees the warm ground.
  */
-import {
-  type WireDipole, type ReceivingArrayEvaluation,
-  dipoleArrayPorts, evaluateReceivingArray, skyAndGroundEnvironment, sphereQuadrature, wavelengthM,
-} from 'phasewise';
+import { type FrequencyEvaluation, evaluateDesign, validateDesign, wavelengthM } from 'phasewise';
 import { byId, inputNumber, showFigure, showStatus, describeError, debounce } from './dom.js';
 
 /** Inputs of the sketch, as read from the form. */
@@ -42,37 +40,28 @@ export const SKETCH_MODEL = {
   bandwidthHz: 1e6,
 } as const;
 
-/** Evaluates the sketch: the same calls the browser test makes to check the page. */
-export function evaluateSketch(inputs: SensitivityInputs): ReceivingArrayEvaluation {
+/** The sketch as a phasewise design (the same JSON a design file holds). */
+export function sketchDesign(inputs: SensitivityInputs): Record<string, unknown> {
   const m = SKETCH_MODEL;
   const lambda = wavelengthM(inputs.frequencyHz);
-  const n = inputs.perSide, c = (n - 1) / 2;
-  const dipoles: WireDipole[] = [];
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j < n; j++) {
-      dipoles.push({
-        centerM: [(i - c) * m.spacingWavelengths * lambda, (j - c) * m.spacingWavelengths * lambda, m.heightWavelengths * lambda],
-        axis: [1, 0, 0],
-        lengthM: m.lengthWavelengths * lambda,
-        radiusM: m.radiusWavelengths * lambda,
-      });
-    }
-  }
-  const ports = dipoleArrayPorts(dipoles, inputs.frequencyHz, { groundPlane: { zM: 0 } });
-  return evaluateReceivingArray({
-    ports,
-    quadrature: sphereQuadrature(m.thetaNodes, m.phiNodes),
+  const d = m.spacingWavelengths * lambda;
+  return {
+    title: 'playground sensitivity sketch',
+    frequencyHz: inputs.frequencyHz,
     bandwidthHz: m.bandwidthHz,
-    environment: skyAndGroundEnvironment({ skyK: inputs.skyK, groundK: inputs.groundK, tiltRad: (inputs.tiltDeg * Math.PI) / 180 }),
-    amplifiers: {
-      minimumNoiseTemperatureK: inputs.minimumNoiseTemperatureK,
-      noiseResistanceOhm: inputs.noiseResistanceOhm,
-      optimumSourceAdmittanceS: m.optimumSourceAdmittanceS,
-    },
-    loss: 'lossless',
-    beams: { thetaRad: Float64Array.of(0), phiRad: Float64Array.of(0) },
-    physicalAreaM2: n * n * (m.spacingWavelengths * lambda) ** 2,
-  });
+    layout: { kind: 'rectangular', countX: inputs.perSide, countY: inputs.perSide, spacingXM: d, spacingYM: d },
+    elements: { kind: 'dipole', lengthM: m.lengthWavelengths * lambda, radiusM: m.radiusWavelengths * lambda, axis: [1, 0, 0], groundPlaneHeightM: m.heightWavelengths * lambda },
+    amplifiers: { minimumNoiseTemperatureK: inputs.minimumNoiseTemperatureK, noiseResistanceOhm: inputs.noiseResistanceOhm, optimumSourceAdmittanceS: m.optimumSourceAdmittanceS },
+    environment: { skyK: inputs.skyK, groundK: inputs.groundK, tiltDeg: inputs.tiltDeg },
+    beams: { pointings: [{ thetaDeg: 0, phiDeg: 0 }] },
+    physicalAreaM2: inputs.perSide * inputs.perSide * d * d,
+    quadrature: { thetaCount: m.thetaNodes, phiCount: m.phiNodes },
+  };
+}
+
+/** Evaluates the sketch through the library's design job: the same calls the browser test makes to check the page. */
+export function evaluateSketch(inputs: SensitivityInputs): FrequencyEvaluation {
+  return evaluateDesign(validateDesign(sketchDesign(inputs), 'sketch')).frequencies[0];
 }
 
 function readInputs(): SensitivityInputs {
@@ -103,6 +92,8 @@ function update(): void {
     showFigure('sens-ae', b.effectiveAreaM2, 4, 'm²');
     showFigure('sens-aet', b.sensitivityM2PerK, 4, 'm²/K');
     showFigure('sens-nm', b.noiseMatchingEfficiency, 4);
+    showFigure('sens-gt', b.gainOverTemperatureDbPerK, 4, 'dB/K');
+    showFigure('sens-sefd', b.sefdJy, 4, 'Jy');
     byId('sens-time').textContent = `computed in ${Math.round(performance.now() - t0)} ms`;
     showStatus('sens-status', '');
   } catch (e) {

@@ -114,7 +114,9 @@ function checkPowers(name: string, p: ArrayLike<number>, k: number): void {
  *   a coherence matrix that is not a correlation matrix; {@link NotPositiveDefiniteError} for a singular noise correlation.
  * @example
  * ```ts
+ * const a = steeringVector(uniformLineLayout(8, 0.05), [0, 0, 1], 2.99792458e9); // one source at broadside
  * const { snapshots } = simulateSnapshots({ steering: a, sourcePowers: [10], snapshotCount: 200, seed: 1 });
+ * [snapshots.rows, snapshots.cols]; // [8, 200]
  * ```
  * @category Beamforming
  */

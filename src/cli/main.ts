@@ -1,7 +1,6 @@
-#!/usr/bin/env node
 /**
  * The `phasewise` command line. Exit codes: 0 success, 2 bad input (with a
- * message naming the problem), 1 internal failure. Never evaluates input as
+ * message naming the problem), 1 internal failure. The bin is bin.ts. Never evaluates input as
  * code; writes only inside the chosen output folder.
  * @internal
  * @module
@@ -11,7 +10,8 @@ import { UsageError, exitCodeFor } from './errors.js';
 import { TAPER_KINDS, formatTaper, runTaper } from './commands/taper.js';
 import { formatSpacing, runSpacing } from './commands/spacing.js';
 import { formatYFactor, runYFactor } from './commands/yfactor.js';
-import { formatRun, runEvaluate } from './commands/evaluate.js';
+import { formatRun, parseShard, runEvaluate, runMerge } from './commands/evaluate.js';
+import { VERSION } from '../version.js';
 import { DEMO_FOLDER, runDemo } from './commands/demo.js';
 
 function numberArg(name: string, opts: { integer?: boolean; min?: number; max?: number } = {}) {
@@ -25,10 +25,19 @@ function numberArg(name: string, opts: { integer?: boolean; min?: number; max?: 
   };
 }
 
+function parseShardArg(value: string): { index: number; count: number } {
+  try {
+    return parseShard(value);
+  } catch (e) {
+    throw new InvalidArgumentError((e as Error).message.replace(/^option "--shard": /, ''));
+  }
+}
+
 /** Builds the program; `io` receives standard output text. @internal */
 export function buildProgram(io: { out: (s: string) => void; err: (s: string) => void }): Command {
   const program = new Command('phasewise')
     .description('Receiving phased-array calculators and design-file evaluation (phasewise).')
+    .version(VERSION, '-V, --version', 'print the version')
     .exitOverride()
     .configureOutput({ writeOut: io.out, writeErr: io.err })
     .showHelpAfterError(false)
@@ -81,25 +90,38 @@ export function buildProgram(io: { out: (s: string) => void; err: (s: string) =>
     });
 
   program.command('evaluate')
-    .description('Evaluate a receiving-array design file and write a report folder (report.html, figures.json, SVG figures).')
+    .description('Evaluate a receiving-array design file across its band and write a report folder (report.html, figures.json, SVG figures).')
     .argument('<design.json>', 'design file (JSON; paths inside it are relative to its folder)')
     .requiredOption('--out <folder>', 'report folder (created if needed; nothing is written outside it)')
+    .option('--workers <n>', 'worker threads for the frequency blocks (default: every core)', numberArg('--workers', { integer: true, min: 1, max: 1024 }))
+    .option('--shard <i/n>', 'evaluate only block i of n of the band and write part-i-of-n.json (combine with "phasewise merge")', parseShardArg)
     .option('--no-progress', 'no progress bar (it is shown only when stderr is a terminal)')
     .addHelpText('after', [
       '',
       'Example:',
       '  phasewise evaluate feed-array.json --out feed-report',
+      '  phasewise evaluate feed-array.json --out parts --shard 2/8     # one block of the band',
+      '  phasewise merge parts/part-*-of-8.json --out feed-report',
       '',
       'A minimal design file:',
-      '  {"frequencyHz": 1.4e9, "bandwidthHz": 1e6,',
+      '  {"frequencyHz": {"fromHz": 1.3e9, "toHz": 1.5e9, "count": 5}, "bandwidthHz": 1e6,',
       '   "layout": {"kind": "rectangular", "countX": 4, "countY": 4, "spacingXM": 0.107, "spacingYM": 0.107},',
       '   "elements": {"kind": "dipole", "lengthM": 0.1, "radiusM": 0.0005, "axis": [1, 0, 0], "groundPlaneHeightM": 0.054},',
       '   "amplifiers": {"minimumNoiseTemperatureK": 25, "noiseResistanceOhm": 4, "optimumSourceAdmittanceS": 0.02},',
       '   "environment": {"skyK": 10, "groundK": 290},',
-      '   "beams": {"thetaDeg": {"fromDeg": -30, "toDeg": 30, "count": 13}, "beamformer": "max-snr"}}',
+      '   "beams": {"cone": {"maxThetaDeg": 30, "stepUV": 0.2}, "beamformer": "max-snr"}}',
     ].join('\n'))
-    .action((file: string, o) => {
-      io.out(formatRun(runEvaluate(file, o.out, { progress: o.progress !== false })) + '\n');
+    .action(async (file: string, o) => {
+      io.out(formatRun(await runEvaluate(file, o.out, { progress: o.progress !== false, workers: o.workers, shard: o.shard })) + '\n');
+    });
+
+  program.command('merge')
+    .description('Merge the shard parts of one design (phasewise evaluate --shard i/n) into the report a single run writes.')
+    .argument('<parts...>', 'part files part-<i>-of-<n>.json, all shards of one design')
+    .requiredOption('--out <folder>', 'report folder')
+    .addHelpText('after', '\nExample:\n  phasewise merge parts/part-1-of-2.json parts/part-2-of-2.json --out report')
+    .action(async (parts: string[], o) => {
+      io.out(formatRun(await runMerge(parts, o.out)) + '\n');
     });
 
   program.command('demo')
@@ -107,8 +129,9 @@ export function buildProgram(io: { out: (s: string) => void; err: (s: string) =>
     .option('--out <folder>', 'report folder', DEMO_FOLDER)
     .option('--no-progress', 'no progress bar')
     .addHelpText('after', '\nExample:\n  phasewise demo --out demo-report')
-    .action((o) => {
-      io.out(formatRun(runDemo(o.out, { progress: o.progress !== false })) + '\n');
+    .option('--workers <n>', 'worker threads (default: every core)', numberArg('--workers', { integer: true, min: 1, max: 1024 }))
+    .action(async (o) => {
+      io.out(formatRun(await runDemo(o.out, { progress: o.progress !== false, workers: o.workers })) + '\n');
     });
 
   return program;
@@ -132,11 +155,6 @@ export async function runCli(argv: readonly string[], io = { out: (s: string) =>
     if (code === 1 && e instanceof Error && e.stack) io.err(e.stack + '\n');
     return code;
   }
-}
-
-const invokedDirectly = typeof process !== 'undefined' && Array.isArray(process.argv) && /(?:^|[\\/])(?:main\.ts|cli\.(?:c?js))$/.test(process.argv[1] ?? '');
-if (invokedDirectly) {
-  runCli(process.argv.slice(2)).then((code) => { process.exitCode = code; }, () => { process.exitCode = 1; });
 }
 
 export { UsageError };

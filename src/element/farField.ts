@@ -162,7 +162,7 @@ function result(m: number, th: Float64Array, ph: Float64Array): FarFieldResult {
  * @example
  * ```ts
  * const d = { centerM: [0, 0, 0], axis: [0, 0, 1], lengthM: 0.5, radiusM: 1e-4 } as const;
- * wireDipoleFarField(d, 299792458, [Math.PI / 2], [0]).thetaComponentV; // ≈ j·59.96 V (= jη/2π)
+ * wireDipoleFarField(d, 299792458, [Math.PI / 2], [0]).thetaComponentV; // ≈ [59.96j] V (= jη/2π)
  * ```
  * @category Elements
  */

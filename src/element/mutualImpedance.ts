@@ -97,9 +97,13 @@ const work = new Float64Array(2);
  * of two side-by-side filaments a apart (Balanis, Antenna Theory, 4th ed., 2016,
  * §8.5 and eqs. (8-57)–(8-60), from memory), exact closed form with Si/Ci.
  * Referred to the terminal current: Z_in = Z_m / sin²(kl/2). The resistance
- * tends to the radiation resistance as a → 0; the reactance depends on a
- * except for l = λ/2, 3λ/2, … For l = λ/2 and η0 = 376.73 Ω this gives
- * 73.08 + j42.52 Ω. The sinusoidal-current model is trustworthy for thin wires
+ * tends to the radiation resistance as a → 0 (its dependence on a is O((ka)²));
+ * the reactance depends on a at every length. For l = λ/2 the exact form is
+ * X = (η/4π)[Si(2π) − 2 Si(ka) + Si(k(√(l² + a²) − l))] = (η/4π) Si(2π) − η·a/λ + O((ka)³):
+ * the radius-free 42.515 Ω of the handbook formula (Balanis eq. (8-60b), which
+ * drops the Si(ka) term; from memory) less η·a/λ. With η0 = 376.7303 Ω and
+ * a = 10⁻⁶λ this gives 73.079 + j42.5147 Ω (mpmath 1.3.0 evaluation of the
+ * same closed form, in the tests). The sinusoidal-current model is trustworthy for thin wires
  * (a ≲ 10⁻³λ) and l ≲ 1.25λ; near l = λ the input impedance is very large and
  * model-sensitive.
  *
@@ -110,7 +114,7 @@ const work = new Float64Array(2);
  * @throws {@link DomainError} for non-positive length/radius/frequency or l = nλ.
  * @example
  * ```ts
- * dipoleSelfImpedance(0.5, 1e-6, 299792458); // ≈ 73.08 + 42.52j Ω
+ * dipoleSelfImpedance(0.5, 1e-6, 299792458); // ≈ 73.08 + 42.51j Ω
  * ```
  * @category Elements
  */
@@ -326,7 +330,7 @@ class PairTable {
  * @example
  * ```ts
  * const d = (x: number) => ({ centerM: [x, 0, 0], axis: [0, 0, 1], lengthM: 0.5, radiusM: 1e-5 }) as const;
- * dipoleArrayImpedanceMatrix([d(0), d(0.5)], 299792458); // Z₁₂ ≈ −12.5 − 29.9j Ω
+ * dipoleArrayImpedanceMatrix([d(0), d(0.5)], 299792458); // ≈ [73.1 + 42.5j, −12.5 − 29.9j, −12.5 − 29.9j, 73.1 + 42.5j] Ω
  * ```
  * @category Elements
  */

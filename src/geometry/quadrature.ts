@@ -224,7 +224,8 @@ export interface SphereQuadratureOrder {
  * @throws {@link DomainError} for negative or non-finite inputs.
  * @example
  * ```ts
- * sphereQuadratureOrder(2 * Math.PI * 8); // 8-wavelength array: { thetaCount: 47, phiCount: 94, errorEstimate: 2.2e-13 }
+ * // an 8-wavelength array:
+ * sphereQuadratureOrder(2 * Math.PI * 8); // { thetaCount: 47, phiCount: 94, errorEstimate: 1.7e-13 }
  * ```
  * @category Geometry
  */

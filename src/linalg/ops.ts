@@ -118,7 +118,7 @@ export function multiplyInto<T extends CMatrix>(out: T, a: CMatrix, b: CMatrix):
  * @throws {@link DimensionError} if `a.cols !== b.rows`.
  * @example
  * ```ts
- * multiply(identity(2), fromRows([[1], [2]])); // 2×1
+ * multiply(identity(2), fromRows([[1], [2]])); // { rows: 2, cols: 1, … }
  * ```
  * @category Complex core
  */

@@ -196,7 +196,7 @@ function aberth(c: Float64Array, d: number, maxIterations: number): Float64Array
  * @throws {@link ConvergenceError} if the iteration does not converge within the budget.
  * @example
  * ```ts
- * polynomialRoots(columnVector([1, 0, 1])); // roots −j and +j (z² + 1)
+ * polynomialRoots(columnVector([1, 0, 1])); // ≈ [−1.000000j, 1.000000j]ᵀ (z² + 1)
  * ```
  * @category Complex core
  */
@@ -266,7 +266,7 @@ export function polynomialRoots(coefficients: CMatrix, options: PolynomialRootsO
  * @throws {@link DimensionError} if `roots` is not a column vector; {@link DomainError} on NaN/±Infinity.
  * @example
  * ```ts
- * polynomialFromRoots(columnVector([1, -1])); // [1, 0, −1]ᵀ: z² − 1
+ * polynomialFromRoots(columnVector([1, -1])); // [1, 0, −1]ᵀ (z² − 1)
  * ```
  * @category Complex core
  */

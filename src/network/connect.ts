@@ -248,7 +248,10 @@ function loadReflection(name: string, load: PortLoad, refRe: number, refIm: numb
  *   index) where the terminated network has no solution.
  * @example
  * ```ts
- * const oneport = terminatePorts(twoPort, [1], [50]); // input reflection with a 50 Ω load
+ * // a 100 Ω series resistor as a two-port: Z = [[Z₁ + R, Z₁], [Z₁, Z₁]] with a 1e9 Ω shunt Z₁ (nearly open)
+ * const twoPort = createMultiport('impedance', [1e9], [fromRows([[1e9 + 100, 1e9], [1e9, 1e9]])]);
+ * const oneport = terminatePorts(twoPort, [1], [50]); // input with a 50 Ω load: 150 Ω, Γ = 0.5
+ * oneport.data; // ≈ [0.5000, 0]
  * ```
  * @category Network
  */

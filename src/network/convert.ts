@@ -258,7 +258,7 @@ const ALL_FORMS: readonly MultiportForm[] = ['impedance', 'admittance', 'scatter
  * @example
  * ```ts
  * const s = convertMultiport(createMultiport('impedance', [1e9], [fromRows([[75]])]), 'scattering');
- * // S11 = (75 − 50)/(75 + 50) = 0.2
+ * multiportMatrix(s, 0); // ≈ [0.2000] (S11 = (75 − 50)/(75 + 50))
  * ```
  * @category Network
  */

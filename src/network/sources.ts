@@ -191,8 +191,9 @@ export function mismatchFactor(sourceOhm: ComplexLike, loadOhm: ComplexLike): nu
  * @throws {@link DimensionError} on a wrong number of rows; {@link DomainError} if some aₙ = 0.
  * @example
  * ```ts
- * // two scan excitations of a 2-port in one call: rows = frequencies × excitations
- * activeReflection(net, fromRows([[1, 1], [1, -1]])).rows; // net.frequencyHz.length * 2
+ * // two scan excitations of a 2-port at one frequency in one call: rows = frequencies × excitations
+ * const net = createMultiport('scattering', [1e9], [fromRows([[0.1, 0.2], [0.2, 0.1]])]);
+ * activeReflection(net, fromRows([[1, 1], [1, -1]])).rows; // 2
  * ```
  * @category Network
  */

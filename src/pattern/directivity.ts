@@ -62,9 +62,9 @@ export interface DirectivityOptions {
  * @throws {@link DimensionError} / {@link DomainError} for bad inputs.
  * @example
  * ```ts
- * const layout = uniformLineLayout(10, 0.05); // λ/2 at 3 GHz
- * const w = steeringVector(layout, [0, 0, 1], 3e9);
- * directivity(layout, w, [0, 0, 1], 3e9).directivity; // 10.000000000 (= N for λ/2 broadside)
+ * const layout = uniformLineLayout(10, 0.05); // λ/2 at 2.998 GHz
+ * const w = steeringVector(layout, [0, 0, 1], 2.99792458e9);
+ * directivity(layout, w, [0, 0, 1], 2.99792458e9).directivity; // 10.000000000 (= N for λ/2 broadside)
  * ```
  * @category Pattern
  */

@@ -43,7 +43,9 @@ export interface GratingLobe {
  * @example
  * ```ts
  * // square lattice, d = 0.6λ at 3 GHz, scanned to u₀ = 0.5: one lobe at u = 0.5 − 1/0.6 = −1.1667 → invisible
- * gratingLobes([0.06, 0], [0, 0.06], 2.99792458e9, 0.5, 0); // [] … at 0.7: [{ orderP: -1, u: -0.9667, … }]
+ * gratingLobes([0.06, 0], [0, 0.06], 2.99792458e9, 0.5, 0); // []
+ * // scanned to u₀ = 0.7 the lobe at u = 0.7 − 1/0.6 is visible:
+ * gratingLobes([0.06, 0], [0, 0.06], 2.99792458e9, 0.7, 0); // [{ orderP: -1, u: -0.9667, … }]
  * ```
  * @category Pattern
  */

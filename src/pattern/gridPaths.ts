@@ -129,7 +129,9 @@ function plan(size: number): FFT {
  * @example
  * ```ts
  * // 32×32 grid at λ/2 onto a 256×256 grid covering u, v ∈ [−1, 1)
+ * const w = columnVector(new Array(1024).fill(1)); // uniform weights
  * const r = fftGridArrayFactor({ countX: 32, countY: 32, spacingXM: 0.05, spacingYM: 0.05 }, w, 2.99792458e9, 256);
+ * r.uValues.length; // 256
  * ```
  * @category Pattern
  */

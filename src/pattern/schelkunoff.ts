@@ -43,7 +43,7 @@ function coefficientsFromWeights(weights: CMatrix, beta: number): CMatrix {
  * @throws {@link DimensionError} for fewer than two weights; {@link DomainError} for non-finite input or w_{N−1} = 0.
  * @example
  * ```ts
- * schelkunoffZeros(columnVector([1, 1, 1, 1])); // exp(±jπ/2), −1: the 4th roots of unity except 1
+ * schelkunoffZeros(columnVector([1, 1, 1, 1])); // ≈ [−1.000000j, 1.000000j, −1.000000] (4th roots of unity but 1)
  * ```
  * @category Pattern
  */

@@ -24,7 +24,7 @@ import { assertDirections, assertUnitVector } from '../geometry/directions.js';
  * @throws {@link DomainError} if |r̂| ≠ 1 or the frequency is not positive.
  * @example
  * ```ts
- * steeringVector(uniformLineLayout(2, 0.05), [1, 0, 0], 2.99792458e9); // [exp(−jπ/2), exp(+jπ/2)]
+ * steeringVector(uniformLineLayout(2, 0.05), [1, 0, 0], 2.99792458e9); // ≈ [−1.000000j, 1.000000j]ᵀ (exp(∓jπ/2))
  * ```
  * @category Pattern
  */

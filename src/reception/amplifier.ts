@@ -57,7 +57,7 @@ export function parseAmplifier(name: string, a: NoiseParametersInput): ParsedAmp
  * T_min + T0 R_n |Y_s − Y_opt|² / Re Y_s with Y_s = 1/Z_A (tested at random
  * points). References: K. F. Warnick, B. Woestenburg, L. Belostotski,
  * P. Russer, IEEE Trans. Antennas Propag. 57(7), 2009; K. F. Warnick et al.,
- * IEEE Trans. Antennas Propag. 58(7), 2010 (from memory).
+ * IEEE Trans. Antennas Propag. 58(6), 2010 (from memory).
  * @param impedanceOhm - Array impedance matrix Z_A [Ω], N×N.
  * @param amplifiers - One set of noise parameters per port, or one set shared by all ports.
  * @param bandwidthHz - Bandwidth B [Hz], > 0.

@@ -182,7 +182,7 @@ export function brightnessCorrelations(
  * @returns N×N Hermitian matrix [V²].
  * @throws {@link DimensionError} / {@link DomainError} as {@link brightnessCorrelations}.
  * @example
- * ```ts
+ * ```ts fragment
  * const rSky = brightnessCorrelation(source, quad, skyAndGroundBrightness({ skyK: 10, groundK: 290 }), 1e6);
  * ```
  * @category Reception

@@ -87,7 +87,7 @@ const PEAK_MATRICES = 22;
  * @example
  * ```ts
  * const c = evaluationCost({ portCount: 1200, directionCount: 20000, beamCount: 25 });
- * c.peakBytes; // ≈ 5.1e8
+ * c.peakBytes; // 5.18e8
  * ```
  * @category Reception
  */

@@ -167,7 +167,7 @@ function toQuadrature(q: SphereQuadrature | QuadratureDirections): QuadratureDir
  *   negative temperatures, non-physical amplifiers and bad options; {@link NotPositiveDefiniteError}
  *   if the total noise is not positive definite when max-SNR weights are requested.
  * @example
- * ```ts
+ * ```ts fragment
  * const result = evaluateReceivingArray({
  *   ports: { patterns: source, impedanceOhm: z },
  *   quadrature: sphereQuadrature(32, 64),

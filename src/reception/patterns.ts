@@ -238,7 +238,8 @@ export function samplePatterns(source: PortPatternSource, thetaRad: Float64Array
  * @throws {@link DimensionError} if the rule's arrays are inconsistent.
  * @example
  * ```ts
- * const q = quadratureDirections(sphereQuadrature(8, 16)); // 128 directions, Σ weightSr = 4π
+ * const q = quadratureDirections(sphereQuadrature(8, 16));
+ * q.weightSr.length, q.weightSr.reduce((a, b) => a + b); // 128, 12.566371 (4π)
  * ```
  * @category Reception
  */

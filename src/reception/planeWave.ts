@@ -146,7 +146,11 @@ export function receptionScale(frequencyHz: number, driveCurrentA: number): numb
  * @throws {@link DimensionError} / {@link DomainError} for malformed patterns or polarization.
  * @example
  * ```ts
+ * // a half-wave dipole along x at λ = 1 m, a 1 mV/m wave from zenith polarised along x:
+ * const { patterns: source } = dipoleArrayPorts([{ centerM: [0, 0, 0], axis: [1, 0, 0], lengthM: 0.5, radiusM: 1e-5 }], 299792458);
+ * const patterns = samplePatterns(source, Float64Array.of(0), Float64Array.of(0));
  * const v = openCircuitVoltages(patterns, { kind: 'ludwig3', coVPerM: 1e-3, crossVPerM: 0 });
+ * Math.hypot(v.data[0], v.data[1]); // ≈ 3.183e-4 V (|E|·λ/π, the half-wave dipole's effective length)
  * ```
  * @category Reception
  */

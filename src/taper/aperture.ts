@@ -177,7 +177,8 @@ export function sampleRadialDistribution(
  * @throws {@link DomainError} if the distribution returns a non-finite value or only zeros.
  * @example
  * ```ts
- * samplePlanarDistribution((x, y) => Math.exp(-(x * x + y * y) / 0.1), layout); // Gaussian taper
+ * const layout = rectangularGridLayout({ countX: 2, countY: 1, spacingXM: 0.2, spacingYM: 0.2 }); // x = ±0.1 m
+ * samplePlanarDistribution((x, y) => Math.exp(-(x * x + y * y) / 0.1), layout); // Float64Array [1, 1] (peak-normalised)
  * ```
  * @category Tapers
  */

@@ -220,7 +220,8 @@ export function baylissLineSource(sllDb: number, nbar: number): BaylissLineSourc
  * @throws {@link ConvergenceError} if the zero placement does not converge.
  * @example
  * ```ts
- * const { weights } = baylissTaper(32, 30, 5); // antisymmetric, Σ wₙ = 0
+ * const { weights } = baylissTaper(32, 30, 5); // antisymmetric:
+ * weights.reduce((a, b) => a + b); // ≈ 0.000000
  * ```
  * @category Tapers
  */

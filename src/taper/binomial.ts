@@ -23,7 +23,7 @@ import { assertElementCount, normalizeTaper, type TaperOptions } from './normali
  * @throws {@link DomainError} if N is not an integer ≥ 1.
  * @example
  * ```ts
- * binomialTaper(5, { normalization: 'sum' }); // [1, 4, 6, 4, 1] · 5/16
+ * binomialTaper(5, { normalization: 'sum' }); // Float64Array [0.3125, 1.25, 1.875, 1.25, 0.3125] (= [1, 4, 6, 4, 1]·5/16)
  * ```
  * @category Tapers
  */

@@ -37,7 +37,7 @@ import { assertElementCount, assertSidelobeLevel, normalizeTaper, type TaperOpti
  * @throws {@link DomainError} if N is not an integer ≥ 2 or `sllDb` is not in (0, 200].
  * @example
  * ```ts
- * dolphChebyshevTaper(5, 20); // [0.5756, 0.7638, 1, 0.7638, 0.5756] (approx.)
+ * dolphChebyshevTaper(5, 20); // ≈ [0.5176, 0.8326, 1, 0.8326, 0.5176] (scipy.signal.windows.chebwin(5, 20))
  * ```
  * @category Tapers
  */

@@ -58,7 +58,7 @@ export function cosineSquaredDistribution(pedestal = 0): LineDistribution {
  * @throws {@link DomainError} if N is not an integer ≥ 1 or q is outside [0, 1].
  * @example
  * ```ts
- * cosineTaper(4, 0.2); // symmetric, peak 1 in the middle pair
+ * cosineTaper(4, 0.2); // ≈ [0.5390, 1, 1, 0.5390] (0.2 + 0.8 cos πp at p = ±1/8, ±3/8, peak-normalised)
  * ```
  * @category Tapers
  */

@@ -54,7 +54,7 @@ export function weightSums(name: string, w: TaperWeights): { re: number; im: num
  * @throws {@link DimensionError} if a complex `w` is not a column vector.
  * @example
  * ```ts
- * taperEfficiency(Float64Array.of(1, 2, 1)); // 16 / 18 = 0.888…
+ * taperEfficiency(Float64Array.of(1, 2, 1)); // 0.888… (= 16/18)
  * ```
  * @category Tapers
  */

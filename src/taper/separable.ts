@@ -25,7 +25,7 @@ import { normalizeTaper, type TaperOptions } from './normalize.js';
  * @throws {@link DomainError} if a weight is not finite or all products are zero.
  * @example
  * ```ts
- * separableTaper(taylorTaper(16, 30, 5).weights, dolphChebyshevTaper(8, 25)); // 128 weights
+ * separableTaper(taylorTaper(16, 30, 5).weights, dolphChebyshevTaper(8, 25)).length; // 128
  * ```
  * @category Tapers
  */

@@ -13,7 +13,12 @@ import { sincPi, type TaperWarning } from './warning.js';
  * @category Tapers
  */
 export interface TaylorLineSourceDesign {
-  /** Aperture distribution g(p), p ∈ [−½, ½], g(0) = 1 [dimensionless]. */
+  /**
+   * Aperture distribution g(p) = 1 + 2 Σ Fₘ cos(2πmp), p ∈ [−½, ½] [dimensionless], in Taylor's
+   * normalisation F₀ = 1: its mean ∫g dp is 1 (the pattern at u = 0 is 1), so its centre value is
+   * g(0) = 1 + 2 ΣFₘ, not 1. Divide by g(0) for a unit peak (the sampled `weights` are normalised
+   * by their options instead).
+   */
   readonly distribution: LineDistribution;
   /** Taylor's A = arccosh(R)/π, R = 10^(sllDb/20) [dimensionless]. */
   readonly a: number;

@@ -270,6 +270,9 @@ describe('playground page in chromium', () => {
     const tsys = await figure(page, 'sens-tsys'), aet = await figure(page, 'sens-aet');
     expect(Math.abs(tsys - r.systemTemperatureK) / r.systemTemperatureK).toBeLessThan(1e-9);
     expect(Math.abs(aet - r.sensitivityM2PerK) / r.sensitivityM2PerK).toBeLessThan(1e-9);
+    // G/T = (4π/λ²)·A_e/T_sys and SEFD = 2k_B/(A_e/T_sys) (IEEE Std 145-2013; Thompson, Moran & Swenson 2017; from memory).
+    expect(await figure(page, 'sens-gt')).toBeCloseTo(10 * Math.log10(((4 * Math.PI) / (lambda * lambda)) * r.sensitivityM2PerK), 9);
+    expect((await figure(page, 'sens-sefd')) / ((2 * 1.380649e-23) / r.sensitivityM2PerK / 1e-26)).toBeCloseTo(1, 9);
     // Identity: T_sys is the sum of its parts (Warnick et al., IEEE TAP 58(6), 2010, from memory).
     const parts = (await figure(page, 'sens-tsky')) + (await figure(page, 'sens-tspill')) + (await figure(page, 'sens-trec'));
     expect(parts).toBeCloseTo(tsys, 8);

@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { XMLValidator } from 'fast-xml-parser';
 import { runCli } from '../../src/cli/main.js';
-import { parseDesign } from '../../src/cli/design/schema.js';
+import { parseDesign } from '../../src/design/schema.js';
 import {
   dipoleArrayPorts, evaluateReceivingArray, patternSetPorts, skyAndGroundEnvironment,
 } from '../../src/reception/index.js';
@@ -64,6 +64,7 @@ beforeAll(() => {
   writeTouchstoneFile(join(dir, 'array.s4p'), convertMultiport(net, 'scattering'));
   writeFileSync(join(dir, 'garbage.s4p'), 'this is not a touchstone file\n1 2 3\n');
   writeFileSync(join(dir, 'garbage.json'), '{"frequencyHz": "x"}');
+  writeFileSync(join(dir, 'lna-no-noise.s2p'), '# GHz S RI R 50\n1.4 0.1 0 5 0 0.01 0 0.2 0\n1.6 0.1 0 5 0 0.01 0 0.2 0\n');
   const set3 = dipoleEmbeddedPatterns(dipoles().slice(0, 3), F, th, ph, { groundPlane: { zM: 0 } });
   writePatternFile(join(dir, 'patterns3.json'), set3);
   const set2 = dipoleEmbeddedPatterns(dipoles(), 2 * F, th, ph, { groundPlane: { zM: 0 } });
@@ -102,23 +103,24 @@ describe('phasewise evaluate: a valid design', () => {
       beams: directBeams,
       physicalAreaM2: 4 * D * D,
     });
-    expect(j.beams).toHaveLength(3);
+    const fr = j.frequencies[0];
+    expect(fr.beams).toHaveLength(3);
+    expect(j.beams.scanAngleDeg).toEqual([-30, 0, 30]);
     for (let k = 0; k < 3; k++) {
-      const { scanAngleDeg, thetaDeg, phiDeg, ...figs } = j.beams[k];
+      const { gainOverTemperatureDbPerK, sefdJy, ...figs } = fr.beams[k];
       expect(figs).toEqual({ ...direct.beams[k] });
-      expect(scanAngleDeg).toBe([-30, 0, 30][k]);
+      // G/T and SEFD from A_e/T_sys by their definitions (IEEE Std 145-2013; Thompson, Moran & Swenson 2017, from memory).
+      expect(gainOverTemperatureDbPerK).toBeCloseTo(10 * Math.log10(direct.beams[k].gain / direct.beams[k].systemTemperatureK), 10);
+      expect(sefdJy).toBeCloseTo((2 * 1.380649e-23 * direct.beams[k].systemTemperatureK) / direct.beams[k].effectiveAreaM2 / 1e-26, 6);
     }
-    expect(j.array.minimumReceiverTemperatureK).toBe(direct.minimumReceiverTemperatureK);
-    expect(j.array.embeddedElementEfficiency).toEqual(Array.from(direct.embeddedElementEfficiency));
-    expect(j.units.systemTemperatureK).toBe('K');
-    expect(j.figures.systemTemperature.traces[0].y).toEqual(direct.beams.map((b) => b.systemTemperatureK));
+    expect(fr.minimumReceiverTemperatureK).toBe(direct.minimumReceiverTemperatureK);
+    expect(fr.embeddedElementEfficiency).toEqual(Array.from(direct.embeddedElementEfficiency));
     // Symmetric array: the ±30° beams agree (a physical check of the scan-plane directions).
-    expect(j.beams[0].systemTemperatureK).toBeCloseTo(j.beams[2].systemTemperatureK, 9);
+    expect(fr.beams[0].systemTemperatureK).toBeCloseTo(fr.beams[2].systemTemperatureK, 9);
     // Broadside pattern cut peaks at 0° and is 0 dB at its own normalisation maximum.
-    const cut = j.figures.patternCut;
-    const mid = cut.traces.find((t: any) => t.scanAngleDeg === 0);
+    const mid = fr.patternCuts.find((t: any) => t.beam === 1);
     const iMax = mid.valueDb.indexOf(Math.max(...mid.valueDb));
-    expect(cut.angleDeg[iMax]).toBe(0);
+    expect(fr.cutAngleDeg[iMax]).toBe(0);
     for (const f of readdirSync(out).filter((x) => x.endsWith('.svg'))) {
       expect(XMLValidator.validate(readFileSync(join(out, f), 'utf8')), f).toBe(true);
     }
@@ -129,19 +131,21 @@ describe('phasewise evaluate: a valid design', () => {
   });
 
   it('progress bar on stderr only when stderr is a terminal, and --no-progress silences it', async () => {
-    const file = writeDesign('progress.json', baseDesign());
+    const pd = baseDesign();
+    pd.frequencyHz = [0.98 * F, F, 1.01 * F];
+    const file = writeDesign('progress.json', pd);
     const writes: string[] = [];
     const spy = vi.spyOn(process.stderr, 'write').mockImplementation((chunk: any) => { writes.push(String(chunk)); return true; });
     const tty = Object.getOwnPropertyDescriptor(process.stderr, 'isTTY');
     try {
       Object.defineProperty(process.stderr, 'isTTY', { value: false, configurable: true });
       expect((await run(['evaluate', file, '--out', join(dir, 'report-p1')])).code).toBe(0);
-      expect(writes.join('')).not.toContain('scan sweep');
+      expect(writes.join('')).not.toContain('frequencies');
       Object.defineProperty(process.stderr, 'isTTY', { value: true, configurable: true });
       expect((await run(['evaluate', file, '--out', join(dir, 'report-p2'), '--no-progress'])).code).toBe(0);
-      expect(writes.join('')).not.toContain('scan sweep');
+      expect(writes.join('')).not.toContain('frequencies');
       expect((await run(['evaluate', file, '--out', join(dir, 'report-p3')])).code).toBe(0);
-      expect(writes.join('')).toContain('3/3 beams');
+      expect(writes.join('')).toContain('3/3 frequencies');
     } finally {
       spy.mockRestore();
       if (tty) Object.defineProperty(process.stderr, 'isTTY', tty); else delete (process.stderr as { isTTY?: boolean }).isTTY;
@@ -153,9 +157,9 @@ describe('phasewise evaluate: a valid design', () => {
     const z = dipoleArrayPorts(dipoles(), F, { groundPlane: { zM: 0 } }).impedanceOhm;
     const i4 = identity(4);
     const s = solve(add(z, scale(i4, 50)), subtract(z, scale(i4, 50))); // (Z+50)⁻¹(Z−50) = (Z−50)(Z+50)⁻¹ (they commute)
-    const ar = j.figures.activeReflection;
+    const ar = { traces: j.frequencies[0].activeReflection };
     const x = uniformLineLayout(4, D).positionsM;
-    for (const [k, ang] of ar.scanAngleDeg.entries()) {
+    for (const [k, ang] of (j.beams.scanAngleDeg as number[]).entries()) {
       const u = Math.sin((ang * Math.PI) / 180);
       const c = Array.from({ length: 4 }, (_, m) => ({ re: Math.cos(-2 * Math.PI / LAMBDA * u * x[3 * m]), im: Math.sin(-2 * Math.PI / LAMBDA * u * x[3 * m]) }));
       for (const t of ar.traces) {
@@ -189,7 +193,7 @@ describe('phasewise evaluate: a valid design', () => {
       const j = JSON.parse(readFileSync(join(out, 'figures.json'), 'utf8'));
       expect(j.elementCount).toBe(count);
       expect(existsSync(join(out, 'grating-lobes.svg'))).toBe(lattice);
-      expect(j.beams.map((b: any) => b.scanAngleDeg)).toEqual([0, 20]);
+      expect(j.beams.scanAngleDeg).toEqual([0, 20]);
     }
   });
 
@@ -207,12 +211,13 @@ describe('phasewise evaluate: a valid design', () => {
     const c = JSON.parse(readFileSync(join(dir, 'report-cf', 'figures.json'), 'utf8'));
     const t = JSON.parse(readFileSync(join(dir, 'report-tp', 'figures.json'), 'utf8'));
     // Max-SNR maximises A_e/T_sys among all weights (Rayleigh quotient): no other beamformer beats it.
+    const [m0, c0, t0] = [ms, c, t].map((x) => x.frequencies[0].beams);
     for (let k = 0; k < 3; k++) {
-      expect(ms.beams[k].sensitivityM2PerK).toBeGreaterThanOrEqual(c.beams[k].sensitivityM2PerK * (1 - 1e-12));
-      expect(ms.beams[k].sensitivityM2PerK).toBeGreaterThanOrEqual(t.beams[k].sensitivityM2PerK * (1 - 1e-12));
+      expect(m0[k].sensitivityM2PerK).toBeGreaterThanOrEqual(c0[k].sensitivityM2PerK * (1 - 1e-12));
+      expect(m0[k].sensitivityM2PerK).toBeGreaterThanOrEqual(t0[k].sensitivityM2PerK * (1 - 1e-12));
     }
     // A taper lowers the aperture efficiency of a phase-steered beam at broadside (taper efficiency < 1).
-    expect(t.beams[1].apertureEfficiency).toBeLessThan(c.beams[1].apertureEfficiency);
+    expect(t0[1].apertureEfficiency).toBeLessThan(c0[1].apertureEfficiency);
   });
 
   it('imported Touchstone + pattern files give the library result of patternSetPorts', async () => {
@@ -235,12 +240,12 @@ describe('phasewise evaluate: a valid design', () => {
       physicalTemperatureK: 290, loss: 'fromPatterns', beams: directBeams, physicalAreaM2: 4 * D * D,
     });
     for (let k = 0; k < 3; k++) {
-      const { scanAngleDeg, thetaDeg, phiDeg, ...figs } = j.beams[k];
+      const { gainOverTemperatureDbPerK, sefdJy, ...figs } = j.frequencies[0].beams[k];
       expect(figs).toEqual({ ...direct.beams[k] });
     }
     // Interpolated imported data of the same dipoles agree with the analytic evaluation to a few per cent.
     const analytic = JSON.parse(readFileSync(join(dir, 'report-ok', 'figures.json'), 'utf8'));
-    expect(Math.abs(j.beams[1].systemTemperatureK / analytic.beams[1].systemTemperatureK - 1)).toBeLessThan(0.05);
+    expect(Math.abs(j.frequencies[0].beams[1].systemTemperatureK / analytic.frequencies[0].beams[1].systemTemperatureK - 1)).toBeLessThan(0.05);
   });
 });
 
@@ -295,8 +300,21 @@ const MALFORMED: Mutation[] = [
   ['malformed pattern file', (d) => { d.elements = { kind: 'imported', touchstoneFile: 'array.s4p', patternFile: 'garbage.json' }; }, 'elements.patternFile'],
   ['pattern file with 3 ports for a 4-port Touchstone file', (d) => { d.elements = { kind: 'imported', touchstoneFile: 'array.s4p', patternFile: 'patterns3.json' }; }, 'elements.patternFile'],
   ['layout count differing from the imported ports', (d) => { d.layout.count = 5; d.elements = { kind: 'imported', touchstoneFile: 'array.s4p', patternFile: 'patterns.json' }; }, 'layout'],
-  ['pattern file at another frequency', (d) => { d.elements = { kind: 'imported', touchstoneFile: 'array.s4p', patternFile: 'patterns-2f.json' }; }, 'frequencyHz'],
-  ['frequency outside the Touchstone range', (d) => { d.frequencyHz = 2 * F; d.elements = { kind: 'imported', touchstoneFile: 'array.s4p', patternFile: 'patterns-2f.json' }; }, 'frequencyHz'],
+  ['pattern file at another frequency', (d) => { d.elements = { kind: 'imported', touchstoneFile: 'array.s4p', patternFile: 'patterns-2f.json' }; }, 'elements.patternFile'],
+  ['frequency outside the Touchstone range', (d) => { d.frequencyHz = 2 * F; d.elements = { kind: 'imported', touchstoneFile: 'array.s4p', patternFile: 'patterns-2f.json' }; }, 'elements.touchstoneFile'],
+  ['band reaching past the Touchstone data', (d) => { d.frequencyHz = { fromHz: F, toHz: 1.05 * F, count: 3 }; d.elements = { kind: 'imported', touchstoneFile: 'array.s4p', patternFile: 'patterns.json' }; }, 'elements.touchstoneFile'],
+  ['band point without pattern data', (d) => { d.frequencyHz = [0.995 * F, F]; d.elements = { kind: 'imported', touchstoneFile: 'array.s4p', patternFile: ['patterns.json'] }; }, 'elements.patternFile'],
+  ['frequency list not increasing', (d) => { d.frequencyHz = [F, 0.9 * F]; }, 'frequencyHz[1]'],
+  ['frequency range with toHz below fromHz', (d) => { d.frequencyHz = { fromHz: F, toHz: 0.9 * F, count: 3 }; }, 'frequencyHz.toHz'],
+  ['noise table with one row', (d) => { d.amplifiers = { table: { frequencyHz: [F], minimumNoiseTemperatureK: [35], noiseResistanceOhm: [5], optimumSourceAdmittanceS: [0.02] } }; }, 'amplifiers.table.frequencyHz'],
+  ['noise table not covering the band', (d) => { d.amplifiers = { table: { frequencyHz: [1.1 * F, 1.2 * F], minimumNoiseTemperatureK: [35, 36], noiseResistanceOhm: [5, 5], optimumSourceAdmittanceS: [0.02, 0.02] } }; }, 'amplifiers.table.frequencyHz'],
+  ['noise table columns of different lengths', (d) => { d.amplifiers = { table: { frequencyHz: [0.9 * F, 1.1 * F], minimumNoiseTemperatureK: [35], noiseResistanceOhm: [5, 5], optimumSourceAdmittanceS: [0.02, 0.02] } }; }, 'amplifiers.table.minimumNoiseTemperatureK'],
+  ['two-port Touchstone without a noise block', (d) => { d.amplifiers = { touchstoneFile: 'lna-no-noise.s2p' }; }, 'amplifiers.touchstoneFile'],
+  ['second stage without LNA gain', (d) => { d.amplifiers.secondStageTemperatureK = 300; }, 'amplifiers.gainDb'],
+  ['beams given twice', (d) => { d.beams.cone = { maxThetaDeg: 30, stepUV: 0.2 }; }, 'beams.cone'],
+  ['cone step of zero', (d) => { delete d.beams.thetaDeg; delete d.beams.planePhiDeg; d.beams.cone = { maxThetaDeg: 30, stepUV: 0 }; }, 'beams.cone.stepUV'],
+  ['pointing beyond 90°', (d) => { delete d.beams.thetaDeg; delete d.beams.planePhiDeg; d.beams.pointings = [{ thetaDeg: 95, phiDeg: 0 }]; }, 'beams.pointings[0].thetaDeg'],
+  ['negative sky reference temperature', (d) => { d.environment.skyK = { referenceK: -1, referenceHz: 1e9 }; }, 'environment.skyK'],
   ['pattern file not covering the sphere the noise integral needs', (d) => { d.elements = { kind: 'imported', touchstoneFile: 'array.s4p', patternFile: 'patterns-upper.json' }; }, 'elements.patternFile'],
 ];
 
@@ -319,7 +337,7 @@ describe('phasewise evaluate: malformed design files exit 2 naming the field', (
     const d = baseDesign();
     d.frequencyHz = '2.25 GHz';
     const r = await run(['evaluate', writeDesign('msg.json', d), '--out', join(dir, 'x')]);
-    expect(r.err).toContain('field "frequencyHz": expected number, received the string "2.25 GHz"');
+    expect(r.err).toContain('field "frequencyHz": expected a frequency [Hz], a list of frequencies [Hz] or {"fromHz", "toHz", "count"}, received the string "2.25 GHz"');
     const e = await run(['evaluate', join(dir, 'does-not-exist.json'), '--out', join(dir, 'x')]);
     expect(e.code).toBe(2);
     expect(e.err).toContain('cannot read the design file');
@@ -349,12 +367,13 @@ describe('phasewise demo', () => {
     for (const f of files.filter((x) => x.endsWith('.svg'))) expect(XMLValidator.validate(readFileSync(join(out, f), 'utf8')), f).toBe(true);
     const j = JSON.parse(readFileSync(join(out, 'figures.json'), 'utf8'));
     expect(j.elementCount).toBe(61);
-    expect(j.beams.map((b: any) => b.scanAngleDeg)[0]).toBe(-40);
-    expect(j.beams.at(-1).scanAngleDeg).toBe(40);
+    expect(j.beams.scanAngleDeg[0]).toBe(-40);
+    expect(j.beams.scanAngleDeg.at(-1)).toBe(40);
     // A symmetric hexagonal array scanned in a symmetry plane: T_sys(−θ) = T_sys(θ).
-    expect(j.beams[0].systemTemperatureK).toBeCloseTo(j.beams.at(-1).systemTemperatureK, 8);
+    const b = j.frequencies[0].beams;
+    expect(b[0].systemTemperatureK).toBeCloseTo(b.at(-1).systemTemperatureK, 8);
     // Grating-lobe diagram: 0.6 λ triangular lattice, the nearest grating circle centre lies 1/(0.6·sin 60°) from the origin.
-    const c = j.figures.gratingLobes.circles[0];
+    const c = j.gratingLobes.circles[0];
     expect(Math.hypot(c.u, c.v)).toBeCloseTo(1 / (0.6 * Math.sin(Math.PI / 3)), 3);
     // The README's figure is this run's pattern cut, byte for byte (regenerate with `npm run docs:figures`).
     expect(readFileSync(join(out, 'pattern-cut.svg'), 'utf8')).toBe(readFileSync(join(__dirname, '../../docs/figures/demo-pattern.svg'), 'utf8'));

@@ -1,82 +1,75 @@
 /**
- * Runs every ```ts block of the README and of every guide in docs/ (imports of 'phasewise',
- * 'phasewise/plot' and 'phasewise/node' point at the sources); for the getting-started guide it
- * also checks the numbers the text quotes.
+ * Examples are tests: every ```ts block under an `@example` tag in src/ and every ```ts block
+ * of README.md and docs/*.md runs here (imports of 'phasewise', 'phasewise/plot' and
+ * 'phasewise/node' point at the sources), and every value a comment states after a call is
+ * compared with the computed one to the digits stated (test/docs/stated.ts). Blocks marked
+ * ```ts fragment are shown, not run. Rules: DEVELOPERS.md, "Examples are tests".
  */
-import { describe, it, expect, vi } from 'vitest';
-import { mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { dirname, join, resolve } from 'node:path';
-import { fileURLToPath, pathToFileURL } from 'node:url';
+import { afterAll, describe, it, expect } from 'vitest';
+import { readdirSync } from 'node:fs';
+import { join } from 'node:path';
+import { instrument, markdownExamples, root, runExample, tsdocExamples, verify, type Example } from './doctest.js';
 
-const root = resolve(dirname(fileURLToPath(import.meta.url)), '../..');
+const tally = { run: 0, fragments: 0, stated: 0 };
+afterAll(() => {
+  process.stdout.write(`doc examples: ${tally.run} executed, ${tally.fragments} marked fragment (not run), ${tally.stated} stated values checked\n`);
+});
 
-function blocks(file: string): string[] {
-  const text = readFileSync(join(root, file), 'utf8');
-  return [...text.matchAll(/```ts\n([\s\S]*?)```/g)].map((m) => m[1]);
-}
-
-const ENTRIES = [['phasewise', 'index.ts'], ['phasewise/plot', 'plot/index.ts'], ['phasewise/node', 'node.ts']] as const;
-const srcUrl = (p: string) => pathToFileURL(join(root, 'src', p)).href;
-
-/**
- * Makes a guide's code a module: named imports from the package are gathered into one import
- * per entry point (guides often show fragments without imports, or repeat them per block);
- * namespace imports are pointed at the sources.
- */
-async function asModule(code: string): Promise<string> {
-  let body = code.replace(/import\s+(type\s+)?\{[\s\S]*?\}\s+from\s+'phasewise(\/plot|\/node)?';?\n?/g, '');
-  for (const [spec, file] of ENTRIES) body = body.split(`from '${spec}'`).join(`from '${srcUrl(file)}'`);
-  const taken = new Set<string>();
-  const imports: string[] = [];
-  for (const [, file] of ENTRIES) {
-    const mod = await import(srcUrl(file));
-    const names = Object.keys(mod).filter((k) => !taken.has(k) && new RegExp(`(?<![\\w.$])${k.replace(/\$/g, '\\$')}(?![\\w$])`).test(body));
-    names.forEach((k) => taken.add(k));
-    if (names.length > 0) imports.push(`import { ${names.join(', ')} } from '${srcUrl(file)}';`);
-  }
-  return imports.join('\n') + '\n' + body;
-}
-
-async function runSnippet(code: string, name: string): Promise<string[]> {
-  const dir = join(root, 'node_modules', '.cache', 'phasewise-snippets');
-  mkdirSync(dir, { recursive: true });
-  const file = join(dir, `${name}-${process.pid}.ts`);
-  writeFileSync(file, await asModule(code));
+async function runChecked(code: string, where: string, name: string): Promise<string[]> {
+  const ins = instrument(code, where);
+  expect(ins.problems).toEqual([]);
   const lines: string[] = [];
-  const spy = vi.spyOn(console, 'log').mockImplementation((...a: unknown[]) => { lines.push(a.join(' ')); });
-  try {
-    await import(pathToFileURL(file).href);
-  } finally {
-    spy.mockRestore();
-    rmSync(file, { force: true });
-  }
+  const seen = await runExample(ins.code, name, (l) => lines.push(l));
+  expect(verify(ins.checks, seen)).toEqual([]);
+  tally.stated += ins.checks.length;
   return lines;
 }
 
+describe('TSDoc @example blocks in src/', () => {
+  const examples = tsdocExamples();
+  it('there are examples, and fragments are few', () => {
+    expect(examples.length).toBeGreaterThan(50);
+    expect(examples.filter((e) => e.fragment).length).toBeLessThan(examples.length / 4);
+  });
+  const run = examples.filter((e) => !e.fragment);
+  tally.fragments += examples.length - run.length;
+  it.each(run.map((e): [string, Example] => [e.where, e]))('%s', async (where, e) => {
+    await runChecked(e.code, where, where);
+    tally.run++;
+  }, 30000);
+});
+
 describe('docs/getting-started.md', () => {
-  const b = blocks('docs/getting-started.md');
+  const b = markdownExamples('docs/getting-started.md');
   it('has the taper, plot and evaluation examples', () => expect(b.length).toBe(3));
   it('taper block prints the quoted numbers', async () => {
-    const out = await runSnippet(b[0], 'gs-taper');
+    const out = await runChecked(b[0].code, b[0].where, 'gs-taper');
+    tally.run++;
     expect(out).toEqual(['edge weight 0.2641, taper efficiency 0.8529, loss 0.691 dB']);
     // Identity: directivity loss = −10 log10(taper efficiency) (0.691 = −10 log10 0.8529 to the digits shown).
     expect(-10 * Math.log10(0.8529)).toBeCloseTo(0.691, 3);
   });
   it('plot block: Dolph–Chebyshev sidelobes at the design level (Dolph 1946)', async () => {
-    const out = await runSnippet(b[1], 'gs-plot');
+    const out = await runChecked(b[1].code, b[1].where, 'gs-plot');
+    tally.run++;
     expect(out[0]).toMatch(/highest sidelobe -30\.0 dB$/);
   });
   it('evaluation block runs and prints finite figures', async () => {
-    const out = await runSnippet(b[2], 'gs-eval');
+    const out = await runChecked(b[2].code, b[2].where, 'gs-eval');
+    tally.run++;
     expect(out).toEqual(['T_sys 46.6 K, A_e 0.0210 m², A_e/T_sys 4.501e-4 m²/K']);
   });
 });
 
 const GUIDES = ['README.md', ...readdirSync(join(root, 'docs')).filter((f) => f.endsWith('.md') && f !== 'getting-started.md').sort().map((f) => `docs/${f}`)];
 
-describe.each(GUIDES.filter((g) => blocks(g).length > 0))('%s', (guide) => {
-  it('its ts blocks run in order as one script, without NaN', async () => {
-    const out = await runSnippet(blocks(guide).join('\n'), guide.replace(/\W+/g, '-'));
+describe.each(GUIDES.filter((g) => markdownExamples(g).length > 0))('%s', (guide) => {
+  it('its ts blocks run in order as one script, without NaN, and state true values', async () => {
+    const all = markdownExamples(guide);
+    const run = all.filter((e) => !e.fragment);
+    tally.fragments += all.length - run.length;
+    const out = await runChecked(run.map((e) => e.code).join('\n'), guide, guide);
+    tally.run += run.length;
     expect(out.join('\n')).not.toMatch(/NaN/);
-  }, 30000);
+  }, 60000);
 });

@@ -54,6 +54,20 @@ describe('taylorTaper', () => {
     // Reference: scipy.signal.windows.taylor(M, nbar, sll, norm=False) / max (fixture).
     expect(maxAbsDiff(taylorTaper(n, sll, nbar).weights, expected)).toBeLessThan(1e-12);
   });
+  it('distribution is in Taylor\'s normalisation: mean 1, g(0) = 1 + 2ΣFₘ (issue 23), equal to scipy\'s unnormalised window', () => {
+    // scipy 1.17.1: scipy.signal.windows.taylor(16, 5, 30, norm=False)[:8] (cell centres p = (n − 7.5)/16).
+    const scipyRaw = [0.40116504, 0.50441108, 0.69015859, 0.91770428, 1.14136499, 1.33036802, 1.46948935, 1.54533866];
+    const d = taylorLineSource(30, 5);
+    scipyRaw.forEach((v, n) => expect(Math.abs(d.distribution((n - 7.5) / 16) - v)).toBeLessThan(1e-8));
+    const sumF = d.coefficients.reduce((a, b) => a + b, 0);
+    expect(d.distribution(0)).toBeCloseTo(1 + 2 * sumF, 14);
+    expect(Math.abs(d.distribution(0) - 1)).toBeGreaterThan(0.5);
+    // ∫_{−½}^{½} g dp = 1: the cosines integrate to zero (Simpson, 2000 panels; exact for this trigonometric sum to rounding).
+    let mean = 0;
+    const m = 2000;
+    for (let i = 0; i <= m; i++) mean += (i === 0 || i === m ? 1 : i % 2 ? 4 : 2) * d.distribution(-0.5 + i / m);
+    expect(Math.abs(mean / (3 * m) - 1)).toBeLessThan(1e-12);
+  });
   it('warns (as data) when n̄ is too large for a monotonic distribution', () => {
     // R. C. Hansen, Phased Array Antennas, 2nd ed., 2009, §3.4 (from memory): at 30 dB the
     // largest n̄ with a monotonic Taylor distribution is 7 (scipy check: n̄ = 8 rises at the edge).

@@ -37,6 +37,6 @@ export function demoDesign(): Record<string, unknown> {
 }
 
 /** Runs the demo into `outDir`. @internal */
-export function runDemo(outDir: string = DEMO_FOLDER, options: ReportRunOptions = {}): ReportRun {
+export function runDemo(outDir: string = DEMO_FOLDER, options: ReportRunOptions = {}): Promise<ReportRun> {
   return runDesignData(demoDesign(), 'demo-design.json', outDir, options);
 }

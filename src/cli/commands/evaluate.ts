@@ -1,26 +1,37 @@
 /**
- * `phasewise evaluate <design.json> --out <folder>`: evaluates a design file
- * and writes the report folder (report.html, figures.json, SVGs).
+ * `phasewise evaluate <design.json> --out <folder>` and `phasewise merge`:
+ * evaluates a design file across its band (on a worker pool, or one shard of
+ * the band) and writes the report folder (report.html, figures.json, SVGs).
+ * All physics is in the library's design module; this file reads, schedules
+ * and writes.
  * @internal
  * @module
  */
+import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
-import { basename } from 'node:path';
+import { basename, resolve } from 'node:path';
 import { SingleBar, Presets } from 'cli-progress';
-import { evaluateReceivingArray, type ReceivingArrayEvaluation } from '../../reception/index.js';
+import {
+  assembleDesignEvaluation, frequencyBlock, parseDesign, prepareDesign, validateDesign,
+  type Design, type DesignEvaluation, type FrequencyEvaluation,
+} from '../../design/index.js';
 import { UsageError } from '../errors.js';
-import { NumericError } from '../../errors.js';
 import { outputFolder } from '../output.js';
 import { num } from '../format.js';
-import { parseDesign, validateDesign, type Design } from '../design/schema.js';
-import { buildDesign, type BuiltDesign } from '../design/build.js';
-import { reportFigures, reportSvgs, type ReportFigures } from '../report/figures.js';
+import { designReader } from '../files.js';
+import { defaultWorkers, evaluateFrequencies } from '../parallel.js';
+import { reportFigureList } from '../report/figures.js';
 import { reportHtml } from '../report/html.js';
+import { VERSION } from '../../version.js';
 
 /** Options of a report run. @internal */
 export interface ReportRunOptions {
   /** Show a progress bar on stderr (only honoured when stderr is a terminal). */
   progress?: boolean;
+  /** Worker threads for the frequency blocks. @defaultValue every core */
+  workers?: number;
+  /** Evaluate only shard `index` (1-based) of `count` and write a partial result. */
+  shard?: { index: number; count: number };
 }
 
 /** Result of a report run. @internal */
@@ -29,92 +40,172 @@ export interface ReportRun {
   folder: string;
   /** Files written, plain names. */
   files: string[];
-  /** The figures (also figures.json). */
-  figures: ReportFigures;
-  /** The library inputs. */
-  built: BuiltDesign;
-  /** The library result. */
-  evaluation: ReceivingArrayEvaluation;
+  /** The band result (absent for a shard). */
+  evaluation?: DesignEvaluation;
+  /** The shard written, if any. */
+  shard?: { index: number; count: number; frequencies: number };
 }
 
-function evaluateWithProgress(built: BuiltDesign, progress: boolean): ReceivingArrayEvaluation {
-  const show = progress && process.stderr.isTTY === true;
-  if (!show) return evaluateReceivingArray(built.description);
-  const bar = new SingleBar({ stream: process.stderr, format: 'scan sweep [{bar}] {value}/{total} beams', hideCursor: true }, Presets.shades_classic);
-  let started = false;
-  try {
-    return evaluateReceivingArray({
-      ...built.description,
-      onProgress: (stage, done, total) => {
-        if (!started) { bar.start(total, 0); started = true; }
-        if (stage === 'beams') bar.update(done);
-      },
-    });
-  } finally {
-    if (started) bar.stop();
+/** The partial result of one shard (part-<i>-of-<n>.json). @internal */
+export interface ShardPart {
+  format: 'phasewise-shard';
+  version: string;
+  designHash: string;
+  designFile: string;
+  designText: string;
+  shard: { index: number; count: number };
+  frequencyIndices: number[];
+  frequencies: FrequencyEvaluation[];
+}
+
+/** Parses `i/n` of --shard (1 ≤ i ≤ n). @internal */
+export function parseShard(text: string): { index: number; count: number } {
+  const m = /^\s*(\d+)\s*\/\s*(\d+)\s*$/.exec(text);
+  const i = m ? Number(m[1]) : NaN, n = m ? Number(m[2]) : NaN;
+  if (!m || !(n >= 1) || !(i >= 1) || i > n) {
+    throw new UsageError(`option "--shard": expected i/n with 1 ≤ i ≤ n (shard i of n, counted from 1), received "${text}".`);
   }
+  return { index: i, count: n };
+}
+
+function hashDesign(design: Design): string {
+  return createHash('sha256').update(JSON.stringify(design)).digest('hex').slice(0, 16);
+}
+
+async function withProgress<T>(show: boolean, total: number, run: (tick: (done: number) => void) => Promise<T>): Promise<T> {
+  if (!show || process.stderr.isTTY !== true || total <= 1) return run(() => undefined);
+  const bar = new SingleBar({ stream: process.stderr, format: 'band [{bar}] {value}/{total} frequencies', hideCursor: true }, Presets.shades_classic);
+  bar.start(total, 0);
+  try {
+    return await run((d) => bar.update(d));
+  } finally {
+    bar.stop();
+  }
+}
+
+/** Writes the report of a band result. @internal */
+function writeReport(ev: DesignEvaluation, designText: string, out: ReturnType<typeof outputFolder>): string[] {
+  const figures = reportFigureList(ev);
+  const files: [string, string][] = figures.map((f) => [f.file, f.svg]);
+  files.push(['figures.json', JSON.stringify({ format: 'phasewise-report', version: VERSION, ...ev }, null, 1) + '\n']);
+  files.push(['report.html', reportHtml(ev, figures, designText)]);
+  return out.writeAll(files);
 }
 
 /**
- * Evaluates a validated design and writes the report.
- * @param design - Validated design.
- * @param designFile - Path of the design file (relative paths resolve from its folder; named in the report).
- * @param designText - Text of the design (copied into the report).
- * @param outDir - Report folder.
+ * Evaluates a validated design (or one shard of its band) and writes the report.
  * @internal
  */
-export function writeReport(design: Design, designFile: string, designText: string, outDir: string, options: ReportRunOptions = {}): ReportRun {
-  const built = buildDesign(design, designFile);
-  let evaluation: ReceivingArrayEvaluation;
-  try {
-    evaluation = evaluateWithProgress(built, options.progress ?? true);
-  } catch (e) {
-    // The library names its own argument; say which design it was and keep the error family (exit 2).
-    if (e instanceof NumericError) {
-      const hint = design.elements.kind === 'imported' ? ' (field "elements.patternFile": the noise integrals need embedded patterns over the whole sphere, θ from 0 to 180°)' : '';
-      throw new UsageError(`cannot evaluate design file "${designFile}": ${e.message}${hint}`);
-    }
-    throw e;
-  }
-  const figures = reportFigures(built, evaluation, basename(designFile));
-  const svgs = reportSvgs(figures);
+export async function runDesign(design: Design, designFile: string, designText: string, outDir: string, options: ReportRunOptions = {}): Promise<ReportRun> {
   const out = outputFolder(outDir);
-  const files: string[] = [];
-  for (const [name, svg] of svgs) { out.write(name, svg); files.push(name); }
-  out.write('figures.json', JSON.stringify(figures, null, 1) + '\n');
-  files.push('figures.json');
-  out.write('report.html', reportHtml(figures, svgs, designText));
-  files.push('report.html');
-  return { folder: out.path, files, figures, built, evaluation };
+  const fileName = basename(designFile);
+  const prepared = prepareDesign(design, { fileName, readFile: designReader(designFile) });
+  const count = prepared.frequenciesHz.length;
+  const shard = options.shard;
+  if (shard && shard.count > count) {
+    throw new UsageError(`option "--shard": ${shard.count} shards for a band of ${count} frequencies; use at most ${count} shards.`);
+  }
+  const indices = shard ? frequencyBlock(count, shard.count, shard.index - 1) : Array.from({ length: count }, (_, i) => i);
+  const workers = options.workers ?? defaultWorkers();
+  const task = { designData: design, designFile: resolve(designFile), fileName };
+  const results = await withProgress(options.progress ?? true, indices.length, (tick) => evaluateFrequencies(task, indices, workers, tick));
+  if (shard) {
+    const part: ShardPart = {
+      format: 'phasewise-shard', version: VERSION, designHash: hashDesign(design), designFile: resolve(designFile), designText,
+      shard, frequencyIndices: indices, frequencies: results,
+    };
+    const name = `part-${shard.index}-of-${shard.count}.json`;
+    out.writeAll([[name, JSON.stringify(part) + '\n']]);
+    return { folder: out.path, files: [name], shard: { ...shard, frequencies: indices.length } };
+  }
+  const ev = assembleDesignEvaluation(prepared, results);
+  return { folder: out.path, files: writeReport(ev, designText, out), evaluation: ev };
+}
+
+function readText(file: string, what: string): string {
+  try {
+    return readFileSync(file, 'utf8');
+  } catch (e) {
+    throw new UsageError(`cannot read the ${what} "${file}": ${(e as Error).message}`);
+  }
 }
 
 /** Reads, validates and evaluates a design file. @internal */
-export function runEvaluate(designFile: string, outDir: string, options: ReportRunOptions = {}): ReportRun {
-  let text: string;
-  try {
-    text = readFileSync(designFile, 'utf8');
-  } catch (e) {
-    throw new UsageError(`cannot read the design file "${designFile}": ${(e as Error).message}`);
-  }
-  return writeReport(parseDesign(text, designFile), designFile, text, outDir, options);
+export async function runEvaluate(designFile: string, outDir: string, options: ReportRunOptions = {}): Promise<ReportRun> {
+  const text = readText(designFile, 'design file');
+  return runDesign(parseDesign(text, basename(designFile)), designFile, text, outDir, options);
 }
 
 /** Evaluates design data that is already parsed (the demo). @internal */
-export function runDesignData(data: unknown, designFile: string, outDir: string, options: ReportRunOptions = {}): ReportRun {
+export async function runDesignData(data: unknown, designFile: string, outDir: string, options: ReportRunOptions = {}): Promise<ReportRun> {
   const design = validateDesign(data, basename(designFile));
-  return writeReport(design, designFile, JSON.stringify(data, null, 2), outDir, options);
+  return runDesign(design, designFile, JSON.stringify(data, null, 2), outDir, options);
+}
+
+/**
+ * Merges shard parts into the report one run would write (identical figures.json).
+ * @throws UsageError for unreadable parts, parts of different designs or shard counts,
+ *   and missing or repeated shards.
+ * @internal
+ */
+export async function runMerge(partFiles: readonly string[], outDir: string): Promise<ReportRun> {
+  if (partFiles.length === 0) throw new UsageError('merge: expected one or more part files (part-<i>-of-<n>.json).');
+  const parts = partFiles.map((f) => {
+    const text = readText(f, 'part file');
+    let p: ShardPart;
+    try {
+      p = JSON.parse(text) as ShardPart;
+    } catch (e) {
+      throw new UsageError(`part file "${f}" is not valid JSON: ${(e as Error).message}`);
+    }
+    if (p === null || typeof p !== 'object' || p.format !== 'phasewise-shard') throw new UsageError(`part file "${f}": expected a shard part written by "phasewise evaluate --shard i/n", received something else.`);
+    return { file: f, part: p };
+  });
+  const first = parts[0];
+  for (const { file, part } of parts) {
+    if (part.designHash !== first.part.designHash) {
+      throw new UsageError(`part file "${file}" comes from a different design than "${first.file}" (design ${part.designHash} vs ${first.part.designHash}); merge parts of one design only.`);
+    }
+    if (part.shard.count !== first.part.shard.count) throw new UsageError(`part file "${file}" is shard ${part.shard.index}/${part.shard.count}, but "${first.file}" belongs to a split into ${first.part.shard.count}.`);
+    if (part.version !== first.part.version) throw new UsageError(`part file "${file}" was written by phasewise ${part.version}, "${first.file}" by ${first.part.version}; evaluate every shard with one version.`);
+  }
+  const n = first.part.shard.count;
+  const seen = new Map<number, string>();
+  for (const { file, part } of parts) {
+    if (seen.has(part.shard.index)) throw new UsageError(`shard ${part.shard.index}/${n} is given twice ("${seen.get(part.shard.index)}" and "${file}").`);
+    seen.set(part.shard.index, file);
+  }
+  const missing = Array.from({ length: n }, (_, i) => i + 1).filter((i) => !seen.has(i));
+  if (missing.length > 0) throw new UsageError(`merge: shards ${missing.map((i) => `${i}/${n}`).join(', ')} are missing.`);
+  const out = outputFolder(outDir);
+  const design = parseDesign(first.part.designText, basename(first.part.designFile));
+  const prepared = prepareDesign(design, { fileName: basename(first.part.designFile), readFile: designReader(first.part.designFile) });
+  const byIndex = new Map<number, FrequencyEvaluation>();
+  for (const { part } of parts) part.frequencyIndices.forEach((idx, j) => byIndex.set(idx, part.frequencies[j]));
+  const results = Array.from(prepared.frequenciesHz, (_, i) => byIndex.get(i) as FrequencyEvaluation);
+  const ev = assembleDesignEvaluation(prepared, results);
+  return { folder: out.path, files: writeReport(ev, first.part.designText, out), evaluation: ev };
 }
 
 /** Console summary of a report run. @internal */
 export function formatRun(r: ReportRun): string {
-  const b = r.figures.beams;
-  const best = b.reduce((p, q) => (q.sensitivityM2PerK > p.sensitivityM2PerK ? q : p));
-  const worst = b.reduce((p, q) => (q.sensitivityM2PerK < p.sensitivityM2PerK ? q : p));
-  return [
-    `${r.figures.title}: ${r.figures.elementCount} elements, ${b.length} beams (${r.figures.beamformer})`,
-    `  A_e/T_sys ${num(best.sensitivityM2PerK, 4)} m²/K at ${best.scanAngleDeg}° (T_sys ${num(best.systemTemperatureK, 4)} K), ` +
-      `${num(worst.sensitivityM2PerK, 4)} m²/K at ${worst.scanAngleDeg}° (T_sys ${num(worst.systemTemperatureK, 4)} K)`,
+  if (r.shard || !r.evaluation) {
+    return [`shard ${r.shard?.index}/${r.shard?.count}: ${r.shard?.frequencies} frequencies evaluated`, `  part written to ${r.folder}/${r.files[0]}`].join('\n');
+  }
+  const ev = r.evaluation;
+  const nf = ev.frequenciesHz.length;
+  // Best and worst beam by band-average sensitivity.
+  const s = ev.bandSummary;
+  let best = 0, worst = 0;
+  s.forEach((b, k) => { if (b.bandAverageSensitivityM2PerK > s[best].bandAverageSensitivityM2PerK) best = k; if (b.worstSensitivityM2PerK < s[worst].worstSensitivityM2PerK) worst = k; });
+  const label = (k: number) => ev.beams.kind === 'plane' && ev.beams.scanAngleDeg ? `${ev.beams.scanAngleDeg[k]}°` : `θ ${num(ev.beams.thetaDeg[k], 4)}°, φ ${num(ev.beams.phiDeg[k], 4)}°`;
+  const fText = (f: number) => `${num(f / 1e9, 6)} GHz`;
+  const lines = [
+    `${ev.title}: ${ev.elementCount} elements, ${ev.beams.thetaDeg.length} beams (${ev.beamformer}), ${nf === 1 ? fText(ev.frequenciesHz[0]) : `${nf} frequencies ${fText(ev.frequenciesHz[0])} – ${fText(ev.frequenciesHz[nf - 1])}`}`,
+    `  best beam  (${label(best)}): A_e/T_sys ${num(s[best].bandAverageSensitivityM2PerK, 4)} m²/K${nf > 1 ? ' band average' : ''}, G/T ${num(ev.frequencies[0].beams[best].gainOverTemperatureDbPerK, 4)} dB/K${nf > 1 ? ' at the lowest frequency' : ''}`,
+    `  worst beam (${label(worst)}): A_e/T_sys ${num(s[worst].worstSensitivityM2PerK, 4)} m²/K at ${fText(s[worst].worstFrequencyHz)}, worst G/T ${num(s[worst].worstGainOverTemperatureDbPerK, 4)} dB/K, worst SEFD ${num(s[worst].worstSefdJy, 4)} Jy`,
     `  report written to ${r.folder}`,
     `  files: ${r.files.join(', ')}`,
-  ].join('\n');
+  ];
+  return lines.join('\n');
 }

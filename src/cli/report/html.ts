@@ -6,7 +6,8 @@
  */
 import { esc } from '../../plot/svg.js';
 import { num } from '../format.js';
-import type { ReportFigures } from './figures.js';
+import type { DesignEvaluation } from '../../design/index.js';
+import { beamLabel, frequencyUnit, type ReportFigure } from './figures.js';
 
 const STYLE = `
 body{font-family:system-ui,sans-serif;margin:0;background:#f7f6f2;color:#1d2a33}
@@ -21,7 +22,7 @@ th{background:#ebe8df;font-weight:600}
 td:first-child,th:first-child{text-align:left}
 .figs{display:flex;flex-wrap:wrap;gap:1em}
 figure{margin:0;background:#fff;border:1px solid #d8d4c8;padding:.5em}
-figcaption{font-size:.85em;color:#4a5a66;margin-top:.3em}
+figcaption{font-size:.85em;color:#4a5a66;margin-top:.3em;max-width:640px}
 .note{font-size:.85em;color:#4a5a66}
 `;
 
@@ -31,41 +32,49 @@ function tableHtml(header: readonly string[], rows: ReadonlyArray<readonly strin
 }
 
 /** Renders the report page. @internal */
-export function reportHtml(fig: ReportFigures, svgs: ReadonlyMap<string, string>, designText: string): string {
-  const eff = fig.array.embeddedElementEfficiency;
-  const effMin = Math.min(...eff), effMax = Math.max(...eff), effMean = eff.reduce((a, b) => a + b, 0) / eff.length;
+export function reportHtml(ev: DesignEvaluation, figures: readonly ReportFigure[], designText: string): string {
+  const { scale, unit } = frequencyUnit(ev);
+  const fl = ev.frequenciesHz;
+  const bandText = fl.length === 1 ? `${num(fl[0] * scale, 6)} ${unit}` : `${num(fl[0] * scale, 6)} – ${num(fl[fl.length - 1] * scale, 6)} ${unit}, ${fl.length} points`;
   const summary = tableHtml(['quantity', 'value', 'unit'], [
-    ['frequency', num(fig.frequencyHz / 1e9, 6), 'GHz'],
-    ['bandwidth', num(fig.bandwidthHz / 1e6, 6), 'MHz'],
-    ['elements', String(fig.elementCount), ''],
-    ['beamformer', fig.beamformer, ''],
-    ['beams', String(fig.beams.length), ''],
-    ['sphere quadrature (θ × φ nodes)', `${fig.quadrature.thetaCount} × ${fig.quadrature.phiCount}`, ''],
-    ['minimum receiver temperature T_rec,min', num(fig.array.minimumReceiverTemperatureK, 5), 'K'],
-    ['embedded element efficiency (min / mean / max)', `${num(effMin, 4)} / ${num(effMean, 4)} / ${num(effMax, 4)}`, 'linear'],
+    ['band', bandText, ''],
+    ['noise bandwidth', num(ev.bandwidthHz / 1e6, 6), 'MHz'],
+    ['elements', String(ev.elementCount), ''],
+    ['beamformer', ev.beamformer, ''],
+    ['beams', `${ev.beams.thetaDeg.length} (${ev.beams.kind})`, ''],
   ]);
-  const hasAp = fig.beams[0].apertureEfficiency !== undefined;
-  const beamHeader = ['scan angle [deg]', 'T_sys [K]', 'T_rec [K]', 'T_sky [K]', 'T_spill [K]', 'A_e [m²]', 'A_e/T_sys [m²/K]', 'gain [dBi]', 'η_rad', 'η_sp', ...(hasAp ? ['η_ap'] : []), 'η_nm'];
-  const db = (g: number) => num(10 * Math.log10(g), 4);
-  const beamRows = fig.beams.map((b) => [
-    num(b.scanAngleDeg, 4), num(b.systemTemperatureK, 5), num(b.receiverTemperatureK, 5), num(b.skyTemperatureK, 4), num(b.spilloverTemperatureK, 4),
-    num(b.effectiveAreaM2, 4), num(b.sensitivityM2PerK, 4), db(b.gain), num(b.radiationEfficiency, 4), num(b.spilloverEfficiency, 4),
-    ...(hasAp ? [num(b.apertureEfficiency as number, 4)] : []), num(b.noiseMatchingEfficiency ?? NaN, 4),
+  const bandRows = ev.bandSummary.map((s, k) => [
+    beamLabel(ev, k), num(s.worstSensitivityM2PerK, 4), num(s.worstFrequencyHz * scale, 6), num(s.meanSensitivityM2PerK, 4),
+    num(s.bandAverageSensitivityM2PerK, 4), num(s.worstGainOverTemperatureDbPerK, 4), num(s.worstSefdJy, 4),
   ]);
-  const figs = [...svgs.entries()].map(([name, svg]) => `<figure>${svg}<figcaption>${esc(name)}</figcaption></figure>`).join('\n');
+  const bandTable = tableHtml(['beam', 'worst A_e/T_sys [m²/K]', `at [${unit}]`, 'mean A_e/T_sys [m²/K]', 'band-average A_e/T_sys [m²/K]', 'worst G/T [dB/K]', 'worst SEFD [Jy]'], bandRows);
+  const hasAp = ev.frequencies[0].beams[0].apertureEfficiency !== undefined;
+  const perFrequency = ev.frequencies.map((r) => {
+    const rows = r.beams.map((b, k) => [
+      beamLabel(ev, k), num(b.systemTemperatureK, 5), num(b.receiverTemperatureK, 5), num(b.skyTemperatureK, 4), num(b.spilloverTemperatureK, 4),
+      num(b.effectiveAreaM2, 4), num(b.sensitivityM2PerK, 4), num(b.gainOverTemperatureDbPerK, 4), num(b.sefdJy, 4), num(10 * Math.log10(b.gain), 4),
+      num(b.radiationEfficiency, 4), num(b.spilloverEfficiency, 4), ...(hasAp ? [num(b.apertureEfficiency as number, 4)] : []), num(b.noiseMatchingEfficiency ?? NaN, 4),
+    ]);
+    const header = ['beam', 'T_sys [K]', 'T_rec [K]', 'T_sky [K]', 'T_spill [K]', 'A_e [m²]', 'A_e/T_sys [m²/K]', 'G/T [dB/K]', 'SEFD [Jy]', 'gain [dBi]', 'η_rad', 'η_sp', ...(hasAp ? ['η_ap'] : []), 'η_nm'];
+    return `<h3>${num(r.frequencyHz * scale, 7)} ${unit} · sky ${num(r.skyK, 4)} K · T_rec,min ${num(r.minimumReceiverTemperatureK, 5)} K · sphere rule ${r.quadrature.thetaCount} × ${r.quadrature.phiCount}</h3>\n${tableHtml(header, rows)}`;
+  }).join('\n');
+  const figs = figures.map((f) => `<figure>${f.svg}<figcaption>${esc(f.caption)}</figcaption></figure>`).join('\n');
   return `<!DOCTYPE html>
-<html lang="en"><head><meta charset="utf-8"><title>${esc(fig.title)} — phasewise report</title><style>${STYLE}</style></head>
-<body><header><h1>${esc(fig.title)}</h1><p>Receiving-array evaluation by phasewise · design file ${esc(fig.design)}</p></header>
+<html lang="en"><head><meta charset="utf-8"><title>${esc(ev.title)} — phasewise report</title><style>${STYLE}</style></head>
+<body><header><h1>${esc(ev.title)}</h1><p>Receiving-array evaluation by phasewise · design file ${esc(ev.fileName)}</p></header>
 <main>
 <h2>Summary</h2>
 ${summary}
+<h2>Band summary per beam</h2>
+${bandTable}
+<p class="note">G/T = (4π/λ²)·A_e/T_sys and SEFD = 2k_B·T_sys/A_e for an unpolarized source; gain and T_sys are both referred to the beamformer output and normalised by the beam's isotropic noise response (Warnick, Ivashina, Maaskant, Woestenburg, IEEE Trans. Antennas Propag. 58(6), 2010), so their ratio does not depend on the reference plane. The band average is the trapezoid-rule mean over frequency.</p>
 <h2>Figures</h2>
 <div class="figs">
 ${figs}
 </div>
-<h2>Figures of merit per beam</h2>
-${tableHtml(beamHeader, beamRows)}
-<p class="note">Temperatures are referred to the beam's isotropic noise response (Warnick, Ivashina, Maaskant, Woestenburg, IEEE Trans. Antennas Propag. 58(6), 2010). A_e is for an unpolarized source. These are engineering estimates from the models named in the design; check them against measurements before relying on them.</p>
+<h2>Figures of merit per frequency and beam</h2>
+${perFrequency}
+<p class="note">These are engineering estimates from the models named in the design; check them against measurements before relying on them.</p>
 <h2>Design file</h2>
 <pre>${esc(designText)}</pre>
 </main></body></html>

@@ -1,0 +1,394 @@
+/**
+ * The receiving-array job across a band: one call from a validated design to
+ * every figure of merit per frequency × beam (T_sys and its parts, A_e/T_sys,
+ * G/T, SEFD, efficiencies), band summaries per beam, and the data of the
+ * report's figures — plain JSON-able data, browser-safe.
+ * @module
+ */
+import { zeros } from '../linalg/cmatrix.js';
+import { NumericError } from '../errors.js';
+import { sphereQuadrature, sphereQuadratureForLayout } from '../geometry/index.js';
+import { gratingLobeCircles } from '../floquet/grating-lobes.js';
+import { createMultiport } from '../network/multiport.js';
+import { activeReflection } from '../network/sources.js';
+import { powerToDb, radToDeg, wavenumberRadPerM } from '../units/convert.js';
+import {
+  beamPowerPatterns, evaluateReceivingArray, gainOverTemperatureDbPerK, matchedFieldWeightsUnpolarized, samplePatterns,
+  systemEquivalentFluxDensityJy, type BeamFigures,
+} from '../reception/index.js';
+import type { Design } from './schema.js';
+import { fieldError } from './schema.js';
+import {
+  designEnvironmentAt, designPortsAt, prepareDesign, scanPlaneDirections,
+  type PrepareDesignOptions, type PreparedDesign,
+} from './build.js';
+
+/**
+ * Figures of one beam at one frequency: the reception module's figures plus G/T and SEFD.
+ * @category Design
+ */
+export interface DesignBeamFigures extends BeamFigures {
+  /** G/T = (4π/λ²)·A_e/T_sys [dB/K], referred to the beamformer output (see gainOverTemperatureDbPerK). */
+  readonly gainOverTemperatureDbPerK: number;
+  /** SEFD = 2k_B·T_sys/A_e [Jy]. */
+  readonly sefdJy: number;
+}
+
+/**
+ * A pattern cut of one beam: relative power along a great circle through broadside.
+ * @category Design
+ */
+export interface DesignPatternCut {
+  /** Index of the beam. */
+  readonly beam: number;
+  /** Azimuth of the cut plane [deg]; positive angles lie at this φ, negative ones at φ + 180°. */
+  readonly planePhiDeg: number;
+  /** Beam output power relative to the largest peak of the cuts at this frequency [dB]. */
+  readonly valueDb: number[];
+}
+
+/**
+ * Everything computed at one band frequency.
+ * @category Design
+ */
+export interface FrequencyEvaluation {
+  /** Frequency [Hz]. */
+  readonly frequencyHz: number;
+  /** Sky brightness used [K]. */
+  readonly skyK: number;
+  /** Amplifier noise parameters used (back end folded in), absent for noiseless receivers. */
+  readonly amplifiers?: { minimumNoiseTemperatureK: number; noiseResistanceOhm: number; optimumSourceAdmittanceS: { re: number; im: number } };
+  /** Sphere rule of the noise integrals (θ × φ nodes). */
+  readonly quadrature: { thetaCount: number; phiCount: number };
+  /** Figures per beam, in beam order. */
+  readonly beams: DesignBeamFigures[];
+  /** The array's minimum receiver temperature T_rec,min [K]. */
+  readonly minimumReceiverTemperatureK: number;
+  /** Embedded element efficiency per port (linear). */
+  readonly embeddedElementEfficiency: number[];
+  /** Pattern cuts (report frequencies only). */
+  readonly patternCuts?: DesignPatternCut[];
+  /** Angles of the cut samples [deg] (report frequencies only). */
+  readonly cutAngleDeg?: number[];
+  /**
+   * Active reflection coefficient of the centre and the outermost element over the beams
+   * (report frequencies only), 50 Ω reference, for the phase-steered transmit excitation
+   * conj(a(r̂)) — the network module's activeReflection.
+   */
+  readonly activeReflection?: { element: number; label: string; re: number[]; im: number[] }[];
+}
+
+/**
+ * Band summary of one beam.
+ * @category Design
+ */
+export interface BeamBandSummary {
+  /** Smallest A_e/T_sys over the band [m²/K]. */
+  readonly worstSensitivityM2PerK: number;
+  /** Frequency of the smallest A_e/T_sys [Hz]. */
+  readonly worstFrequencyHz: number;
+  /** Largest A_e/T_sys over the band [m²/K]. */
+  readonly bestSensitivityM2PerK: number;
+  /** Arithmetic mean of A_e/T_sys over the frequency points [m²/K]. */
+  readonly meanSensitivityM2PerK: number;
+  /** Band average (1/(f_max − f_min))∫A_e/T_sys df by the trapezoid rule over the points [m²/K] (the single value for one point). */
+  readonly bandAverageSensitivityM2PerK: number;
+  /** Smallest G/T over the band [dB/K]. */
+  readonly worstGainOverTemperatureDbPerK: number;
+  /** Largest SEFD over the band [Jy]. */
+  readonly worstSefdJy: number;
+}
+
+/**
+ * Result of {@link evaluateDesign}: plain data (JSON round-trips), units in field names.
+ * @category Design
+ */
+export interface DesignEvaluation {
+  /** Title of the design (or the file name). */
+  readonly title: string;
+  /** The design file's name. */
+  readonly fileName: string;
+  /** Number of elements (ports). */
+  readonly elementCount: number;
+  /** Beamformer used. */
+  readonly beamformer: 'max-snr' | 'conjugate-field' | 'taper';
+  /** Noise bandwidth B [Hz]. */
+  readonly bandwidthHz: number;
+  /** Band frequencies [Hz]. */
+  readonly frequenciesHz: number[];
+  /** Indices of the frequencies the report draws cuts, maps and Smith charts at. */
+  readonly reportFrequencyIndices: number[];
+  /** Beam directions: kind, θ and φ [deg], signed scan angle [deg] (plane beams), u and v. */
+  readonly beams: { kind: 'plane' | 'pointings' | 'cone'; thetaDeg: number[]; phiDeg: number[]; scanAngleDeg?: number[]; planePhiDeg?: number; u: number[]; v: number[]; stepUV?: number };
+  /** Element positions [m]. */
+  readonly positionsM: number[][];
+  /** Grating-lobe circles at the highest band frequency (lattice layouts), u-v centres and radius (direction cosines). */
+  readonly gratingLobes?: { frequencyHz: number; maxScanSinTheta: number; circles: { m: number; n: number; u: number; v: number; radius: number }[] };
+  /** Per-frequency results, in band order. */
+  readonly frequencies: FrequencyEvaluation[];
+  /** Band summary per beam. */
+  readonly bandSummary: BeamBandSummary[];
+}
+
+/** Options of {@link evaluateDesign}. @category Design */
+export interface EvaluateDesignOptions extends PrepareDesignOptions {
+  /** Called after each frequency: frequencies done, total. */
+  readonly onProgress?: (done: number, total: number) => void;
+}
+
+const CUT_POINTS = 361;
+
+/** Up to `max` indices spread evenly over 0…count−1. @internal */
+export function spreadIndices(count: number, max: number): number[] {
+  if (count <= max) return Array.from({ length: count }, (_, i) => i);
+  const s = new Set<number>();
+  for (let i = 0; i < max; i++) s.add(Math.round((i * (count - 1)) / (max - 1)));
+  return [...s];
+}
+
+/** Beams shown in cuts and per-beam band figures: up to five, spread over the list (broadside first for cones). @internal */
+export function shownBeams(p: PreparedDesign): number[] {
+  const b = p.beams;
+  if (b.kind !== 'cone') return spreadIndices(b.thetaRad.length, 5);
+  // Broadside and the four cardinal edge beams of the cone.
+  const pick = (fu: number, fv: number) => {
+    let best = 0, bestScore = -Infinity;
+    for (let i = 0; i < b.u.length; i++) {
+      const score = fu === 0 && fv === 0 ? -Math.hypot(b.u[i], b.v[i]) : fu * b.u[i] + fv * b.v[i] - 1e-3 * Math.abs(fv * b.u[i] - fu * b.v[i]);
+      if (score > bestScore) { bestScore = score; best = i; }
+    }
+    return best;
+  };
+  return [...new Set([pick(0, 0), pick(1, 0), pick(-1, 0), pick(0, 1), pick(0, -1)])];
+}
+
+/**
+ * Evaluates one band frequency of a prepared design.
+ *
+ * @remarks
+ * Ports at f ({@link designPortsAt}), the environment at f, the amplifiers at f, a sphere rule
+ * (the design's, or one sized for the layout at f: geometry's sphereQuadratureForLayout with
+ * tolerance 1e-6), then the reception module's evaluateReceivingArray with the design's
+ * beamformer: max-SNR (default), conjugate-field or taper (matchedFieldWeightsUnpolarized).
+ * G/T and SEFD per beam from A_e/T_sys. At report frequencies also the pattern cuts and the
+ * active reflection over the beams. The result at f equals a direct evaluateReceivingArray
+ * call with the same inputs (tested to 1e-12).
+ * @param prepared - The prepared design.
+ * @param index - Index into prepared.frequenciesHz.
+ * @returns The frequency's results.
+ * @throws {@link DesignError} naming the design and what failed.
+ * @category Design
+ */
+export function evaluateDesignFrequency(prepared: PreparedDesign, index: number): FrequencyEvaluation {
+  const p = prepared, d = p.design;
+  const f = p.frequenciesHz[index];
+  const ports = designPortsAt(p, f);
+  const { environment, skyK } = designEnvironmentAt(p, f);
+  const quadrature = d.quadrature
+    ? sphereQuadrature(d.quadrature.thetaCount, d.quadrature.phiCount)
+    : sphereQuadratureForLayout(p.layout, f, { tolerance: 1e-6 });
+  const amplifiers = p.amplifiersAt?.(f);
+  const kind = d.beams.beamformer ?? 'max-snr';
+  const beams = { thetaRad: p.beams.thetaRad, phiRad: p.beams.phiRad };
+  const weights = kind === 'max-snr' ? undefined : matchedFieldWeightsUnpolarized(samplePatterns(ports.patterns, beams.thetaRad, beams.phiRad), p.taper);
+  let ev;
+  try {
+    ev = evaluateReceivingArray({
+      ports, quadrature, bandwidthHz: d.bandwidthHz, environment, amplifiers,
+      physicalTemperatureK: d.environment.physicalTemperatureK ?? 290,
+      loss: d.elements.kind === 'dipole' ? 'lossless' : 'fromPatterns',
+      beams, weights, physicalAreaM2: d.physicalAreaM2,
+    });
+  } catch (e) {
+    if (e instanceof NumericError && e.name !== 'DesignError') {
+      const hint = d.elements.kind === 'imported' ? ' (the noise integrals need embedded patterns over the whole sphere, θ from 0 to 180°)' : '';
+      throw fieldError(p.fileName, d.elements.kind === 'imported' ? 'elements.patternFile' : 'elements', `cannot evaluate at ${f} Hz: ${e.message}${hint}`);
+    }
+    throw e;
+  }
+  const beamRows: DesignBeamFigures[] = ev.beams.map((b) => ({
+    ...b,
+    gainOverTemperatureDbPerK: gainOverTemperatureDbPerK(b.sensitivityM2PerK, f),
+    sefdJy: systemEquivalentFluxDensityJy(b.sensitivityM2PerK),
+  }));
+  const out: { -readonly [K in keyof FrequencyEvaluation]: FrequencyEvaluation[K] } = {
+    frequencyHz: f, skyK,
+    quadrature: { thetaCount: quadrature.thetaCount, phiCount: quadrature.phiCount },
+    beams: beamRows,
+    minimumReceiverTemperatureK: ev.minimumReceiverTemperatureK,
+    embeddedElementEfficiency: Array.from(ev.embeddedElementEfficiency),
+  };
+  if (amplifiers) {
+    const y = amplifiers.optimumSourceAdmittanceS;
+    const yc = typeof y === 'number' ? { re: y, im: 0 } : Array.isArray(y) ? { re: y[0], im: y[1] } : { re: (y as { re: number }).re, im: (y as { im: number }).im };
+    out.amplifiers = { minimumNoiseTemperatureK: amplifiers.minimumNoiseTemperatureK, noiseResistanceOhm: amplifiers.noiseResistanceOhm, optimumSourceAdmittanceS: yc };
+  }
+  if (p.reportFrequencyIndices.includes(index)) {
+    const shown = shownBeams(p);
+    const angleDeg = Array.from({ length: CUT_POINTS }, (_, i) => -90 + (180 * i) / (CUT_POINTS - 1));
+    const cuts: DesignPatternCut[] = [];
+    let peak = 0;
+    const powers: Float64Array[] = [];
+    for (const k of shown) {
+      const planePhiRad = p.beams.kind === 'plane' ? (p.beams.planePhiRad as number) : p.beams.phiRad[k];
+      const dirs = scanPlaneDirections(angleDeg, planePhiRad);
+      const w = zeros(ev.weights.rows, 1);
+      for (let i = 0; i < w.rows; i++) { w.data[2 * i] = ev.weights.data[2 * (i * ev.weights.cols + k)]; w.data[2 * i + 1] = ev.weights.data[2 * (i * ev.weights.cols + k) + 1]; }
+      const pw = beamPowerPatterns(w, samplePatterns(ports.patterns, dirs.thetaRad, dirs.phiRad))[0];
+      for (const v of pw) peak = Math.max(peak, v);
+      powers.push(pw);
+      cuts.push({ beam: k, planePhiDeg: radToDeg(planePhiRad), valueDb: [] });
+    }
+    cuts.forEach((c, i) => { (c.valueDb as number[]).push(...Array.from(powers[i], (v) => (v > 0 ? powerToDb(v / peak) : -300))); });
+    out.patternCuts = cuts;
+    out.cutAngleDeg = angleDeg;
+    out.activeReflection = activeReflectionOverBeams(p, ports.impedanceOhm, f);
+  }
+  return out;
+}
+
+/** Γ of the centre and the outermost element for the phase-steered excitation of every beam (50 Ω). */
+function activeReflectionOverBeams(p: PreparedDesign, z: import('../linalg/cmatrix.js').CMatrix, f: number): FrequencyEvaluation['activeReflection'] {
+  const n = p.layout.count, pos = p.layout.positionsM;
+  const net = createMultiport('impedance', [f], [z]);
+  const k0 = wavenumberRadPerM(f);
+  let centre = 0, edge = 0, rc = Infinity, re = -1;
+  for (let i = 0; i < n; i++) {
+    const rr = Math.hypot(pos[3 * i], pos[3 * i + 1]);
+    if (rr < rc - 1e-12) { rc = rr; centre = i; }
+    if (rr > re + 1e-12) { re = rr; edge = i; }
+  }
+  const elems = centre === edge ? [centre] : [centre, edge];
+  const traces = elems.map((e) => ({ element: e, label: e === centre ? `element ${e} (centre)` : `element ${e} (edge)`, re: [] as number[], im: [] as number[] }));
+  const excitation = zeros(n, 1);
+  for (let k = 0; k < p.beams.thetaRad.length; k++) {
+    const th = p.beams.thetaRad[k], ph = p.beams.phiRad[k];
+    const ux = Math.sin(th) * Math.cos(ph), uy = Math.sin(th) * Math.sin(ph), uz = Math.cos(th);
+    for (let m = 0; m < n; m++) {
+      // conj of the steering vector exp(+j k r̂·r): the transmit excitation equivalent to w = a(r̂).
+      const phase = -k0 * (ux * pos[3 * m] + uy * pos[3 * m + 1] + uz * pos[3 * m + 2]);
+      excitation.data[2 * m] = Math.cos(phase); excitation.data[2 * m + 1] = Math.sin(phase);
+    }
+    const gamma = activeReflection(net, excitation).data;
+    for (const t of traces) { t.re.push(gamma[2 * t.element]); t.im.push(gamma[2 * t.element + 1]); }
+  }
+  return traces;
+}
+
+/**
+ * Assembles the band result from per-frequency results (from one run, worker blocks or shards).
+ *
+ * @remarks
+ * Band summaries per beam: worst, best and arithmetic-mean A_e/T_sys over the points, the
+ * band average by the trapezoid rule over frequency, the worst G/T and SEFD.
+ * @param prepared - The prepared design.
+ * @param frequencies - One result per band frequency, in band order.
+ * @returns The band result.
+ * @throws {@link DesignError} if a frequency is missing or out of order.
+ * @category Design
+ */
+export function assembleDesignEvaluation(prepared: PreparedDesign, frequencies: readonly FrequencyEvaluation[]): DesignEvaluation {
+  const p = prepared, d = p.design, band = p.frequenciesHz;
+  if (frequencies.length !== band.length || frequencies.some((r, i) => r.frequencyHz !== band[i])) {
+    throw fieldError(p.fileName, 'frequencyHz', `expected results at all ${band.length} band frequencies in order, received ${frequencies.length}`);
+  }
+  const kBeams = p.beams.thetaRad.length;
+  const bandSummary: BeamBandSummary[] = [];
+  for (let k = 0; k < kBeams; k++) {
+    const s = frequencies.map((r) => r.beams[k].sensitivityM2PerK);
+    let worst = 0, best = 0;
+    for (let i = 1; i < s.length; i++) { if (s[i] < s[worst]) worst = i; if (s[i] > s[best]) best = i; }
+    let avg = s[0];
+    if (s.length > 1) {
+      let integral = 0;
+      for (let i = 1; i < s.length; i++) integral += 0.5 * (s[i] + s[i - 1]) * (band[i] - band[i - 1]);
+      avg = integral / (band[band.length - 1] - band[0]);
+    }
+    bandSummary.push({
+      worstSensitivityM2PerK: s[worst], worstFrequencyHz: band[worst], bestSensitivityM2PerK: s[best],
+      meanSensitivityM2PerK: s.reduce((a, b) => a + b, 0) / s.length, bandAverageSensitivityM2PerK: avg,
+      worstGainOverTemperatureDbPerK: Math.min(...frequencies.map((r) => r.beams[k].gainOverTemperatureDbPerK)),
+      worstSefdJy: Math.max(...frequencies.map((r) => r.beams[k].sefdJy)),
+    });
+  }
+  const b = p.beams;
+  const out: { -readonly [K in keyof DesignEvaluation]: DesignEvaluation[K] } = {
+    title: d.title ?? p.fileName,
+    fileName: p.fileName,
+    elementCount: p.layout.count,
+    beamformer: d.beams.beamformer ?? 'max-snr',
+    bandwidthHz: d.bandwidthHz,
+    frequenciesHz: Array.from(band),
+    reportFrequencyIndices: [...p.reportFrequencyIndices],
+    beams: {
+      kind: b.kind, thetaDeg: Array.from(b.thetaRad, radToDeg), phiDeg: Array.from(b.phiRad, radToDeg),
+      ...(b.scanAngleDeg ? { scanAngleDeg: Array.from(b.scanAngleDeg), planePhiDeg: radToDeg(b.planePhiRad as number) } : {}),
+      u: Array.from(b.u), v: Array.from(b.v), ...(b.stepUV !== undefined ? { stepUV: b.stepUV } : {}),
+    },
+    positionsM: Array.from({ length: p.layout.count }, (_, i) => Array.from(p.layout.positionsM.subarray(3 * i, 3 * i + 3))),
+    frequencies: [...frequencies],
+    bandSummary,
+  };
+  if (p.lattice) {
+    const fMax = band[band.length - 1];
+    const maxScan = Math.max(...Array.from(b.thetaRad, (t) => Math.sin(t)));
+    out.gratingLobes = {
+      frequencyHz: fMax, maxScanSinTheta: maxScan,
+      circles: gratingLobeCircles(p.lattice, fMax, 2).filter((c) => c.m !== 0 || c.n !== 0).map((c) => ({ m: c.m, n: c.n, u: c.centerU, v: c.centerV, radius: c.radius })),
+    };
+  }
+  return out;
+}
+
+/**
+ * Evaluates a design over its whole band and scan coverage.
+ *
+ * @remarks
+ * {@link prepareDesign}, then {@link evaluateDesignFrequency} at every band frequency in order
+ * on the calling thread, then {@link assembleDesignEvaluation}. The command line runs the same
+ * frequencies on a worker pool and across shards; the result is identical whatever the split.
+ * Definitions: docs/conventions.md and docs/design.md.
+ * @param design - A validated design ({@link parseDesign} / {@link validateDesign}).
+ * @param options - File name for messages, a reader for the files the design names, progress callback.
+ * @returns Figures per frequency × beam, band summaries and report data.
+ * @throws {@link DesignError} naming the field the library rejected.
+ * @example
+ * ```ts
+ * const design = validateDesign({
+ *   frequencyHz: { fromHz: 1.3e9, toHz: 1.5e9, count: 3 }, bandwidthHz: 1e6,
+ *   layout: { kind: 'line', count: 4, spacingM: 0.1 },
+ *   elements: { kind: 'dipole', lengthM: 0.1, radiusM: 5e-4, axis: [0, 1, 0], groundPlaneHeightM: 0.05 },
+ *   amplifiers: { minimumNoiseTemperatureK: 30, noiseResistanceOhm: 5, optimumSourceAdmittanceS: 0.02 },
+ *   environment: { skyK: 10, groundK: 290 },
+ *   beams: { thetaDeg: [0, 20] },
+ *   quadrature: { thetaCount: 24, phiCount: 48 },
+ * }, 'line.json');
+ * const result = evaluateDesign(design);
+ * result.bandSummary[0].worstSensitivityM2PerK; // m²/K, broadside beam
+ * ```
+ * @category Design
+ */
+export function evaluateDesign(design: Design, options: EvaluateDesignOptions = {}): DesignEvaluation {
+  const prepared = prepareDesign(design, options);
+  const results: FrequencyEvaluation[] = [];
+  const total = prepared.frequenciesHz.length;
+  for (let i = 0; i < total; i++) {
+    results.push(evaluateDesignFrequency(prepared, i));
+    options.onProgress?.(i + 1, total);
+  }
+  return assembleDesignEvaluation(prepared, results);
+}
+
+/**
+ * The frequency indices of block `index` (0-based) when a band of `count` points is cut into
+ * `blocks` contiguous blocks of near-equal size (sizes differ by at most one).
+ * @param count - Number of band frequencies, ≥ 1.
+ * @param blocks - Number of blocks, 1 … count.
+ * @param index - Block index, 0 … blocks − 1.
+ * @returns The indices, increasing.
+ * @category Design
+ */
+export function frequencyBlock(count: number, blocks: number, index: number): number[] {
+  const lo = Math.floor((index * count) / blocks), hi = Math.floor(((index + 1) * count) / blocks);
+  return Array.from({ length: hi - lo }, (_, i) => lo + i);
+}
