@@ -28,6 +28,7 @@ export type { ArrayPortSource, DipoleArrayPortsOptions } from './ports.js';
 export { dipoleArrayPorts, patternSetPorts, dipoleModelChecks, DIPOLE_MODEL_MAX_LENGTH_WAVELENGTHS, DIPOLE_MODEL_MAX_RADIUS_WAVELENGTHS } from './ports.js';
 export type { EvaluationSize, EvaluationCost } from './cost.js';
 export { evaluationCost, assertEvaluationFits } from './cost.js';
+export { patternOverlapMatrix } from './overlap.js';
 export { matchedFieldWeightsUnpolarized, beamPowerPatterns } from './fixedBeams.js';
 export type { SkyPowerLaw } from './sky.js';
 export { skyTemperatureAt, CMB_TEMPERATURE_K, SYNCHROTRON_SPECTRAL_INDEX } from './sky.js';
