@@ -5,6 +5,7 @@
  * @module
  */
 export * from './errors.js';
+export * from './checks.js';
 export * from './linalg/index.js';
 export * from './units/index.js';
 export * from './taper/index.js';
@@ -17,5 +18,6 @@ export * from './beamform/index.js';
 export * from './measure/index.js';
 export * from './reflector/index.js';
 export * from './floquet/index.js';
+export * from './wire/index.js';
 export * from './design/index.js';
 export { VERSION } from './version.js';

@@ -9,7 +9,7 @@ import { Command, CommanderError, InvalidArgumentError, Option } from 'commander
 import { UsageError, exitCodeFor } from './errors.js';
 import { TAPER_KINDS, formatTaper, runTaper } from './commands/taper.js';
 import { formatSpacing, runSpacing } from './commands/spacing.js';
-import { formatYFactor, runYFactor } from './commands/yfactor.js';
+import { formatYFactor, noiseSourceSetting, runYFactor } from './commands/yfactor.js';
 import { formatRun, parseShard, runEvaluate, runMerge } from './commands/evaluate.js';
 import { VERSION } from '../version.js';
 import { DEMO_FOLDER, runDemo } from './commands/demo.js';
@@ -79,14 +79,19 @@ export function buildProgram(io: { out: (s: string) => void; err: (s: string) =>
   program.command('yfactor')
     .description('Receiver noise temperature per channel from a hot/cold CSV table (columns channel, hot, cold).')
     .argument('<table.csv>', 'measurement table')
-    .requiredOption('--hot-k <K>', 'hot-load noise temperature [K]', numberArg('--hot-k', { min: 0 }))
-    .requiredOption('--cold-k <K>', 'cold-load noise temperature [K]', numberArg('--cold-k', { min: 0 }))
+    .option('--hot-k <K>', 'hot-load noise temperature [K] (or give --enr-db)', numberArg('--hot-k', { min: 0 }))
+    .option('--enr-db <dB>', 'calibrated noise source instead of a hot load: on temperature T0·(1 + ENR)', numberArg('--enr-db'))
+    .option('--t0-k <K>', 'ENR reference temperature T0 [K]', numberArg('--t0-k', { min: 1e-9 }), 290)
+    .requiredOption('--cold-k <K>', 'cold-load (or noise source off) temperature [K]', numberArg('--cold-k', { min: 0 }))
     .option('--db', 'the power columns are in dB')
     .option('--json', 'print JSON instead of tables')
-    .addHelpText('after', '\nExample:\n  phasewise yfactor bench.csv --hot-k 295 --cold-k 77')
+    .addHelpText('after', '\nExamples:\n  phasewise yfactor bench.csv --hot-k 295 --cold-k 77\n  phasewise yfactor diode.csv --enr-db 15.2 --cold-k 296')
     .action((file: string, o) => {
-      const rows = runYFactor(file, o.hotK, o.coldK, Boolean(o.db));
-      io.out((o.json ? JSON.stringify(rows, null, 2) : formatYFactor(rows, o.hotK, o.coldK)) + '\n');
+      if ((o.hotK === undefined) === (o.enrDb === undefined)) throw new UsageError('give exactly one of --hot-k (hot load) and --enr-db (noise source).');
+      const source = o.enrDb === undefined ? undefined : noiseSourceSetting(o.enrDb, o.t0K);
+      const hotK = source ? source.onTemperatureK : o.hotK;
+      const rows = runYFactor(file, hotK, o.coldK, Boolean(o.db));
+      io.out((o.json ? JSON.stringify(source ? rows.map((r) => ({ ...r, ...source })) : rows, null, 2) : formatYFactor(rows, hotK, o.coldK, source)) + '\n');
     });
 
   program.command('evaluate')

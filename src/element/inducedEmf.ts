@@ -55,8 +55,12 @@ function endpointArguments(k: number, d2: number, sa: number, sb: number, sigma:
   }
 }
 
-/** out = ∫_a^b e^{−jk(R + σ s)}/R ds (σ = ±1), R = √(d² + s²). */
-function lineIntegral(out: Float64Array, k: number, d2: number, a: number, b: number, sigma: number): void {
+/**
+ * out = ∫_a^b e^{−jk(R + σ s)}/R ds (σ = ±1), R = √(d² + s²), exactly, by the
+ * substitution u = k(R + σ s) (sine and cosine integrals). Also the inner
+ * integral of the thin-wire moment method (src/wire). Not re-entrant (module scratch).
+ */
+export function lineIntegral(out: Float64Array, k: number, d2: number, a: number, b: number, sigma: number): void {
   endpointArguments(k, d2, a, b, sigma);
   const ua = ends[0], ub = ends[1], qa = ends[2], qb = ends[3];
   // σ = +1: u increases with s, ds/R = du/u → E(ub) − E(ua).

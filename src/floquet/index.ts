@@ -15,3 +15,5 @@ export { groundedSlabSurfaceWaves, phaseMatchedScanAngles } from './surface-wave
 export type { ScanBlindnessOptions, BlindAngle, ScanBlindnessResult } from './scan-blindness.js';
 export { findScanBlindness } from './scan-blindness.js';
 export { finiteArrayActiveImpedances, finiteArrayActiveReflections } from './finite-array.js';
+export type { CurrentSheetOptions, CurrentSheetResistance } from './current-sheet.js';
+export { currentSheetScanResistance } from './current-sheet.js';

@@ -1,5 +1,5 @@
-export type { YFactorInput, YFactorResult, YFactorVarianceBudget, NoiseSourceInput } from './yfactor.js';
-export { yFactorReceiverTemperature, noiseSourceReceiverTemperature } from './yfactor.js';
+export type { YFactorInput, YFactorResult, YFactorVarianceBudget, NoiseSourceInput, NoiseSourceResult } from './yfactor.js';
+export { yFactorReceiverTemperature, noiseSourceReceiverTemperature, noiseSourceOnTemperature } from './yfactor.js';
 export type { HotColdCorrelationInput, HotColdCorrelationResult } from './hotcold.js';
 export { receiverNoiseFromHotCold, beamReceiverTemperature } from './hotcold.js';
 export type { AtmosphereCorrection, FluxCorrections, OnOffInput, OnOffResult, OnOffCorrelationInput } from './sensitivity.js';

@@ -91,7 +91,7 @@ function toLinear(name: string, p: number, scale: 'linear' | 'dB'): number {
  * @example
  * ```ts
  * // 290 K / 77 K loads, Y = 2.0 → T_rec = (290 − 2·77)/(2 − 1) = 136 K
- * yFactorReceiverTemperature({ hotPower: 2, coldPower: 1, hotTemperatureK: 290, coldTemperatureK: 77 });
+ * yFactorReceiverTemperature({ hotPower: 2, coldPower: 1, hotTemperatureK: 290, coldTemperatureK: 77 }).receiverTemperatureK; // 136.000
  * ```
  * @category Measurement
  */
@@ -142,8 +142,15 @@ export interface NoiseSourceInput {
   /** Output power with the source off, same unit. */
   offPower: number;
   /**
-   * Physical temperature of the source when off [K]; the classic formula assumes T0 = 290 K.
+   * Reference temperature T0 of the ENR calibration [K], > 0 (the IEEE definition uses 290 K;
+   * pass the calibration's own value if it differs).
    * @defaultValue 290
+   */
+  enrReferenceTemperatureK?: number;
+  /**
+   * Physical temperature of the source when off [K], ≥ 0 (the same rule as the cold load of
+   * {@link yFactorReceiverTemperature}); the classic F = ENR/(Y − 1) assumes T_off = T0.
+   * @defaultValue `enrReferenceTemperatureK`
    */
   offTemperatureK?: number;
   /**
@@ -154,31 +161,76 @@ export interface NoiseSourceInput {
 }
 
 /**
+ * Result of {@link noiseSourceReceiverTemperature}: the Y-factor result and the temperatures used.
+ * @category Measurement
+ */
+export interface NoiseSourceResult extends YFactorResult {
+  /** On temperature the reduction used, T_on = T0·(1 + ENR) [K]. */
+  onTemperatureK: number;
+  /** Off temperature the reduction used [K]. */
+  offTemperatureK: number;
+  /** ENR reference temperature T0 the reduction used [K]. */
+  enrReferenceTemperatureK: number;
+}
+
+/**
+ * Noise temperature of a calibrated noise source when on: T_on = T0·(1 + ENR).
+ *
+ * @remarks
+ * ENR = (T_on − T0)/T0 with T0 = 290 K by definition (IEEE Std 149-2021 practice; Keysight
+ * application note 57-1, "Fundamentals of RF and microwave noise figure measurements", from
+ * memory); a calibration stated for another reference passes its own T0.
+ * @param enrDb - Excess noise ratio [dB], finite.
+ * @param enrReferenceTemperatureK - Reference temperature T0 [K], > 0. @defaultValue 290
+ * @returns T_on [K].
+ * @throws {@link DomainError} for a non-finite ENR or T0 ≤ 0.
+ * @example
+ * ```ts
+ * noiseSourceOnTemperature(15); // ≈ 9460.6 K (= 290·(1 + 10^1.5))
+ * ```
+ * @category Measurement
+ */
+export function noiseSourceOnTemperature(enrDb: number, enrReferenceTemperatureK: number = T0_K): number {
+  assertFinite('enrDb', enrDb);
+  assertPositive('enrReferenceTemperatureK', enrReferenceTemperatureK, 'K');
+  return enrReferenceTemperatureK * (1 + 10 ** (enrDb / 10));
+}
+
+/**
  * Receiver noise temperature and noise figure from a calibrated noise source
  * (noise-diode form of the Y-factor method).
  *
  * @remarks
- * The source's on temperature is T_on = T0·(1 + ENR) with T0 = 290 K (the IEEE
- * definition of excess noise ratio); with the source off at T_off the Y-factor
- * relation gives T_rec = (T_on − Y·T_off)/(Y − 1). For T_off = T0 this is the
+ * The source's on temperature is T_on = T0·(1 + ENR) ({@link noiseSourceOnTemperature};
+ * T0 = 290 K by the IEEE definition of excess noise ratio, settable); with the source off
+ * at T_off ≥ 0 K the Y-factor relation gives T_rec = (T_on − Y·T_off)/(Y − 1). The result
+ * states T_on, T_off and T0 it used. The noise figure keeps T0 = 290 K of its definition.
+ * For T_off = T0 this is the
  * textbook F = ENR/(Y − 1) (noise factor, linear) (Agilent/Keysight
  * application note 57-1, "Fundamentals of RF and microwave noise figure
  * measurements", from memory; Pozar, *Microwave Engineering*, 4th ed., 2012, §10.1).
- * @param input - ENR, on/off powers and the off temperature.
- * @returns The same fields as {@link yFactorReceiverTemperature} (no uncertainties).
- * @throws {@link DomainError} for non-positive linear powers or Y ≤ 1.
+ * @param input - ENR, on/off powers, the ENR reference and the off temperature.
+ * @returns The fields of {@link yFactorReceiverTemperature} (no uncertainties) and T_on, T_off, T0 used [K].
+ * @throws {@link DomainError} for non-positive linear powers, Y ≤ 1, T0 ≤ 0 or T_off < 0.
+ * @example
+ * ```ts
+ * // ENR 15 dB, Y = 10 dB, off at 290 K: F = ENR/(Y − 1) = 31.62/9 → NF 5.458 dB
+ * const r = noiseSourceReceiverTemperature({ enrDb: 15, onPower: 10, offPower: 1 });
+ * // r.onTemperatureK: 9460.6, r.noiseFigureDb: 5.458
+ * ```
  * @category Measurement
  */
-export function noiseSourceReceiverTemperature(input: NoiseSourceInput): YFactorResult {
-  assertFinite('enrDb', input.enrDb);
-  const tOff = input.offTemperatureK ?? T0_K;
-  assertPositive('offTemperatureK', tOff, 'K');
-  const tOn = T0_K * (1 + 10 ** (input.enrDb / 10));
-  return yFactorReceiverTemperature({
+export function noiseSourceReceiverTemperature(input: NoiseSourceInput): NoiseSourceResult {
+  const t0 = input.enrReferenceTemperatureK ?? T0_K;
+  const tOn = noiseSourceOnTemperature(input.enrDb, t0);
+  const tOff = input.offTemperatureK ?? t0;
+  assertNonNegative('offTemperatureK', tOff, 'K');
+  const r = yFactorReceiverTemperature({
     hotPower: input.onPower,
     coldPower: input.offPower,
     hotTemperatureK: tOn,
     coldTemperatureK: tOff,
     powerScale: input.powerScale,
   });
+  return { ...r, onTemperatureK: tOn, offTemperatureK: tOff, enrReferenceTemperatureK: t0 };
 }

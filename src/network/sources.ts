@@ -8,14 +8,17 @@
  * i_sc = Y v_oc the currents the network drives into short circuits.
  * @module
  */
-import { DimensionError, DomainError, NotPositiveDefiniteError } from '../errors.js';
-import { type CMatrix, type ComplexLike, complexParts } from '../linalg/cmatrix.js';
-import { add, hermitianPart, multiply } from '../linalg/ops.js';
+import { DimensionError, DomainError, NotPositiveDefiniteError, SingularMatrixError } from '../errors.js';
+import { type CMatrix, type ComplexLike, complexParts, zeros } from '../linalg/cmatrix.js';
+import { add, hermitianPart, multiply, pick, subtract } from '../linalg/ops.js';
 import { inverse, solve } from '../linalg/lu.js';
 import { choleskyFactor, choleskySolve } from '../linalg/cholesky.js';
 import { assertColumn, assertFiniteCMatrix, assertSquare } from '../internal/validate.js';
+import { gemmKernel } from '../internal/gemm.js';
 import { scatteringStack } from './convert.js';
 import { type Multiport, assertMultiport } from './multiport.js';
+import type { PortLoad } from './connect.js';
+import { checkPortList } from './ports.js';
 
 /**
  * A Norton equivalent: I = Y V − i_sc.
@@ -87,39 +90,115 @@ export interface LoadResponseResult {
   readonly portPowerW: Float64Array;
   /** Total power delivered to the load [W]. */
   readonly totalPowerW: number;
-  /** Available power of the sources, ¼ v_ocᴴ (Re Z)⁻¹ v_oc [W]. */
-  readonly availablePowerW: number;
-  /** Mismatch factor totalPowerW / availablePowerW, in [0, 1] for passive Z. */
-  readonly mismatchFactor: number;
+  /**
+   * Available power of the sources, ¼ v_ocᴴ (Re Z)⁻¹ v_oc [W]; absent when (Z + Zᴴ)/2 is not
+   * positive definite (a lossless or active source has no finite available power).
+   */
+  readonly availablePowerW?: number;
+  /** Mismatch factor totalPowerW / availablePowerW, in [0, 1] for passive Z; absent with `availablePowerW`. */
+  readonly mismatchFactor?: number;
+}
+
+/** One port's load for a single-frequency source network: its impedance, or open (no current). */
+interface ParsedLoad { open: boolean; re: number; im: number }
+
+function parseLoads(name: string, loads: ReadonlyArray<PortLoad>, count: number, what: string): ParsedLoad[] {
+  if (!Array.isArray(loads) || loads.length !== count) {
+    throw new DimensionError(`invalid argument "${name}": expected ${count} loads (${what}), received ${Array.isArray(loads) ? loads.length : typeof loads}.`);
+  }
+  return loads.map((load: PortLoad, i): ParsedLoad => {
+    if (load === 'open') return { open: true, re: 0, im: 0 };
+    if (load === 'short') return { open: false, re: 0, im: 0 };
+    if (Array.isArray(load)) {
+      if (load.length !== 1) {
+        throw new DimensionError(`invalid argument "${name}[${i}]": a Thevenin equivalent holds one frequency, so a per-frequency load needs exactly 1 value, received ${load.length}.`);
+      }
+      const [re, im] = complexParts(`${name}[${i}][0]`, load[0]);
+      return { open: false, re, im };
+    }
+    const [re, im] = complexParts(`${name}[${i}]`, load as ComplexLike);
+    return { open: false, re, im };
+  });
+}
+
+/** Diagonal matrix of the listed loads' impedances. */
+function loadDiagonal(loads: ReadonlyArray<ParsedLoad>): CMatrix {
+  const m = zeros(loads.length);
+  loads.forEach((l, i) => { m.data[2 * (i * loads.length + i)] = l.re; m.data[2 * (i * loads.length + i) + 1] = l.im; });
+  return m;
+}
+
+/** The available power, or undefined when Re Z is not positive definite. */
+function availablePowerIfFinite(z: CMatrix, v: CMatrix): number | undefined {
+  const f = choleskyFactor(hermitianPart(z));
+  if (!f.positiveDefinite) return undefined;
+  const x = choleskySolve(f, v);
+  let p = 0;
+  for (let i = 0; i < z.rows; i++) p += v.data[2 * i] * x.data[2 * i] + v.data[2 * i + 1] * x.data[2 * i + 1];
+  return p / 4;
 }
 
 /**
- * Voltages, currents and powers of a Thevenin source network closed by a load matrix.
+ * Voltages, currents and powers of a Thevenin source network closed by loads.
  *
  * @remarks
- * The load obeys V = Z_L i_L with i_L = −I, so i_L = (Z + Z_L)⁻¹ v_oc and V = Z_L i_L.
+ * The loads are either one {@link PortLoad} per port (the type {@link terminatePorts} takes:
+ * an impedance, `'open'` or `'short'`; a per-frequency list must hold one value) or a coupled
+ * load impedance matrix Z_L (N×N). A load obeys V = Z_L i_L with i_L = −I, so on the ports
+ * that are not open i_L = (Z + Z_L)⁻¹ v_oc (restricted to them) and V = Z_L i_L; an open port
+ * carries no current and shows V = v_oc − Z i_L there.
  * The available power is the maximum of the delivered power over all loads, reached at
- * Z_L = Zᴴ: P_av = ¼ v_ocᴴ R⁻¹ v_oc with R = (Z + Zᴴ)/2 (requires R positive definite).
+ * Z_L = Zᴴ: P_av = ¼ v_ocᴴ R⁻¹ v_oc with R = (Z + Zᴴ)/2; when R is not positive definite
+ * (a lossless source) it and the mismatch factor are left out and the voltages, currents and
+ * powers are still returned.
  * Source: H. A. Haus and R. B. Adler, *Circuit Theory of Linear Noisy Networks*, Wiley,
  * 1959, ch. 3 (from memory); one-port case: P_av = |v_oc|²/(4 Re Z).
+ * Conventions: docs/conventions.md (RMS phasors, currents into the ports).
  * @param thevenin - Z [Ω] (N×N) and v_oc [V RMS] (N×1).
- * @param loadOhm - Load impedance matrix Z_L [Ω], N×N (diagonal for separate port loads).
- * @returns Voltages, load currents, powers, available power and the mismatch factor.
- * @throws {@link DimensionError} on shapes; {@link SingularMatrixError} if Z + Z_L is singular;
- *   {@link NotPositiveDefiniteError} if Re Z is not positive definite (no available power).
+ * @param loads - One {@link PortLoad} per port [Ω], or a load impedance matrix Z_L [Ω], N×N.
+ * @returns Voltages, load currents, powers, and (for Re Z positive definite) the available power and mismatch factor.
+ * @throws {@link DimensionError} on shapes; {@link DomainError} on a bad load;
+ *   {@link SingularMatrixError} if Z + Z_L (on the ports not open) is singular.
+ * @example
+ * ```ts
+ * // a lossless 1-port source, v_oc = 1 V, j50 Ω, into 50 Ω: |V| = 1/√2
+ * const r = loadResponse({ impedanceOhm: fromRows([[{ re: 0, im: 50 }]]), openCircuitVoltageV: columnVector([1]) }, [50]);
+ * Math.hypot(r.voltageV.data[0], r.voltageV.data[1]); // ≈ 0.707107
+ * 'availablePowerW' in r; // false (a lossless source has no finite available power)
+ * ```
  * @category Network
  */
-export function loadResponse(thevenin: TheveninEquivalent, loadOhm: CMatrix): LoadResponseResult {
+export function loadResponse(thevenin: TheveninEquivalent, loads: CMatrix | ReadonlyArray<PortLoad>): LoadResponseResult {
   const z = thevenin.impedanceOhm, v = thevenin.openCircuitVoltageV;
   checkThevenin(z, v);
-  assertSquare('loadOhm', loadOhm);
-  assertFiniteCMatrix('loadOhm', loadOhm);
-  if (loadOhm.rows !== z.rows) {
-    throw new DimensionError(`invalid argument "loadOhm": expected ${z.rows}×${z.rows} (one row and column per port of "impedanceOhm"), received ${loadOhm.rows}×${loadOhm.cols}.`);
-  }
-  const iL = solve(add(z, loadOhm), v);
-  const vv = multiply(loadOhm, iL);
   const n = z.rows;
+  let active: number[];
+  let zl: CMatrix;
+  if (Array.isArray(loads)) {
+    const parsed = parseLoads('loads', loads, n, 'one per port of "impedanceOhm"');
+    active = parsed.flatMap((l, i) => (l.open ? [] : [i]));
+    zl = loadDiagonal(active.map((i) => parsed[i]));
+  } else {
+    const m = loads as CMatrix;
+    assertSquare('loads', m);
+    assertFiniteCMatrix('loads', m);
+    if (m.rows !== n) {
+      throw new DimensionError(`invalid argument "loads": expected ${n}×${n} (one row and column per port of "impedanceOhm"), received ${m.rows}×${m.cols}.`);
+    }
+    active = Array.from({ length: n }, (_, i) => i);
+    zl = m;
+  }
+  const all = Array.from({ length: n }, (_, i) => i);
+  const iA = active.length > 0 ? solve(add(pick(z, active, active), zl), pick(v, active, [0])) : zeros(0, 1);
+  const vA = active.length > 0 ? multiply(zl, iA) : zeros(0, 1);
+  // All port voltages: V = v_oc − Z_{·A} i_A (I = −i_L, no current at open ports).
+  const vv = active.length > 0 ? subtract(v, multiply(pick(z, all, active), iA)) : zeros(n, 1);
+  if (active.length === 0) vv.data.set(v.data);
+  const iL = zeros(n, 1);
+  active.forEach((p, k) => {
+    iL.data[2 * p] = iA.data[2 * k]; iL.data[2 * p + 1] = iA.data[2 * k + 1];
+    vv.data[2 * p] = vA.data[2 * k]; vv.data[2 * p + 1] = vA.data[2 * k + 1];
+  });
   const portPowerW = new Float64Array(n);
   let total = 0;
   for (let i = 0; i < n; i++) {
@@ -127,8 +206,81 @@ export function loadResponse(thevenin: TheveninEquivalent, loadOhm: CMatrix): Lo
     portPowerW[i] = p;
     total += p;
   }
-  const pav = availablePower(thevenin);
-  return { voltageV: vv, loadCurrentA: iL, portPowerW, totalPowerW: total, availablePowerW: pav, mismatchFactor: total / pav };
+  const pav = availablePowerIfFinite(z, v);
+  return pav === undefined
+    ? { voltageV: vv, loadCurrentA: iL, portPowerW, totalPowerW: total }
+    : { voltageV: vv, loadCurrentA: iL, portPowerW, totalPowerW: total, availablePowerW: pav, mismatchFactor: total / pav };
+}
+
+/**
+ * Thevenin and Norton equivalents at the remaining ports of a source network when some ports
+ * are closed by loads: what element p delivers with its neighbours terminated.
+ * @category Network
+ */
+export interface TerminatedSourceEquivalent extends TheveninEquivalent {
+  /** Indices of the remaining ports in the original network, ascending; row i of the result is port `ports[i]`. */
+  readonly ports: readonly number[];
+  /** The Norton dual Y = Z_th⁻¹, i_sc = Y v_th; absent when Z_th is singular. */
+  readonly norton?: NortonEquivalent;
+}
+
+/**
+ * Closes some ports of a Thevenin source network with loads and returns the Thevenin (and
+ * Norton) equivalent at the others.
+ *
+ * @remarks
+ * Partition the ports into kept K and loaded L (open loads drop out: they carry no current).
+ * With the loads Z_L (diagonal) on L, V_L = −Z_L I_L, elimination of I_L gives
+ * Z_th = Z_KK − Z_KL (Z_LL + Z_L)⁻¹ Z_LK and v_th = v_K − Z_KL (Z_LL + Z_L)⁻¹ v_L: the
+ * Schur complement, i.e. Thevenin's theorem applied to the loaded multiport (e.g.
+ * C. A. Desoer and E. S. Kuh, *Basic Circuit Theory*, McGraw-Hill, 1969, ch. 16, from memory).
+ * Z_th is what {@link terminatePorts} gives in scattering form for the same loads; this
+ * function also carries the sources through. Loads are the {@link PortLoad} of
+ * {@link terminatePorts}. Conventions: docs/conventions.md (RMS, currents into the ports).
+ * @param thevenin - Z [Ω] (N×N) and v_oc [V RMS] (N×1).
+ * @param ports - Zero-based indices of the ports to close (distinct), at least one port must remain.
+ * @param loads - One {@link PortLoad} per listed port [Ω].
+ * @returns Z_th [Ω] and v_th [V RMS] at the remaining ports, their indices, and the Norton dual.
+ * @throws {@link DimensionError} on shapes or if no port remains; {@link DomainError} on bad
+ *   indices or loads; {@link SingularMatrixError} if Z_LL + Z_L is singular.
+ * @example
+ * ```ts
+ * // two coupled ports with sources; port 1 closed by 50 Ω:
+ * const t = { impedanceOhm: fromRows([[{ re: 73, im: 42.5 }, { re: -12.5, im: -29.9 }], [{ re: -12.5, im: -29.9 }, { re: 73, im: 42.5 }]]),
+ *   openCircuitVoltageV: columnVector([1, 1]) };
+ * const e = terminateSourcePorts(t, [1], [50]);
+ * e.ports; // [0]
+ * e.openCircuitVoltageV; // ≈ [1.1658 + 0.1858j] V (v₀ − Z₀₁ v₁/(Z₁₁ + 50))
+ * e.impedanceOhm; // ≈ [76.482 + 35.219j] Ω (Z₀₀ − Z₀₁²/(Z₁₁ + 50))
+ * ```
+ * @category Network
+ */
+export function terminateSourcePorts(thevenin: TheveninEquivalent, ports: ReadonlyArray<number>, loads: ReadonlyArray<PortLoad>): TerminatedSourceEquivalent {
+  const z = thevenin.impedanceOhm, v = thevenin.openCircuitVoltageV;
+  checkThevenin(z, v);
+  const n = z.rows;
+  const closed = checkPortList('ports', ports, n);
+  const parsed = parseLoads('loads', loads, closed.length, 'one per listed port');
+  const kept = Array.from({ length: n }, (_, i) => i).filter((i) => !closed.includes(i));
+  if (kept.length === 0) throw new DimensionError(`invalid argument "ports": closing all ${n} ports leaves no port for an equivalent; keep at least one.`);
+  const l = closed.filter((_, k) => !parsed[k].open);
+  const zl = loadDiagonal(parsed.filter((p) => !p.open));
+  let zth = pick(z, kept, kept), vth = pick(v, kept, [0]);
+  if (l.length > 0) {
+    const a = add(pick(z, l, l), zl);
+    const x = solve(a, pick(z, l, kept));
+    const y = solve(a, pick(v, l, [0]));
+    const zkl = pick(z, kept, l);
+    zth = subtract(zth, multiply(zkl, x));
+    vth = subtract(vth, multiply(zkl, y));
+  }
+  let norton: NortonEquivalent | undefined;
+  try {
+    norton = nortonFromThevenin({ impedanceOhm: zth, openCircuitVoltageV: vth });
+  } catch (e) {
+    if (!(e instanceof SingularMatrixError)) throw e;
+  }
+  return norton ? { impedanceOhm: zth, openCircuitVoltageV: vth, ports: kept, norton } : { impedanceOhm: zth, openCircuitVoltageV: vth, ports: kept };
 }
 
 /**
@@ -173,45 +325,58 @@ export function mismatchFactor(sourceOhm: ComplexLike, loadOhm: ComplexLike): nu
 }
 
 /**
- * Active reflection coefficient of every port for a fixed excitation: Γₙ = (S a)ₙ / aₙ.
+ * Active reflection coefficient of every port for one or many fixed excitations: Γₙ = (S a)ₙ / aₙ.
  *
  * @remarks
- * S is the network's scattering matrix with its own references and wave definition; the
- * excitation is the vector of incident waves a (same at every frequency). The reflection a
- * port sees while all ports are driven (scan reflection of an array).
- * Source: D. M. Pozar, "The active element pattern", IEEE Trans. AP 42(8), 1994 (from memory).
+ * S is the network's scattering matrix with its own references and wave definition; each
+ * column of `incidentWaves` is one vector of incident waves a (the same at every frequency).
+ * The reflection a port sees while all ports are driven (scan reflection of an array).
+ * The conversion to S is done once per call and the excitations are applied with one matrix
+ * product S·A per frequency, so pass every scan excitation in one call (K columns) rather than
+ * calling once per beam. Source: D. M. Pozar, "The active element pattern", IEEE Trans. AP
+ * 42(8), 1994 (from memory).
  * @param net - The network.
- * @param incidentWaves - Incident waves a, N×1 [√W], every entry ≠ 0.
- * @returns Γ per frequency and port: F×N CMatrix (row k = frequency index k), dimensionless.
- * @throws {@link DimensionError} on a wrong length; {@link DomainError} if some aₙ = 0.
+ * @param incidentWaves - Incident waves, N×K [√W] (one excitation per column), every entry ≠ 0.
+ * @returns Γ, (F·K)×N CMatrix, dimensionless: row f·K + k holds frequency index f, excitation k
+ *   (for one excitation, row f is frequency f).
+ * @throws {@link DimensionError} on a wrong number of rows; {@link DomainError} if some aₙ = 0.
+ * @example
+ * ```ts
+ * // two scan excitations of a 2-port at one frequency in one call: rows = frequencies × excitations
+ * const net = createMultiport('scattering', [1e9], [fromRows([[0.1, 0.2], [0.2, 0.1]])]);
+ * activeReflection(net, fromRows([[1, 1], [1, -1]])).rows; // 2
+ * ```
  * @category Network
  */
 export function activeReflection(net: Multiport, incidentWaves: CMatrix): CMatrix {
   assertMultiport('net', net);
   const n = net.ports;
-  assertColumn('incidentWaves', incidentWaves, n, 'one incident wave per port');
   assertFiniteCMatrix('incidentWaves', incidentWaves);
+  if (incidentWaves.rows !== n || incidentWaves.cols < 1) {
+    throw new DimensionError(`invalid argument "incidentWaves": expected ${n}×K (one incident wave per port, one column per excitation), received ${incidentWaves.rows}×${incidentWaves.cols}.`);
+  }
+  const kx = incidentWaves.cols;
   const a = incidentWaves.data;
-  for (let i = 0; i < n; i++) {
+  for (let i = 0; i < n * kx; i++) {
     if (a[2 * i] === 0 && a[2 * i + 1] === 0) {
-      throw new DomainError(`invalid argument "incidentWaves": entry ${i} is 0, so the active reflection of port ${i} is undefined; excite every port.`);
+      throw new DomainError(`invalid argument "incidentWaves": entry (${Math.floor(i / kx)}, ${i % kx}) is 0, so the active reflection of port ${Math.floor(i / kx)} is undefined; excite every port.`);
     }
   }
   const s = scatteringStack(net);
   const nf = net.frequencyHz.length;
-  const out = new Float64Array(2 * nf * n);
-  for (let k = 0; k < nf; k++) {
+  const out = new Float64Array(2 * nf * kx * n);
+  const sa = new Float64Array(2 * n * kx);
+  for (let f = 0; f < nf; f++) {
+    gemmKernel(n, kx, n, s, f * n * n, n, a, 0, kx, sa, 0, kx, false);
     for (let i = 0; i < n; i++) {
-      let re = 0, im = 0;
-      for (let j = 0; j < n; j++) {
-        const q = 2 * (k * n * n + i * n + j);
-        re += s[q] * a[2 * j] - s[q + 1] * a[2 * j + 1];
-        im += s[q] * a[2 * j + 1] + s[q + 1] * a[2 * j];
+      for (let k = 0; k < kx; k++) {
+        const q = 2 * (i * kx + k), re = sa[q], im = sa[q + 1];
+        const ar = a[q], ai = a[q + 1], m = ar * ar + ai * ai;
+        const o = 2 * ((f * kx + k) * n + i);
+        out[o] = (re * ar + im * ai) / m;
+        out[o + 1] = (im * ar - re * ai) / m;
       }
-      const ar = a[2 * i], ai = a[2 * i + 1], m = ar * ar + ai * ai;
-      out[2 * (k * n + i)] = (re * ar + im * ai) / m;
-      out[2 * (k * n + i) + 1] = (im * ar - re * ai) / m;
     }
   }
-  return { rows: nf, cols: n, data: out };
+  return { rows: nf * kx, cols: n, data: out };
 }

@@ -18,3 +18,5 @@ export type { FftGridArrayFactor } from './gridPaths.js';
 export { separableGridArrayFactor, fftGridArrayFactor, fftGridArrayFactorInto } from './gridPaths.js';
 export type { SchelkunoffArc } from './schelkunoff.js';
 export { schelkunoffZeros, weightsFromSchelkunoffZeros, nullSteeringWeights, schelkunoffVisibleArc } from './schelkunoff.js';
+export type { IsotropicNoiseOptions, MaximumDirectivityResult } from './overlap.js';
+export { isotropicNoiseMatrix, maximumDirectivity } from './overlap.js';

@@ -72,4 +72,20 @@ describe('phasewise yfactor', () => {
     const y = await run(['yfactor', join(dir, 'ok.csv'), '--hot-k', '77', '--cold-k', '290']);
     expect(y.code).toBe(2);
   });
+  it('noise-source form prints the on temperature T0(1 + ENR) it used', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'pw-cli-'));
+    writeFileSync(join(dir, 'diode.csv'), 'channel,hot,cold\nA,10,1\n');
+    const r = await run(['yfactor', join(dir, 'diode.csv'), '--enr-db', '15', '--cold-k', '290']);
+    expect(r.code).toBe(0);
+    // T_on = 290·(1 + 10^1.5) = 9460.6 K; F = ENR/(Y − 1) (Keysight AN 57-1, from memory) → NF = 10 log10(31.62/9) = 5.4576 dB.
+    expect(r.out).toContain('T_on = T0·(1 + ENR) = 9460.61 K (T0 = 290 K)');
+    const j = await run(['yfactor', join(dir, 'diode.csv'), '--enr-db', '15', '--t0-k', '296', '--cold-k', '296', '--json']);
+    const row = JSON.parse(j.out)[0];
+    expect(row.onTemperatureK).toBeCloseTo(296 * (1 + 10 ** 1.5), 9);
+    expect(row.noiseFigureDb).toBeCloseTo(10 * Math.log10(1 + ((296 * 10 ** 1.5) / 9 - 296) / 290), 9);
+    const both = await run(['yfactor', join(dir, 'diode.csv'), '--enr-db', '15', '--hot-k', '300', '--cold-k', '290']);
+    expect(both.code).toBe(2);
+    const none = await run(['yfactor', join(dir, 'diode.csv'), '--cold-k', '290']);
+    expect(none.code).toBe(2);
+  });
 });

@@ -3,7 +3,7 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import {
-  yFactorReceiverTemperature, noiseSourceReceiverTemperature, receiverNoiseFromHotCold, beamReceiverTemperature,
+  yFactorReceiverTemperature, noiseSourceReceiverTemperature, noiseSourceOnTemperature, receiverNoiseFromHotCold, beamReceiverTemperature,
   onOffSensitivity, onOffSensitivityFromCorrelation, apertureEfficiencyFromSensitivity, parseYFactorCsv, parseOnOffCsv,
   reduceYFactorTable, reduceOnOffTable,
 } from '../../src/measure/index.js';
@@ -47,6 +47,22 @@ describe('single-channel Y-factor', () => {
     const r = noiseSourceReceiverTemperature({ enrDb, onPower: y, offPower: 1 });
     expect(r.noiseFigureDb).toBeCloseTo(enrDb - 10 * Math.log10(y - 1), 10);
     expect(r.receiverTemperatureK).toBeCloseTo(T0_K * (10 ** (enrDb / 10) / (y - 1) - 1), 8);
+    // The result states the temperatures it used: T_on = T0(1 + ENR), T_off = T0 = 290 K.
+    expect(r.onTemperatureK).toBeCloseTo(290 * (1 + 10 ** 1.52), 9);
+    expect(r.offTemperatureK).toBe(290);
+    expect(r.enrReferenceTemperatureK).toBe(290);
+  });
+  it('noise-source form with a settable T0 and a cold off state: the Y-factor identity holds', () => {
+    // Synthetic linear receiver: P ∝ T_source + T_rec. T0 = 296 K, ENR 6 dB, off at 0 K (≥ 0 K accepted, as by the Y-factor).
+    const t0 = 296, tRec = 75, enrDb = 6;
+    const tOn = t0 * (1 + 10 ** (enrDb / 10));
+    expect(noiseSourceOnTemperature(enrDb, t0)).toBeCloseTo(tOn, 10);
+    const r = noiseSourceReceiverTemperature({ enrDb, enrReferenceTemperatureK: t0, offTemperatureK: 0, onPower: tOn + tRec, offPower: tRec });
+    expect(r.receiverTemperatureK).toBeCloseTo(tRec, 9);
+    expect(r.onTemperatureK).toBeCloseTo(tOn, 10);
+    expect(r.offTemperatureK).toBe(0);
+    expect(() => noiseSourceReceiverTemperature({ enrDb, offTemperatureK: -1, onPower: 2, offPower: 1 })).toThrow(DomainError);
+    expect(() => noiseSourceOnTemperature(15, 0)).toThrow(DomainError);
   });
   it('bad input: Y ≤ 1, non-positive powers, inverted loads', () => {
     expect(() => yFactorReceiverTemperature({ hotPower: 1, coldPower: 1, hotTemperatureK: 290, coldTemperatureK: 77 })).toThrow(/Y = .* ≤ 1/);

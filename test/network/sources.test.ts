@@ -1,7 +1,11 @@
 import { describe, it, expect } from 'vitest';
+import type { CMatrix } from '../../src/linalg/cmatrix.js';
 import {
-  nortonFromThevenin, theveninFromNorton, loadResponse, availablePower, mismatchFactor, activeReflection,
+  nortonFromThevenin, theveninFromNorton, loadResponse, availablePower, mismatchFactor, activeReflection, terminateSourcePorts,
 } from '../../src/network/sources.js';
+import type { PortLoad } from '../../src/network/connect.js';
+import { terminatePorts } from '../../src/network/connect.js';
+import { solve, zeros, identity } from '../../src/linalg/index.js';
 import { checkReciprocity, checkPassivity, checkLossless } from '../../src/network/checks.js';
 import { interpolateMultiport } from '../../src/network/interpolate.js';
 import { createMultiport, multiportMatrix } from '../../src/network/multiport.js';
@@ -24,7 +28,7 @@ describe('Thevenin / Norton, loads, available power', () => {
   it('conjugate-matched load draws the available power; mismatch factor ≤ 1 otherwise', () => {
     const t = { impedanceOhm: z, openCircuitVoltageV: v };
     const matched = loadResponse(t, adjoint(z));
-    expect(matched.totalPowerW).toBeCloseTo(matched.availablePowerW, 14);
+    expect(matched.totalPowerW).toBeCloseTo(matched.availablePowerW!, 14);
     expect(matched.mismatchFactor).toBeCloseTo(1, 12);
     const other = loadResponse(t, fromRows([[50, 0, 0], [0, 50, 0], [0, 0, 50]]));
     expect(other.mismatchFactor).toBeLessThan(1);
@@ -51,6 +55,115 @@ describe('Thevenin / Norton, loads, available power', () => {
     const sa = multiply(s, a);
     for (let i = 0; i < 3; i++) expect(entry(g, 0, i).sub(entry(sa, i).div(entry(a, i))).abs()).toBeLessThan(1e-15);
     expect(() => activeReflection(net, columnVector([1, 0, 1]))).toThrow(DomainError);
+  });
+  it('active reflection for K excitations in one call: row f·K + k is (S_f a_k)ₙ / a_k,n (40 ports, 7 scan excitations)', () => {
+    const n = 40, kx = 7;
+    const s = randomMatrix(n, n, 61);
+    const net = createMultiport('scattering', [1e9, 2e9], [s, scale(s, 0.5)]);
+    const a = randomMatrix(n, kx, 62);
+    const g = activeReflection(net, a);
+    expect(g.rows).toBe(2 * kx);
+    for (let f = 0; f < 2; f++) {
+      const sa = multiply(f === 0 ? s : scale(s, 0.5), a);
+      for (let k = 0; k < kx; k++) for (let i = 0; i < n; i++) {
+        expect(entry(g, f * kx + k, i).sub(entry(sa, i, k).div(entry(a, i, k))).abs()).toBeLessThan(1e-12 * (1 + entry(g, f * kx + k, i).abs()));
+      }
+    }
+  });
+});
+
+/**
+ * Independent solve of the full circuit: unknowns x = [V; I] (2N), equations V − Z I = v_oc and one
+ * constraint per port: 'open' I = 0, 'short' V = 0, an impedance V + Z_L I = 0 (the load takes −I),
+ * or a given injected current I = c (a test source). Plain Kirchhoff bookkeeping, no Schur complement.
+ */
+function solveCircuit(z: CMatrix, voc: CMatrix, ports: ({ kind: 'load'; load: PortLoad } | { kind: 'current'; a: number })[]): { v: CMatrix; i: CMatrix } {
+  const n = z.rows;
+  const m = zeros(2 * n, 2 * n), rhs = zeros(2 * n, 1);
+  const set = (r: number, c: number, re: number, im = 0) => { m.data[2 * (r * 2 * n + c)] = re; m.data[2 * (r * 2 * n + c) + 1] = im; };
+  for (let r = 0; r < n; r++) {
+    set(r, r, 1);
+    for (let c = 0; c < n; c++) set(r, n + c, -z.data[2 * (r * n + c)], -z.data[2 * (r * n + c) + 1]);
+    rhs.data[2 * r] = voc.data[2 * r]; rhs.data[2 * r + 1] = voc.data[2 * r + 1];
+  }
+  ports.forEach((p, k) => {
+    const r = n + k;
+    if (p.kind === 'current') { set(r, n + k, 1); rhs.data[2 * r] = p.a; return; }
+    if (p.load === 'open') set(r, n + k, 1);
+    else if (p.load === 'short') set(r, k, 1);
+    else { const zl = p.load as { re: number; im: number }; set(r, k, 1); set(r, n + k, zl.re, zl.im); }
+  });
+  const x = solve(m, rhs);
+  return { v: { rows: n, cols: 1, data: x.data.slice(0, 2 * n) }, i: { rows: n, cols: 1, data: x.data.slice(2 * n) } };
+}
+
+describe('terminateSourcePorts: Thevenin and Norton at some ports of a source-bearing multiport', () => {
+  const z = randomPassiveImpedance(5, 91);
+  const voc = columnVector([{ re: 1, im: 0.5 }, { re: -0.3, im: 0.2 }, 0.7, { re: 0, im: -0.4 }, 0.25]);
+  const closed = [1, 3, 4];
+  const loads: PortLoad[] = [{ re: 50, im: 10 }, 'short', 'open'];
+  const kept = [0, 2];
+  const loadFor = (p: number): PortLoad => loads[closed.indexOf(p)];
+  const e = terminateSourcePorts({ impedanceOhm: z, openCircuitVoltageV: voc }, closed, loads);
+  it('v_th equals the open-circuit voltages of the full circuit; Z_th its responses to test currents', () => {
+    expect(e.ports).toEqual(kept);
+    const oc = solveCircuit(z, voc, [0, 1, 2, 3, 4].map((p) => (kept.includes(p) ? { kind: 'current' as const, a: 0 } : { kind: 'load' as const, load: loadFor(p) })));
+    expectCMatrixClose(e.openCircuitVoltageV, { rows: 2, cols: 1, data: Float64Array.of(oc.v.data[0], oc.v.data[1], oc.v.data[4], oc.v.data[5]) }, { rtol: 1e-12 });
+    // Z_th column j: voltages at the kept ports for a 1 A test current into kept port j, sources off.
+    const zero = zeros(5, 1);
+    kept.forEach((pj, j) => {
+      const r = solveCircuit(z, zero, [0, 1, 2, 3, 4].map((p) => (kept.includes(p) ? { kind: 'current' as const, a: p === pj ? 1 : 0 } : { kind: 'load' as const, load: loadFor(p) })));
+      kept.forEach((pi, i) => {
+        expect(Math.abs(e.impedanceOhm.data[2 * (i * 2 + j)] - r.v.data[2 * pi])).toBeLessThan(1e-10 * 50);
+        expect(Math.abs(e.impedanceOhm.data[2 * (i * 2 + j) + 1] - r.v.data[2 * pi + 1])).toBeLessThan(1e-10 * 50);
+      });
+    });
+  });
+  it('the Norton dual: i_sc equals the currents the full circuit drives into shorts at the kept ports', () => {
+    const sc = solveCircuit(z, voc, [0, 1, 2, 3, 4].map((p) => ({ kind: 'load' as const, load: kept.includes(p) ? 'short' : loadFor(p) })));
+    // i_sc is the current out of the port into the short: −I.
+    const isc = e.norton!.shortCircuitCurrentA;
+    kept.forEach((p, i) => {
+      expect(Math.abs(isc.data[2 * i] + sc.i.data[2 * p])).toBeLessThan(1e-12);
+      expect(Math.abs(isc.data[2 * i + 1] + sc.i.data[2 * p + 1])).toBeLessThan(1e-12);
+    });
+  });
+  it('Z_th agrees with terminatePorts on the same loads (scattering at 50 Ω converted back)', () => {
+    const net = terminatePorts(createMultiport('impedance', [1e9], [z]), closed, loads);
+    expectCMatrixClose(multiportMatrix(convertMultiport(net, 'impedance'), 0), e.impedanceOhm, { rtol: 1e-11 });
+  });
+  it('rejects closing every port, a bad load and a multi-frequency load', () => {
+    const t = { impedanceOhm: z, openCircuitVoltageV: voc };
+    expect(() => terminateSourcePorts(t, [0, 1, 2, 3, 4], [1, 1, 1, 1, 1])).toThrow(DimensionError);
+    expect(() => terminateSourcePorts(t, [0], ['nope' as unknown as PortLoad])).toThrow(DomainError);
+    expect(() => terminateSourcePorts(t, [0], [[1, 2]])).toThrow(DimensionError);
+    expect(() => terminateSourcePorts(t, [0, 1], [1])).toThrow(DimensionError);
+  });
+});
+
+describe('loadResponse takes the PortLoad list of terminatePorts', () => {
+  const z = randomPassiveImpedance(3, 17);
+  const voc = columnVector([1, { re: 0, im: 1 }, -0.5]);
+  it("per-port loads with 'open' and 'short' match the full-circuit solve", () => {
+    const loads: PortLoad[] = [{ re: 50, im: -5 }, 'open', 'short'];
+    const r = loadResponse({ impedanceOhm: z, openCircuitVoltageV: voc }, loads);
+    const c = solveCircuit(z, voc, loads.map((load) => ({ kind: 'load' as const, load })));
+    expectCMatrixClose(r.voltageV, c.v, { rtol: 1e-12 });
+    expectCMatrixClose(r.loadCurrentA, scale(c.i, -1), { rtol: 1e-12 });
+    expect(Math.abs(r.portPowerW[1])).toBe(0);
+    expect(Math.abs(r.portPowerW[2])).toBe(0);
+    // The list form equals the matrix form for the same impedances.
+    const m = loadResponse({ impedanceOhm: z, openCircuitVoltageV: voc }, fromRows([[{ re: 50, im: -5 }, 0, 0], [0, 20, 0], [0, 0, 0]]));
+    const l = loadResponse({ impedanceOhm: z, openCircuitVoltageV: voc }, [{ re: 50, im: -5 }, 20, 'short']);
+    expectCMatrixClose(l.voltageV, m.voltageV, { rtol: 1e-13 });
+  });
+  it('a lossless source: voltages without a throw, no available power (issue 23)', () => {
+    // One-port j50 Ω, v_oc = 1 V into 50 Ω: V = 50/(50 + 50j) → |V| = 1/√2 (voltage divider).
+    const r = loadResponse({ impedanceOhm: fromRows([[{ re: 0, im: 50 }]]), openCircuitVoltageV: col([1]) }, [50]);
+    expect(Math.hypot(r.voltageV.data[0], r.voltageV.data[1])).toBeCloseTo(Math.SQRT1_2, 14);
+    expect(r.availablePowerW).toBeUndefined();
+    expect(r.mismatchFactor).toBeUndefined();
+    expect(r.totalPowerW).toBeCloseTo(0.5 / 50, 14); // |V|²/R = 0.5/50 W
   });
 });
 

@@ -3,7 +3,7 @@
  * @internal
  * @module
  */
-import { reduceYFactorTable, type YFactorTableResult } from '../../measure/index.js';
+import { noiseSourceOnTemperature, reduceYFactorTable, type YFactorTableResult } from '../../measure/index.js';
 import { readYFactorCsv } from '../../measure/node.js';
 import { num, table } from '../format.js';
 
@@ -12,10 +12,20 @@ export function runYFactor(path: string, hotTemperatureK: number, coldTemperatur
   return reduceYFactorTable(readYFactorCsv(path), { hotTemperatureK, coldTemperatureK, powerScale: db ? 'dB' : 'linear' });
 }
 
+/** A noise source's setting as the reduction used it. @internal */
+export interface NoiseSourceSetting { enrDb: number; enrReferenceTemperatureK: number; onTemperatureK: number }
+
+/** The on temperature T0·(1 + ENR) of a noise source. @internal */
+export function noiseSourceSetting(enrDb: number, t0K: number): NoiseSourceSetting {
+  return { enrDb, enrReferenceTemperatureK: t0K, onTemperatureK: noiseSourceOnTemperature(enrDb, t0K) };
+}
+
 /** Human-readable rendering. @internal */
-export function formatYFactor(rows: readonly YFactorTableResult[], hot: number, cold: number): string {
+export function formatYFactor(rows: readonly YFactorTableResult[], hot: number, cold: number, source?: NoiseSourceSetting): string {
   return [
-    `Y-factor reduction, loads at ${hot} K and ${cold} K`,
+    source
+      ? `Y-factor reduction, noise source ENR ${source.enrDb} dB: on at T_on = T0·(1 + ENR) = ${num(source.onTemperatureK, 6)} K (T0 = ${source.enrReferenceTemperatureK} K), off at ${cold} K`
+      : `Y-factor reduction, loads at ${hot} K and ${cold} K`,
     '',
     table(['channel', 'Y', 'T_rec [K]', 'NF [dB]'], rows.map((r) => [r.channel, num(r.yFactor, 5), num(r.receiverTemperatureK, 5), num(r.noiseFigureDb, 4)])),
   ].join('\n');

@@ -1,0 +1,10 @@
+export type { WireSpec, WirePort, WireLoad, WireStructure } from './types.js';
+export { WireGeometryError } from './types.js';
+export type { WireElementArray, PlaceWireElementOptions } from './array.js';
+export { placeWireElement } from './array.js';
+export type { WireSolveOptions } from './model.js';
+export type { WireSegments, WireCheck, WireTimings, WireBlockCounts, WireSolution } from './solve.js';
+export { solveWires } from './solve.js';
+export { wireLoadImpedance } from './loads.js';
+export type { WireArrayPortsOptions, WireArrayPortSource } from './patterns.js';
+export { wireFarField, wireArrayPorts } from './patterns.js';
