@@ -12,7 +12,7 @@
  *
  * @remarks
  * `code` is a stable machine-readable tag (`'dimension'`, `'domain'`,
- * `'singular'`, `'not-positive-definite'`, `'convergence'`, `'parse'`) so that
+ * `'singular'`, `'not-positive-definite'`, `'convergence'`, `'capacity'`, `'parse'`) so that
  * callers can branch without string matching.
  * @category Errors
  */
@@ -100,6 +100,29 @@ export class ConvergenceError extends NumericError {
   constructor(message: string) {
     super(message, 'convergence');
     this.name = 'ConvergenceError';
+  }
+}
+
+/**
+ * A job is larger than the memory (or another resource) available to it; the
+ * message names the size, the estimate and the limit.
+ * @category Errors
+ */
+export class CapacityError extends NumericError {
+  /** Estimated requirement [bytes]. */
+  readonly requiredBytes: number;
+  /** Limit it exceeds [bytes]. */
+  readonly limitBytes: number;
+  /**
+   * @param message - What is too large, the estimate, the limit and a remedy.
+   * @param requiredBytes - Estimated requirement [bytes].
+   * @param limitBytes - The limit [bytes].
+   */
+  constructor(message: string, requiredBytes: number, limitBytes: number) {
+    super(message, 'capacity');
+    this.name = 'CapacityError';
+    this.requiredBytes = requiredBytes;
+    this.limitBytes = limitBytes;
   }
 }
 

@@ -5,6 +5,7 @@
  * @module
  */
 export * from './errors.js';
+export * from './checks.js';
 export * from './linalg/index.js';
 export * from './units/index.js';
 export * from './taper/index.js';

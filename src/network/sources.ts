@@ -14,6 +14,7 @@ import { add, hermitianPart, multiply, pick, subtract } from '../linalg/ops.js';
 import { inverse, solve } from '../linalg/lu.js';
 import { choleskyFactor, choleskySolve } from '../linalg/cholesky.js';
 import { assertColumn, assertFiniteCMatrix, assertSquare } from '../internal/validate.js';
+import { gemmKernel } from '../internal/gemm.js';
 import { scatteringStack } from './convert.js';
 import { type Multiport, assertMultiport } from './multiport.js';
 import type { PortLoad } from './connect.js';
@@ -324,45 +325,58 @@ export function mismatchFactor(sourceOhm: ComplexLike, loadOhm: ComplexLike): nu
 }
 
 /**
- * Active reflection coefficient of every port for a fixed excitation: Γₙ = (S a)ₙ / aₙ.
+ * Active reflection coefficient of every port for one or many fixed excitations: Γₙ = (S a)ₙ / aₙ.
  *
  * @remarks
- * S is the network's scattering matrix with its own references and wave definition; the
- * excitation is the vector of incident waves a (same at every frequency). The reflection a
- * port sees while all ports are driven (scan reflection of an array).
- * Source: D. M. Pozar, "The active element pattern", IEEE Trans. AP 42(8), 1994 (from memory).
+ * S is the network's scattering matrix with its own references and wave definition; each
+ * column of `incidentWaves` is one vector of incident waves a (the same at every frequency).
+ * The reflection a port sees while all ports are driven (scan reflection of an array).
+ * The conversion to S is done once per call and the excitations are applied with one matrix
+ * product S·A per frequency, so pass every scan excitation in one call (K columns) rather than
+ * calling once per beam. Source: D. M. Pozar, "The active element pattern", IEEE Trans. AP
+ * 42(8), 1994 (from memory).
  * @param net - The network.
- * @param incidentWaves - Incident waves a, N×1 [√W], every entry ≠ 0.
- * @returns Γ per frequency and port: F×N CMatrix (row k = frequency index k), dimensionless.
- * @throws {@link DimensionError} on a wrong length; {@link DomainError} if some aₙ = 0.
+ * @param incidentWaves - Incident waves, N×K [√W] (one excitation per column), every entry ≠ 0.
+ * @returns Γ, (F·K)×N CMatrix, dimensionless: row f·K + k holds frequency index f, excitation k
+ *   (for one excitation, row f is frequency f).
+ * @throws {@link DimensionError} on a wrong number of rows; {@link DomainError} if some aₙ = 0.
+ * @example
+ * ```ts
+ * // two scan excitations of a 2-port at one frequency in one call: rows = frequencies × excitations
+ * const net = createMultiport('scattering', [1e9], [fromRows([[0.1, 0.2], [0.2, 0.1]])]);
+ * activeReflection(net, fromRows([[1, 1], [1, -1]])).rows; // 2
+ * ```
  * @category Network
  */
 export function activeReflection(net: Multiport, incidentWaves: CMatrix): CMatrix {
   assertMultiport('net', net);
   const n = net.ports;
-  assertColumn('incidentWaves', incidentWaves, n, 'one incident wave per port');
   assertFiniteCMatrix('incidentWaves', incidentWaves);
+  if (incidentWaves.rows !== n || incidentWaves.cols < 1) {
+    throw new DimensionError(`invalid argument "incidentWaves": expected ${n}×K (one incident wave per port, one column per excitation), received ${incidentWaves.rows}×${incidentWaves.cols}.`);
+  }
+  const kx = incidentWaves.cols;
   const a = incidentWaves.data;
-  for (let i = 0; i < n; i++) {
+  for (let i = 0; i < n * kx; i++) {
     if (a[2 * i] === 0 && a[2 * i + 1] === 0) {
-      throw new DomainError(`invalid argument "incidentWaves": entry ${i} is 0, so the active reflection of port ${i} is undefined; excite every port.`);
+      throw new DomainError(`invalid argument "incidentWaves": entry (${Math.floor(i / kx)}, ${i % kx}) is 0, so the active reflection of port ${Math.floor(i / kx)} is undefined; excite every port.`);
     }
   }
   const s = scatteringStack(net);
   const nf = net.frequencyHz.length;
-  const out = new Float64Array(2 * nf * n);
-  for (let k = 0; k < nf; k++) {
+  const out = new Float64Array(2 * nf * kx * n);
+  const sa = new Float64Array(2 * n * kx);
+  for (let f = 0; f < nf; f++) {
+    gemmKernel(n, kx, n, s, f * n * n, n, a, 0, kx, sa, 0, kx, false);
     for (let i = 0; i < n; i++) {
-      let re = 0, im = 0;
-      for (let j = 0; j < n; j++) {
-        const q = 2 * (k * n * n + i * n + j);
-        re += s[q] * a[2 * j] - s[q + 1] * a[2 * j + 1];
-        im += s[q] * a[2 * j + 1] + s[q + 1] * a[2 * j];
+      for (let k = 0; k < kx; k++) {
+        const q = 2 * (i * kx + k), re = sa[q], im = sa[q + 1];
+        const ar = a[q], ai = a[q + 1], m = ar * ar + ai * ai;
+        const o = 2 * ((f * kx + k) * n + i);
+        out[o] = (re * ar + im * ai) / m;
+        out[o + 1] = (im * ar - re * ai) / m;
       }
-      const ar = a[2 * i], ai = a[2 * i + 1], m = ar * ar + ai * ai;
-      out[2 * (k * n + i)] = (re * ar + im * ai) / m;
-      out[2 * (k * n + i) + 1] = (im * ar - re * ai) / m;
     }
   }
-  return { rows: nf, cols: n, data: out };
+  return { rows: nf * kx, cols: n, data: out };
 }

@@ -9,6 +9,7 @@ import { complexParts, type CMatrix } from '../linalg/cmatrix.js';
 import type { NoiseParametersInput } from '../network/noise.js';
 import { assertFiniteCMatrix, assertPositive, assertSquare, describeValue } from '../internal/validate.js';
 import { K_BOLTZMANN_J_PER_K, T0_K } from '../units/constants.js';
+import { herkLowerKernel, herkLowerWeighted } from '../internal/herk.js';
 
 /** @internal Parsed noise parameters. */
 export interface ParsedAmplifier { tMin: number; rn: number; yr: number; yi: number }
@@ -84,16 +85,19 @@ export function receiverNoiseCorrelation(
     ci[k] = -T0_K * a.rn * a.yi;
     si[k] = T0_K * a.rn * (a.yr * a.yr + a.yi * a.yi);
   }
+  // lower triangle of Z Σ_ii Zᴴ by one Hermitian rank-N update (SIMD kernel; scalar fallback on Z√Σ)
+  const zsz = new Float64Array(2 * n * n);
+  if (!herkLowerWeighted(n, n, [z], n, si, zsz)) {
+    const g = new Float64Array(2 * n * n);
+    for (let i = 0; i < n; i++) for (let k = 0; k < n; k++) {
+      const r = Math.sqrt(si[k]), q = 2 * (i * n + k);
+      g[q] = r * z[q]; g[q + 1] = r * z[q + 1];
+    }
+    herkLowerKernel(n, n, g, n, zsz);
+  }
   for (let i = 0; i < n; i++) {
     for (let j = 0; j <= i; j++) {
-      // (Z Σ_ii Zᴴ)_ij = Σ_k Z_ik σ_k conj(Z_jk)
-      let re = 0, im = 0;
-      for (let k = 0; k < n; k++) {
-        const ar = z[2 * (i * n + k)], ai = z[2 * (i * n + k) + 1];
-        const br = z[2 * (j * n + k)], bi = z[2 * (j * n + k) + 1];
-        re += si[k] * (ar * br + ai * bi);
-        im += si[k] * (ai * br - ar * bi);
-      }
+      let re = zsz[2 * (i * n + j)], im = zsz[2 * (i * n + j) + 1];
       // (Z C)_ij = Z_ij c_j ; (C* Zᴴ)_ij = conj(c_i) conj(Z_ji)
       const zr = z[2 * (i * n + j)], zi = z[2 * (i * n + j) + 1];
       re += zr * cr[j] - zi * ci[j];

@@ -3,7 +3,7 @@
  * point of the command line and the demo.
  * @module
  */
-import { DomainError } from '../errors.js';
+import { ConvergenceError, DimensionError, DomainError, SingularMatrixError } from '../errors.js';
 import type { CMatrix, ComplexLike } from '../linalg/cmatrix.js';
 import { complexParts } from '../linalg/cmatrix.js';
 import { assertPositive, describeValue } from '../internal/validate.js';
@@ -11,8 +11,13 @@ import type { SphereQuadrature } from '../geometry/quadrature.js';
 import type { NoiseParametersInput } from '../network/noise.js';
 import { arrayNoiseBudget, type LossModel, type NoiseBudget, type NoiseEnvironment } from './budget.js';
 import {
-  embeddedElementEfficiencies, minimumReceiverTemperature, scanSweep, type BeamFigures,
+  embeddedElementEfficiencies, minimumReceiverTemperatureFrom, scanSweep, type BeamFigures,
 } from './figures.js';
+import { receivingArrayChecks } from './checks.js';
+import type { PhysicalCheck } from '../checks.js';
+import { impedancePassivityWithFactor } from '../network/checks.js';
+import type { CholeskyResult } from '../linalg/cholesky.js';
+import { K_BOLTZMANN_J_PER_K } from '../units/constants.js';
 import {
   assertPatternSource, quadratureDirections, samplePatterns, sampledPatternSource,
   type PortPatternSource, type QuadratureDirections, type SampledPortPatterns,
@@ -29,6 +34,8 @@ export interface ArrayPorts {
   readonly patterns: PortPatternSource | SampledPortPatterns;
   /** Impedance matrix Z_A [Ω], N×N. */
   readonly impedanceOhm: CMatrix;
+  /** Model-validity checks of the ports (e.g. from dipoleArrayPorts), copied into the evaluation's checks. */
+  readonly checks?: ReadonlyArray<PhysicalCheck>;
 }
 
 /**
@@ -53,8 +60,10 @@ export interface EvaluationTimings {
   readonly beamPatterns: number;
   /** Weights and per-beam figures [ms]. */
   readonly weightsAndFigures: number;
-  /** Minimum receiver temperature and embedded element efficiencies [ms]. */
+  /** Passivity of Z, minimum receiver temperature and embedded element efficiencies [ms]. */
   readonly arrayFigures: number;
+  /** Physical checks [ms]. */
+  readonly checks: number;
 }
 
 /**
@@ -86,6 +95,15 @@ export interface ReceivingArrayDescription {
   readonly physicalAreaM2?: number;
   /** Flux density of an unpolarized test source for the SNR [W m⁻² Hz⁻¹]. */
   readonly fluxDensityWPerM2Hz?: number;
+  /**
+   * Compute the array figures (minimum receiver temperature, embedded element
+   * efficiencies). Each costs O(N³) (one factorisation and, for the
+   * efficiencies, one inverse and one product); turn them off for quick looks
+   * at very large arrays. @defaultValue true
+   */
+  readonly arrayFigures?: boolean;
+  /** Accepted relative integration error: bound of the Twiss residual of a lossless array (see twissResidual) and allowance of η_rad ≤ 1. @defaultValue 1e-3 */
+  readonly integrationTolerance?: number;
   /** Progress callback: stage name, beams done, total beams. */
   readonly onProgress?: (stage: 'noise' | 'beams', done: number, total: number) => void;
 }
@@ -101,10 +119,12 @@ export interface ReceivingArrayEvaluation {
   readonly weights: CMatrix;
   /** Figures of merit per beam. */
   readonly beams: BeamFigures[];
-  /** The array's minimum receiver temperature T_rec,min [K]. */
+  /** The array's minimum receiver temperature T_rec,min [K]; NaN exactly when the check `minimumReceiverTemperature` failed or array figures were not requested. */
   readonly minimumReceiverTemperatureK: number;
-  /** Embedded element efficiency of each port (linear). */
+  /** Embedded element efficiency of each port (linear); empty when they could not be computed (failed check `embeddedElementEfficiency`) or were not requested. */
   readonly embeddedElementEfficiency: Float64Array;
+  /** Physical self-checks (receivingArrayChecks); a failed check marks the figures it names as untrustworthy. */
+  readonly checks: PhysicalCheck[];
   /** Unit of every figure, by field name of {@link BeamFigures}. */
   readonly units: Readonly<Record<keyof BeamFigures, string>>;
   /** Wall-clock time of the stages [ms]. */
@@ -136,8 +156,13 @@ function toQuadrature(q: SphereQuadrature | QuadratureDirections): QuadratureDir
  * element efficiencies. Definitions: K. F. Warnick, M. V. Ivashina,
  * R. Maaskant, B. Woestenburg, IEEE Trans. Antennas Propag. 58(6), 2010, and
  * IEEE Std 145-2013 (from memory); see beamFigures.
+ * Stage (4) shares one Cholesky factorisation of (Z + Zᴴ)/2 between the
+ * passivity check and T_rec,min; a figure that cannot be computed (Z not
+ * passive, a singular Z + Z_L) becomes NaN / empty with a failed check, and
+ * the other figures are still computed. Stage (5) builds the physical checks
+ * (receivingArrayChecks).
  * @param description - Ports, quadrature, environment, amplifiers, beams and options.
- * @returns Budget, weights, per-beam figures, array figures, units and stage timings.
+ * @returns Budget, weights, per-beam figures, array figures, physical checks, units and stage timings.
  * @throws {@link DimensionError} for inconsistent port counts or grids; {@link DomainError} for
  *   negative temperatures, non-physical amplifiers and bad options; {@link NotPositiveDefiniteError}
  *   if the total noise is not positive definite when max-SNR weights are requested.
@@ -177,6 +202,10 @@ export function evaluateReceivingArray(description: ReceivingArrayDescription): 
     throw new DomainError(`invalid argument "description.onProgress": expected a function, received ${describeValue(progress)}.`);
   }
 
+  const arrayFigures = d.arrayFigures ?? true;
+  if (typeof arrayFigures !== 'boolean') {
+    throw new DomainError(`invalid argument "description.arrayFigures": expected true or false, received ${describeValue(arrayFigures)}.`);
+  }
   let t = performance.now();
   const budget = arrayNoiseBudget({
     patterns: source, quadrature, impedanceOhm: d.ports.impedanceOhm, environment: d.environment,
@@ -189,29 +218,66 @@ export function evaluateReceivingArray(description: ReceivingArrayDescription): 
   const beamPatterns = samplePatterns(source, d.beams.thetaRad, d.beams.phiRad);
   const tPatterns = performance.now() - t;
 
+  // Array figures: one Cholesky of (Z + Zᴴ)/2 serves the passivity check and T_rec,min.
   t = performance.now();
-  const tMin = minimumReceiverTemperature(budget);
+  const passivity = impedancePassivityWithFactor(d.ports.impedanceOhm, 60);
+  let tMin = NaN, tMinFailure: string | undefined;
+  if (arrayFigures) {
+    try {
+      tMin = minimumReceiverTemperatureFrom(budget, scaledFactor(passivity.factor, 4 * K_BOLTZMANN_J_PER_K * budget.bandwidthHz));
+    } catch (e) {
+      if (!(e instanceof SingularMatrixError || e instanceof ConvergenceError)) throw e;
+      tMinFailure = e.message;
+    }
+  }
   const tArray0 = performance.now() - t;
   t = performance.now();
   const sweep = scanSweep(budget, beamPatterns, {
     weights: d.weights, physicalAreaM2: d.physicalAreaM2, fluxDensityWPerM2Hz: d.fluxDensityWPerM2Hz,
-    minimumReceiverTemperatureK: tMin,
+    minimumReceiverTemperatureK: Number.isFinite(tMin) ? tMin : undefined,
     onProgress: progress === undefined ? undefined : (done, total) => progress('beams', done, total),
   });
   const tFigures = performance.now() - t;
 
   t = performance.now();
-  const eff = embeddedElementEfficiencies(budget, terminations);
+  let eff: Float64Array = new Float64Array(0);
+  let effFailure: string | undefined;
+  if (arrayFigures) {
+    try {
+      eff = embeddedElementEfficiencies(budget, terminations);
+    } catch (e) {
+      if (!(e instanceof SingularMatrixError || e instanceof ConvergenceError)) throw e;
+      effFailure = e.message;
+    }
+  }
   const tArray = tArray0 + performance.now() - t;
+  t = performance.now();
+  const checks = receivingArrayChecks({
+    budget, beams: sweep.beams, lossless: d.loss === 'lossless', passivity,
+    minimumReceiverTemperatureK: arrayFigures ? tMin : undefined, minimumReceiverTemperatureFailure: tMinFailure,
+    embeddedElementEfficiency: eff, embeddedElementEfficiencyFailure: effFailure,
+    portChecks: d.ports.checks, integrationTolerance: d.integrationTolerance,
+  });
+  const tChecks = performance.now() - t;
   return {
     budget, weights: sweep.weights, beams: sweep.beams, minimumReceiverTemperatureK: tMin,
-    embeddedElementEfficiency: eff, units: FIGURE_UNITS,
-    timingsMs: { noiseBudget: tBudget, beamPatterns: tPatterns, weightsAndFigures: tFigures, arrayFigures: tArray },
+    embeddedElementEfficiency: eff, units: FIGURE_UNITS, checks,
+    timingsMs: { noiseBudget: tBudget, beamPatterns: tPatterns, weightsAndFigures: tFigures, arrayFigures: tArray, checks: tChecks },
   };
+}
+
+/** L·√s for a Cholesky factor of A, i.e. the factor of s·A (s > 0). */
+function scaledFactor(f: CholeskyResult, s: number): CholeskyResult {
+  const r = Math.sqrt(s);
+  const l = f.l.data.map((v) => v * r), lh = f.lAdjoint.data.map((v) => v * r);
+  return { ...f, l: { rows: f.n, cols: f.n, data: l }, lAdjoint: { rows: f.n, cols: f.n, data: lh } };
 }
 
 function terminationList(z: ComplexLike | ReadonlyArray<ComplexLike> | undefined, n: number): { re: number; im: number }[] {
   if (z === undefined) return Array.from({ length: n }, () => ({ re: 50, im: 0 }));
+  if (Array.isArray(z) && z.length !== n) {
+    throw new DimensionError(`invalid argument "description.terminationOhm": expected ${n} impedances (one per port) or a single shared value, received ${z.length}.`);
+  }
   if (Array.isArray(z)) return z.map((v, i) => { const [re, im] = complexParts(`description.terminationOhm[${i}]`, v); return { re, im }; });
   const [re, im] = complexParts('description.terminationOhm', z as ComplexLike);
   return Array.from({ length: n }, () => ({ re, im }));

@@ -4,12 +4,13 @@
  * efficiencies, for any weights or for the max-SNR weights.
  * @module
  */
-import { DimensionError, DomainError, NotPositiveDefiniteError } from '../errors.js';
+import { ConvergenceError, DimensionError, DomainError, NotPositiveDefiniteError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
-import { choleskyFactor, choleskySolve } from '../linalg/cholesky.js';
+import { choleskyFactor, choleskySolve, type CholeskyResult } from '../linalg/cholesky.js';
 import { inverse } from '../linalg/lu.js';
-import { generalizedHermitianEigen } from '../linalg/eigen.js';
-import { quadraticForm } from '../linalg/ops.js';
+import { lanczosExtremes } from '../internal/lanczos.js';
+import { solveLowerInPlace, solveUpperInPlace } from '../internal/triangular.js';
+import { gemmKernel } from '../internal/gemm.js';
 import { assertFiniteCMatrix, assertNonNegative, assertPositive, describeValue } from '../internal/validate.js';
 import { ETA0_OHM, K_BOLTZMANN_J_PER_K } from '../units/constants.js';
 import { wavelengthM } from '../units/convert.js';
@@ -76,25 +77,18 @@ export function checkBeamPatterns(budget: NoiseBudget, patterns: SampledPortPatt
   }
 }
 
-/** @internal wᴴ(f_θ f_θᴴ + f_φ f_φᴴ)w for direction column k. */
-function signalPower(w: Float64Array, wOff: number, p: SampledPortPatterns, k: number): number {
+/** @internal wᴴ(f_θ f_θᴴ + f_φ f_φᴴ)w for direction column k; w read with stride `ldw` (complex) from `wOff` (doubles). */
+function signalPower(w: Float64Array, wOff: number, ldw: number, p: SampledPortPatterns, k: number): number {
   const n = p.thetaComponentV.rows, m = p.thetaComponentV.cols;
   const ft = p.thetaComponentV.data, fp = p.phiComponentV.data;
   let tr = 0, ti = 0, pr = 0, pi = 0;
   for (let i = 0; i < n; i++) {
-    const wr = w[wOff + 2 * i], wi = -w[wOff + 2 * i + 1]; // conj(w)
+    const wr = w[wOff + 2 * i * ldw], wi = -w[wOff + 2 * i * ldw + 1]; // conj(w)
     const a = 2 * (i * m + k);
     tr += wr * ft[a] - wi * ft[a + 1]; ti += wr * ft[a + 1] + wi * ft[a];
     pr += wr * fp[a] - wi * fp[a + 1]; pi += wr * fp[a + 1] + wi * fp[a];
   }
   return tr * tr + ti * ti + pr * pr + pi * pi;
-}
-
-function column(w: CMatrix, j: number): CMatrix {
-  const n = w.rows;
-  const d = new Float64Array(2 * n);
-  for (let i = 0; i < n; i++) { d[2 * i] = w.data[2 * (i * w.cols + j)]; d[2 * i + 1] = w.data[2 * (i * w.cols + j) + 1]; }
-  return { rows: n, cols: 1, data: d };
 }
 
 /**
@@ -133,9 +127,7 @@ export function beamFigures(budget: NoiseBudget, weights: CMatrix, beamPatterns:
     throw new DimensionError(`invalid argument "weights": expected ${n}×${kBeams} (one column per beam direction of "beamPatterns"), received ${weights.rows}×${weights.cols}.`);
   }
   checkOptions(options);
-  const out: BeamFigures[] = [];
-  for (let j = 0; j < kBeams; j++) out.push(figuresOfColumn(budget, column(weights, j), beamPatterns, j, options));
-  return out;
+  return figuresOfColumns(budget, weights, beamPatterns, options);
 }
 
 function checkOptions(o: BeamFigureOptions): void {
@@ -145,19 +137,51 @@ function checkOptions(o: BeamFigureOptions): void {
   if (o.minimumReceiverTemperatureK !== undefined) assertNonNegative('options.minimumReceiverTemperatureK', o.minimumReceiverTemperatureK, 'K');
 }
 
-/** @internal Figures of one beam (no validation). */
-export function figuresOfColumn(budget: NoiseBudget, w: CMatrix, p: SampledPortPatterns, k: number, o: BeamFigureOptions): BeamFigures {
-  const pIso = quadraticForm(w, budget.isotropicPerK);
+/**
+ * @internal Re{wₖᴴ R wₖ} for every column wₖ of W (N×K) and every matrix R of
+ * the list: one matrix product R·W per matrix (SIMD kernel), then K column
+ * dot products — O(N²K) with no per-beam pass over R.
+ */
+export function columnQuadraticForms(w: CMatrix, matrices: ReadonlyArray<CMatrix>): Float64Array[] {
+  const n = w.rows, k = w.cols, x = w.data;
+  const rw = new Float64Array(2 * n * k);
+  return matrices.map((r) => {
+    gemmKernel(n, k, n, r.data, 0, n, x, 0, k, rw, 0, k, false);
+    const out = new Float64Array(k);
+    for (let i = 0; i < n; i++) {
+      for (let c = 0; c < k; c++) {
+        const q = 2 * (i * k + c);
+        out[c] += x[q] * rw[q] + x[q + 1] * rw[q + 1];
+      }
+    }
+    return out;
+  });
+}
+
+/** @internal Figures of every beam (no validation); beam k uses column k of the weights and of the patterns. */
+export function figuresOfColumns(budget: NoiseBudget, weights: CMatrix, p: SampledPortPatterns, o: BeamFigureOptions, onBeam?: (done: number, total: number) => void): BeamFigures[] {
+  const [iso, sky, ground, loss, rec, rad, skyRegion] = columnQuadraticForms(weights, [
+    budget.isotropicPerK, budget.sky, budget.ground, budget.loss, budget.receiver, budget.radiationPerK, budget.skyRegionPerK,
+  ]);
+  const out: BeamFigures[] = [];
+  for (let k = 0; k < weights.cols; k++) {
+    out.push(figuresFromForms(budget, iso[k], sky[k], ground[k], loss[k], rec[k], rad[k], skyRegion[k], signalPower(weights.data, 2 * k, weights.cols, p, k), p, k, o));
+    onBeam?.(k + 1, weights.cols);
+  }
+  return out;
+}
+
+/** @internal Figures of one beam from its quadratic forms (no validation). */
+function figuresFromForms(
+  budget: NoiseBudget, pIso: number, pSky: number, pGround: number, pLoss: number, pRec: number, pRad: number, pSkyRegion: number,
+  sig: number, p: SampledPortPatterns, k: number, o: BeamFigureOptions,
+): BeamFigures {
   if (!(pIso > 0)) {
     throw new DomainError(`invalid beam ${k}: the isotropic noise response wᴴ·2k_B B(Z + Zᴴ)·w is ${pIso}; the weights are zero or the impedance matrix is not passive.`);
   }
-  const pSky = quadraticForm(w, budget.sky), pGround = quadraticForm(w, budget.ground);
-  const pLoss = quadraticForm(w, budget.loss), pRec = quadraticForm(w, budget.receiver);
-  const pRad = quadraticForm(w, budget.radiationPerK), pSkyRegion = quadraticForm(w, budget.skyRegionPerK);
   const tSys = (pSky + pGround + pLoss + pRec) / pIso;
   const lambda = wavelengthM(budget.frequencyHz);
   const i0 = budget.driveCurrentA;
-  const sig = signalPower(w.data, 0, p, k);
   const aE = (lambda * lambda * sig * 4 * K_BOLTZMANN_J_PER_K * budget.bandwidthHz) / (ETA0_OHM * i0 * i0 * pIso);
   const gain = (4 * Math.PI * aE) / (lambda * lambda);
   const etaRad = pRad / pIso;
@@ -299,11 +323,7 @@ export function scanSweep(budget: NoiseBudget, beamPatterns: SampledPortPatterns
   if (options.onProgress !== undefined && typeof options.onProgress !== 'function') {
     throw new DomainError(`invalid argument "options.onProgress": expected a function (done, total) → void, received ${describeValue(options.onProgress)}.`);
   }
-  const beams: BeamFigures[] = [];
-  for (let j = 0; j < kb; j++) {
-    beams.push(figuresOfColumn(budget, column(weights, j), beamPatterns, j, options));
-    options.onProgress?.(j + 1, kb);
-  }
+  const beams = figuresOfColumns(budget, weights, beamPatterns, options, options.onProgress);
   return { weights, beams };
 }
 
@@ -342,23 +362,20 @@ export function embeddedElementEfficiencies(budget: NoiseBudget, terminationOhm:
   });
   const a = { rows: n, cols: n, data: budget.impedanceOhm.data.slice() };
   for (let i = 0; i < n; i++) { a.data[2 * (i * n + i)] += zl[i][0]; a.data[2 * (i * n + i) + 1] += zl[i][1]; }
-  const f = inverse(a).data;
-  const rr = budget.radiationPerK.data, s = 1 / (4 * K_BOLTZMANN_J_PER_K * budget.bandwidthHz);
-  const out = new Float64Array(n);
-  for (let c = 0; c < n; c++) {
-    let acc = 0;
-    for (let i = 0; i < n; i++) {
-      const ur = f[2 * (i * n + c)], ui = f[2 * (i * n + c) + 1];
-      let tr = 0, ti = 0;
-      for (let j = 0; j < n; j++) {
-        const vr = f[2 * (j * n + c)], vi = f[2 * (j * n + c) + 1];
-        const r = rr[2 * (i * n + j)], im = rr[2 * (i * n + j) + 1];
-        tr += r * vr - im * vi; ti += r * vi + im * vr;
-      }
-      acc += ur * tr + ui * ti;
+  // one LU of Z_A + Z_L (inside inverse), one product R_rad·U (SIMD kernel), then the diagonal of Uᴴ(R_rad U)
+  const u = inverse(a).data;
+  const ru = new Float64Array(2 * n * n);
+  gemmKernel(n, n, n, budget.radiationPerK.data, 0, n, u, 0, n, ru, 0, n, false);
+  const s = 1 / (4 * K_BOLTZMANN_J_PER_K * budget.bandwidthHz);
+  const acc = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    for (let c = 0; c < n; c++) {
+      const q = 2 * (i * n + c);
+      acc[c] += u[q] * ru[q] + u[q + 1] * ru[q + 1];
     }
-    out[c] = 4 * zl[c][0] * acc * s;
   }
+  const out = new Float64Array(n);
+  for (let c = 0; c < n; c++) out[c] = 4 * zl[c][0] * acc[c] * s;
   return out;
 }
 
@@ -372,12 +389,48 @@ export function embeddedElementEfficiencies(budget: NoiseBudget, terminationOhm:
  * noise-matching efficiency η_nm = T_rec,min / T_rec (K. F. Warnick,
  * B. Woestenburg, L. Belostotski, P. Russer, IEEE Trans. Antennas Propag. 57(7),
  * 2009; K. F. Warnick et al., IEEE Trans. Antennas Propag. 58(6), 2010 — from memory).
+ * Computed as 1/μ_max with μ_max the largest eigenvalue of L_rec⁻¹ R_iso L_rec⁻ᴴ
+ * (R_rec = L_rec L_recᴴ) by Lanczos (C. Lanczos, J. Res. Nat. Bur. Standards 45,
+ * 1950, from memory): the receiver spectrum clusters just above T_min, and the
+ * reciprocal pencil separates that cluster. Cost: one Cholesky of R_iso (the
+ * passivity test), one of R_rec, O(N²) per Lanczos step.
  * @param budget - Noise budget.
  * @returns T_rec,min [K].
- * @throws {@link NotPositiveDefiniteError} if Z + Zᴴ is not positive definite (a non-passive array).
+ * @throws {@link NotPositiveDefiniteError} if Z + Zᴴ is not positive definite (a non-passive array);
+ *   {@link ConvergenceError} if Lanczos does not converge in 400 steps (not observed).
  * @category Reception
  */
 export function minimumReceiverTemperature(budget: NoiseBudget): number {
-  const e = generalizedHermitianEigen(budget.receiver, budget.isotropicPerK, { valuesOnly: true });
-  return Math.max(0, e.values[0]);
+  return minimumReceiverTemperatureFrom(budget, choleskyFactor(budget.isotropicPerK));
+}
+
+/** @internal {@link minimumReceiverTemperature} with the Cholesky factorisation of R_iso,1K already done (shared with the passivity check). */
+export function minimumReceiverTemperatureFrom(budget: NoiseBudget, isoFactor: CholeskyResult): number {
+  const n = budget.portCount;
+  if (!isoFactor.positiveDefinite) {
+    throw new NotPositiveDefiniteError(`the isotropic noise response 2k_B B (Z + Zᴴ) is not positive definite (Cholesky pivot ${isoFactor.failedPivot}): the impedance matrix is not passive, so no minimum receiver temperature exists; check the element model's validity or the imported impedance matrix.`, isoFactor.failedPivot);
+  }
+  const rec = budget.receiver.data;
+  let any = false;
+  for (let k = 0; k < rec.length && !any; k++) any = rec[k] !== 0;
+  if (!any) return 0;
+  // The receiver spectrum clusters just above T_min, so the smallest eigenvalue of L⁻¹R_rec L⁻ᴴ
+  // converges slowly; the reciprocal pencil (largest μ of L_rec⁻¹ R_iso L_rec⁻ᴴ, μ = 1/T) separates
+  // that cluster far better. It needs R_rec positive definite; otherwise the direct pencil is used.
+  const recFactor = choleskyFactor(budget.receiver);
+  const [f, other, which] = recFactor.positiveDefinite
+    ? [recFactor, budget.isotropicPerK.data, 'max' as const]
+    : [isoFactor, rec, 'min' as const];
+  const l = f.l.data, lh = f.lAdjoint.data;
+  const t = new Float64Array(2 * n);
+  const e = lanczosExtremes(n, (x, y) => {
+    t.set(x);
+    solveUpperInPlace(n, 1, lh, t, false);
+    gemmKernel(n, 1, n, other, 0, n, t, 0, 1, y, 0, 1, false);
+    solveLowerInPlace(n, 1, l, y, false);
+  }, which, 1e-12);
+  if (!e.converged) {
+    throw new ConvergenceError(`minimumReceiverTemperature: the Lanczos iteration did not converge in ${e.steps} steps (estimate ${which === 'max' ? 1 / e.max : e.min} K).`);
+  }
+  return Math.max(0, which === 'max' ? 1 / e.max : e.min);
 }

@@ -22,8 +22,12 @@ export type { BeamFigures, BeamFigureOptions, ScanSweepOptions, ScanSweepResult 
 export { beamFigures, maxSnrWeightsUnpolarized, scanSweep, embeddedElementEfficiencies, minimumReceiverTemperature } from './figures.js';
 export type { ArrayPorts, ReceivingArrayDescription, ReceivingArrayEvaluation, BeamDirections, EvaluationTimings } from './evaluate.js';
 export { evaluateReceivingArray } from './evaluate.js';
+export type { ReceivingArrayCheckInput } from './checks.js';
+export { receivingArrayChecks, twissResidual } from './checks.js';
 export type { ArrayPortSource, DipoleArrayPortsOptions } from './ports.js';
-export { dipoleArrayPorts, patternSetPorts } from './ports.js';
+export { dipoleArrayPorts, patternSetPorts, dipoleModelChecks, DIPOLE_MODEL_MAX_LENGTH_WAVELENGTHS, DIPOLE_MODEL_MAX_RADIUS_WAVELENGTHS } from './ports.js';
+export type { EvaluationSize, EvaluationCost } from './cost.js';
+export { evaluationCost, assertEvaluationFits } from './cost.js';
 export { patternOverlapMatrix } from './overlap.js';
 export { matchedFieldWeightsUnpolarized, beamPowerPatterns } from './fixedBeams.js';
 export type { SkyPowerLaw } from './sky.js';

@@ -14,6 +14,7 @@ import { convertPatternExcitation, embeddedPatternSet, type EmbeddedPatternSet }
 import { patternInterpolator } from '../element/patternInterpolation.js';
 import { assertAboveGround, dipoleGeometry, type WireDipole } from '../element/types.js';
 import type { PortPatternSource } from './patterns.js';
+import { physicalCheck, type PhysicalCheck } from '../checks.js';
 
 /**
  * The ports of a receiving array with a pattern source that fills any block
@@ -25,6 +26,49 @@ export interface ArrayPortSource {
   readonly patterns: PortPatternSource;
   /** Impedance matrix Z_A [Ω], N×N. */
   readonly impedanceOhm: CMatrix;
+  /** Validity checks of the element model at this frequency (e.g. {@link dipoleModelChecks}); copied into every evaluation's checks. */
+  readonly checks?: ReadonlyArray<PhysicalCheck>;
+}
+
+/** Longest dipole of the one-mode induced-EMF model, in wavelengths (common practice). */
+export const DIPOLE_MODEL_MAX_LENGTH_WAVELENGTHS = 1;
+/** Thickest wire of the thin-wire model, radius in wavelengths (common practice). */
+export const DIPOLE_MODEL_MAX_RADIUS_WAVELENGTHS = 0.01;
+
+/**
+ * Validity checks of the one-mode (sinusoidal-current) induced-EMF dipole model at a frequency.
+ *
+ * @remarks
+ * Two limits, both common practice (C. A. Balanis, *Antenna Theory*, 4th ed.,
+ * Wiley, 2016, §4.6 and §8.5–8.6, from memory: the sinusoidal current is a good
+ * approximation of a thin centre-fed wire's current up to about one
+ * wavelength; longer wires carry several current modes and the feed current,
+ * hence Z, departs from the one-mode value; the thin-wire kernel needs a ≪ λ):
+ * - `elementModel.electricalLength`: longest l/λ ≤ {@link DIPOLE_MODEL_MAX_LENGTH_WAVELENGTHS};
+ * - `elementModel.wireRadius`: thickest a/λ ≤ {@link DIPOLE_MODEL_MAX_RADIUS_WAVELENGTHS}.
+ * A 25 λ dipole, or any dipole at 10³⁰ Hz, fails the first.
+ * @param dipoles - The dipoles [m].
+ * @param frequencyHz - Frequency [Hz], > 0.
+ * @returns The two checks.
+ * @throws {@link DomainError} for a bad frequency or an empty list.
+ * @category Reception
+ */
+export function dipoleModelChecks(dipoles: ReadonlyArray<WireDipole>, frequencyHz: number): PhysicalCheck[] {
+  assertPositive('frequencyHz', frequencyHz, 'Hz');
+  if (!Array.isArray(dipoles) || dipoles.length === 0) {
+    throw new DomainError(`invalid argument "dipoles": expected a non-empty array of WireDipole, received ${describeValue(dipoles)}.`);
+  }
+  const lambda = C0_M_PER_S / frequencyHz;
+  let lMax = 0, aMax = 0;
+  for (const d of dipoles) { lMax = Math.max(lMax, d.lengthM / lambda); aMax = Math.max(aMax, d.radiusM / lambda); }
+  return [
+    physicalCheck('elementModel.electricalLength', lMax, 'atMost', DIPOLE_MODEL_MAX_LENGTH_WAVELENGTHS,
+      `longest dipole length in wavelengths l/λ (linear); the one-mode sinusoidal-current induced-EMF model holds up to about ${DIPOLE_MODEL_MAX_LENGTH_WAVELENGTHS} λ (common practice), beyond it Z, the patterns and every figure are not trustworthy`,
+      ['*']),
+    physicalCheck('elementModel.wireRadius', aMax, 'atMost', DIPOLE_MODEL_MAX_RADIUS_WAVELENGTHS,
+      `thickest wire radius in wavelengths a/λ (linear); the thin-wire self impedance needs a ≤ ${DIPOLE_MODEL_MAX_RADIUS_WAVELENGTHS} λ (common practice)`,
+      ['*']),
+  ];
 }
 
 /**
@@ -53,7 +97,7 @@ export interface DipoleArrayPortsOptions extends InducedEmfOptions {
  * @param dipoles - The N dipoles [m].
  * @param frequencyHz - Frequency [Hz], > 0.
  * @param options - Ground plane, induced-EMF integration controls, drive current.
- * @returns Pattern source and Z [Ω].
+ * @returns Pattern source, Z [Ω] and the model-validity checks of {@link dipoleModelChecks}.
  * @throws {@link DomainError} for invalid dipoles (zero length, whole-wavelength length, below the ground plane) or options.
  * @category Reception
  */
@@ -78,6 +122,7 @@ export function dipoleArrayPorts(dipoles: ReadonlyArray<WireDipole>, frequencyHz
   const n = geo.length;
   return {
     impedanceOhm,
+    checks: dipoleModelChecks(dipoles, frequencyHz),
     patterns: {
       portCount: n, driveCurrentA: i0, frequencyHz,
       fill(thetaRad, phiRad, start, count, outTheta, outPhi, ld) {

@@ -56,6 +56,20 @@ describe('Thevenin / Norton, loads, available power', () => {
     for (let i = 0; i < 3; i++) expect(entry(g, 0, i).sub(entry(sa, i).div(entry(a, i))).abs()).toBeLessThan(1e-15);
     expect(() => activeReflection(net, columnVector([1, 0, 1]))).toThrow(DomainError);
   });
+  it('active reflection for K excitations in one call: row f·K + k is (S_f a_k)ₙ / a_k,n (40 ports, 7 scan excitations)', () => {
+    const n = 40, kx = 7;
+    const s = randomMatrix(n, n, 61);
+    const net = createMultiport('scattering', [1e9, 2e9], [s, scale(s, 0.5)]);
+    const a = randomMatrix(n, kx, 62);
+    const g = activeReflection(net, a);
+    expect(g.rows).toBe(2 * kx);
+    for (let f = 0; f < 2; f++) {
+      const sa = multiply(f === 0 ? s : scale(s, 0.5), a);
+      for (let k = 0; k < kx; k++) for (let i = 0; i < n; i++) {
+        expect(entry(g, f * kx + k, i).sub(entry(sa, i, k).div(entry(a, i, k))).abs()).toBeLessThan(1e-12 * (1 + entry(g, f * kx + k, i).abs()));
+      }
+    }
+  });
 });
 
 /**
