@@ -172,7 +172,7 @@ export function evaluateReflectorArrayFeed(d: ReflectorArrayFeedDescription): Re
     loss: d.loss,
   });
   const beamPatterns = secondaryPatternsPhysicalOptics(dish, d.feed.patterns, d.beams.thetaRad, d.beams.phiRad, d.secondaryOptions);
-  const weights = d.weights ?? maxSnrWeightsUnpolarized(budget.total, beamPatterns);
+  const weights = d.weights ?? maxSnrWeightsUnpolarized(beamPatterns, budget.total);
   if (weights.rows !== budget.portCount || weights.cols !== d.beams.thetaRad.length) {
     throw new DimensionError(`invalid argument "weights": expected ${budget.portCount}×${d.beams.thetaRad.length} (ports × beams), received ${weights.rows}×${weights.cols}.`);
   }
