@@ -25,6 +25,8 @@ describe('design file with wire elements: examples/designs/fan-dipole-tile.json'
     const ev = evaluateDesign(design, { fileName: file });
     expect(ev.frequenciesHz[ev.frequenciesHz.length - 1] / ev.frequenciesHz[0]).toBeCloseTo(2, 12);
     expect(ev.frequencies.length).toBe(8);
+    expect(ev.failedChecks).toEqual([]);
+    expect(ev.frequencies[0].checks.some((c) => c.name === 'wire.passivity')).toBe(true);
     for (const fr of ev.frequencies) for (const b of fr.beams) expect(Number.isFinite(b.gainOverTemperatureDbPerK)).toBe(true);
     // direct: the same element placed by the wire module, the same reception inputs
     const k = 3, f = ev.frequenciesHz[k];
