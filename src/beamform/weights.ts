@@ -156,8 +156,11 @@ export function minimumVarianceWeights(a: CMatrix, correlation: CMatrix, options
  * (g = 0), derivative constraints (columns ∂a/∂θ with g = 0 flatten the
  * response), or any mix. With y = wᴴx, gₘ is the beam's complex response to cₘ.
  * The weights are not rescaled: the constraints fix them.
- * @param correlation - Correlation matrix R, N×N Hermitian positive definite.
+ * Argument order (constraints, correlation, responses): the constraint or steering matrix
+ * first and the correlation second, as in every weight function of this module (changed in
+ * the Unreleased version; it was (correlation, constraints, responses)).
  * @param constraints - Constraint vectors C as columns, N×M, M ≤ N, linearly independent.
+ * @param correlation - Correlation matrix R, N×N Hermitian positive definite.
  * @param responses - Required responses g, M×1 (wᴴcₘ = gₘ).
  * @param options - `diagonalLoading` (see {@link BeamWeightOptions}).
  * @returns Weights, N×1.
@@ -166,7 +169,7 @@ export function minimumVarianceWeights(a: CMatrix, correlation: CMatrix, options
  * @category Beamforming
  */
 export function constrainedMinimumVarianceWeights(
-  correlation: CMatrix, constraints: CMatrix, responses: CMatrix, options: { diagonalLoading?: number } = {},
+  constraints: CMatrix, correlation: CMatrix, responses: CMatrix, options: { diagonalLoading?: number } = {},
 ): CMatrix {
   assertFiniteCMatrix('constraints', constraints);
   const n = constraints.rows, m = constraints.cols;

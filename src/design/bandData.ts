@@ -31,7 +31,7 @@ export function hzText(f: number): string {
 export function designFrequencies(d: Design, file: string): Float64Array {
   const f = d.frequencyHz;
   if (typeof f === 'number') return Float64Array.of(f);
-  if (Array.isArray(f)) {
+  if (!('fromHz' in f)) {
     for (let i = 1; i < f.length; i++) {
       if (!(f[i] > f[i - 1])) throw fieldError(file, `frequencyHz[${i}]`, `expected frequencies in increasing order, received ${f[i]} Hz after ${f[i - 1]} Hz`);
     }

@@ -24,7 +24,7 @@ import { dipolesFromLayout } from '../element/fromLayout.js';
 import type { WireDipole } from '../element/types.js';
 import {
   dipoleArrayPorts, patternSetPorts, skyAndGroundEnvironment, skyTemperatureAt,
-  type ArrayPortSource, type NoiseEnvironment,
+  type ArrayPortSource, type BeamDirections, type NoiseEnvironment,
 } from '../reception/index.js';
 import { circularTaylorTaper, cosineDistribution, sampleRadialDistribution, uniformTaper } from '../taper/index.js';
 import { fieldError, type Design } from './schema.js';
@@ -144,7 +144,7 @@ export function designBeams(b: Design['beams']): DesignBeams {
     return { kind: 'cone', thetaRad, phiRad, u: Float64Array.from(u), v: Float64Array.from(v), stepUV: s };
   }
   const t = b.thetaDeg as NonNullable<Design['beams']['thetaDeg']>;
-  const scan = Array.isArray(t)
+  const scan = !('fromDeg' in t)
     ? Float64Array.from(t)
     : Float64Array.from({ length: t.count }, (_, i) => (t.count === 1 ? t.fromDeg : t.fromDeg + ((t.toDeg - t.fromDeg) * i) / (t.count - 1)));
   const planePhiRad = degToRad(b.planePhiDeg ?? 0);
@@ -159,7 +159,7 @@ export function designBeams(b: Design['beams']): DesignBeams {
  * @returns θ and φ per angle [rad].
  * @category Design
  */
-export function scanPlaneDirections(angleDeg: ArrayLike<number>, planePhiRad: number): { thetaRad: Float64Array; phiRad: Float64Array } {
+export function scanPlaneDirections(angleDeg: ArrayLike<number>, planePhiRad: number): BeamDirections {
   const n = angleDeg.length;
   const thetaRad = new Float64Array(n), phiRad = new Float64Array(n);
   for (let i = 0; i < n; i++) {
@@ -327,13 +327,24 @@ export function designPortsAt(prepared: PreparedDesign, frequencyHz: number): Ar
 }
 
 /**
+ * The environment of a design at one frequency.
+ * @category Design
+ */
+export interface DesignEnvironmentAt {
+  /** Brightness and sky region for the reception module. */
+  readonly environment: NoiseEnvironment;
+  /** Sky brightness used [K]. */
+  readonly skyK: number;
+}
+
+/**
  * The noise environment at one band frequency (sky law evaluated at f; ground and tilt fixed).
  * @param prepared - The prepared design.
  * @param frequencyHz - Frequency [Hz].
  * @returns The environment and the sky temperature used [K].
  * @category Design
  */
-export function designEnvironmentAt(prepared: PreparedDesign, frequencyHz: number): { environment: NoiseEnvironment; skyK: number } {
+export function designEnvironmentAt(prepared: PreparedDesign, frequencyHz: number): DesignEnvironmentAt {
   const env = prepared.design.environment;
   const skyK = skyTemperatureAt(env.skyK, frequencyHz);
   const environment = wrapField(prepared.fileName, 'environment', () => skyAndGroundEnvironment({

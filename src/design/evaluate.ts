@@ -48,6 +48,79 @@ export interface DesignPatternCut {
 }
 
 /**
+ * Amplifier noise parameters used at one frequency (back end folded in).
+ * @category Design
+ */
+export interface UsedNoiseParameters {
+  /** T_min [K] (including T₂/G of the back end). */
+  readonly minimumNoiseTemperatureK: number;
+  /** R_n [Ω]. */
+  readonly noiseResistanceOhm: number;
+  /** Y_opt [S]. */
+  readonly optimumSourceAdmittanceS: {
+    /** Conductance [S]. */
+    readonly re: number;
+    /** Susceptance [S]. */
+    readonly im: number;
+  };
+}
+
+/**
+ * Active reflection coefficient of one element over the beams (dimensionless, 50 Ω reference).
+ * @category Design
+ */
+export interface ActiveReflectionTrace {
+  /** Element (port) index. */
+  readonly element: number;
+  /** Label: the element and whether it is the centre or the outermost one. */
+  readonly label: string;
+  /** Re Γ per beam. */
+  readonly re: number[];
+  /** Im Γ per beam. */
+  readonly im: number[];
+}
+
+/**
+ * Beam directions of a band result.
+ * @category Design
+ */
+export interface DesignEvaluationBeams {
+  /** How the beams were given. */
+  readonly kind: 'plane' | 'pointings' | 'cone';
+  /** θ per beam [deg]. */
+  readonly thetaDeg: number[];
+  /** φ per beam [deg]. */
+  readonly phiDeg: number[];
+  /** Signed scan angle per beam [deg] (plane beams). */
+  readonly scanAngleDeg?: number[];
+  /** Azimuth of the scan plane [deg] (plane beams). */
+  readonly planePhiDeg?: number;
+  /** u = sin θ cos φ per beam. */
+  readonly u: number[];
+  /** v = sin θ sin φ per beam. */
+  readonly v: number[];
+  /** Grid step of a cone (direction cosines). */
+  readonly stepUV?: number;
+}
+
+/**
+ * One grating-lobe circle of the lattice in the u-v plane (direction cosines).
+ * @category Design
+ */
+export interface GratingCircle {
+  /** Lattice order along the first reciprocal vector. */
+  readonly m: number;
+  /** Lattice order along the second reciprocal vector. */
+  readonly n: number;
+  /** Centre u. */
+  readonly u: number;
+  /** Centre v. */
+  readonly v: number;
+  /** Radius (1: the visible region). */
+  readonly radius: number;
+}
+
+/**
  * Everything computed at one band frequency.
  * @category Design
  */
@@ -57,9 +130,14 @@ export interface FrequencyEvaluation {
   /** Sky brightness used [K]. */
   readonly skyK: number;
   /** Amplifier noise parameters used (back end folded in), absent for noiseless receivers. */
-  readonly amplifiers?: { minimumNoiseTemperatureK: number; noiseResistanceOhm: number; optimumSourceAdmittanceS: { re: number; im: number } };
+  readonly amplifiers?: UsedNoiseParameters;
   /** Sphere rule of the noise integrals (θ × φ nodes). */
-  readonly quadrature: { thetaCount: number; phiCount: number };
+  readonly quadrature: {
+    /** Gauss–Legendre nodes in θ. */
+    readonly thetaCount: number;
+    /** Uniform nodes in φ. */
+    readonly phiCount: number;
+  };
   /** Figures per beam, in beam order. */
   readonly beams: DesignBeamFigures[];
   /** The array's minimum receiver temperature T_rec,min [K]. */
@@ -75,7 +153,7 @@ export interface FrequencyEvaluation {
    * (report frequencies only), 50 Ω reference, for the phase-steered transmit excitation
    * conj(a(r̂)) — the network module's activeReflection.
    */
-  readonly activeReflection?: { element: number; label: string; re: number[]; im: number[] }[];
+  readonly activeReflection?: ActiveReflectionTrace[];
 }
 
 /**
@@ -119,11 +197,18 @@ export interface DesignEvaluation {
   /** Indices of the frequencies the report draws cuts, maps and Smith charts at. */
   readonly reportFrequencyIndices: number[];
   /** Beam directions: kind, θ and φ [deg], signed scan angle [deg] (plane beams), u and v. */
-  readonly beams: { kind: 'plane' | 'pointings' | 'cone'; thetaDeg: number[]; phiDeg: number[]; scanAngleDeg?: number[]; planePhiDeg?: number; u: number[]; v: number[]; stepUV?: number };
+  readonly beams: DesignEvaluationBeams;
   /** Element positions [m]. */
   readonly positionsM: number[][];
   /** Grating-lobe circles at the highest band frequency (lattice layouts), u-v centres and radius (direction cosines). */
-  readonly gratingLobes?: { frequencyHz: number; maxScanSinTheta: number; circles: { m: number; n: number; u: number; v: number; radius: number }[] };
+  readonly gratingLobes?: {
+    /** The frequency of the diagram [Hz]. */
+    readonly frequencyHz: number;
+    /** sin θ of the widest beam (radius of the scan region). */
+    readonly maxScanSinTheta: number;
+    /** The circles of the lattice's grating lobes. */
+    readonly circles: GratingCircle[];
+  };
   /** Per-frequency results, in band order. */
   readonly frequencies: FrequencyEvaluation[];
   /** Band summary per beam. */
@@ -146,20 +231,25 @@ export function spreadIndices(count: number, max: number): number[] {
   return [...s];
 }
 
-/** Beams shown in cuts and per-beam band figures: up to five, spread over the list (broadside first for cones). @internal */
+/**
+ * Beams shown in cuts and per-beam band figures: up to five spread over the list; for a cone,
+ * broadside and the edge beams toward φ = 0°, 45° and 90° (not their mirror images, which a
+ * symmetric array would draw on top of each other). @internal
+ */
 export function shownBeams(p: PreparedDesign): number[] {
   const b = p.beams;
   if (b.kind !== 'cone') return spreadIndices(b.thetaRad.length, 5);
-  // Broadside and the four cardinal edge beams of the cone.
-  const pick = (fu: number, fv: number) => {
+  const pick = (phiRad: number) => {
+    const cu = Math.cos(phiRad), cv = Math.sin(phiRad);
     let best = 0, bestScore = -Infinity;
     for (let i = 0; i < b.u.length; i++) {
-      const score = fu === 0 && fv === 0 ? -Math.hypot(b.u[i], b.v[i]) : fu * b.u[i] + fv * b.v[i] - 1e-3 * Math.abs(fv * b.u[i] - fu * b.v[i]);
-      if (score > bestScore) { bestScore = score; best = i; }
+      // Farthest along the direction, penalising the sideways offset.
+      const score = phiRad < 0 ? -Math.hypot(b.u[i], b.v[i]) : cu * b.u[i] + cv * b.v[i] - 2 * Math.abs(cu * b.v[i] - cv * b.u[i]);
+      if (score > bestScore + 1e-12) { bestScore = score; best = i; }
     }
     return best;
   };
-  return [...new Set([pick(0, 0), pick(1, 0), pick(-1, 0), pick(0, 1), pick(0, -1)])];
+  return [...new Set([pick(-1), pick(0), pick(Math.PI / 4), pick(Math.PI / 2)])];
 }
 
 /**

@@ -9,6 +9,9 @@
 import { z } from 'zod';
 import { T0_K } from '../units/constants.js';
 import { DesignError } from '../errors.js';
+import type { Design } from './types.js';
+
+export type { Design } from './types.js';
 
 const positive = (unit: string) => z.number().positive().describe(unit);
 const finite = z.number();
@@ -206,11 +209,12 @@ export const designSchema = z.strictObject({
   report: report.optional(),
 });
 
-/**
- * A validated design file (see docs/design.md for every field and its unit).
- * @category Design
- */
-export type Design = z.infer<typeof designSchema>;
+// The documented types (types.ts) and the schema describe the same data, both ways.
+type Parsed = z.infer<typeof designSchema>;
+type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
+const sameShape: Same<DeepReadonly<Parsed>, Design> = true;
+void sameShape;
+type DeepReadonly<T> = T extends object ? { readonly [K in keyof T]: DeepReadonly<T[K]> } : T;
 
 function describeInput(v: unknown): string {
   if (v === undefined) return 'nothing (the field is missing)';

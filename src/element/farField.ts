@@ -44,9 +44,9 @@ export interface FarFieldOptions {
  * @category Elements
  */
 export interface FarFieldResult {
-  /** f·θ̂ [V], M×1. */
+  /** f·θ̂ [V], 1×M: one row (the element's port), one column per direction — the N×M shape of the reception module's sampled patterns, so elements stack as rows. */
   readonly thetaComponentV: CMatrix;
-  /** f·φ̂ [V], M×1. */
+  /** f·φ̂ [V], 1×M. */
   readonly phiComponentV: CMatrix;
 }
 
@@ -134,7 +134,7 @@ export function checkFarFieldOptions(options: FarFieldOptions): number {
 }
 
 function result(m: number, th: Float64Array, ph: Float64Array): FarFieldResult {
-  return { thetaComponentV: { rows: m, cols: 1, data: th }, phiComponentV: { rows: m, cols: 1, data: ph } };
+  return { thetaComponentV: { rows: 1, cols: m, data: th }, phiComponentV: { rows: 1, cols: m, data: ph } };
 }
 
 /**

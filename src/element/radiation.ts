@@ -202,8 +202,8 @@ function sphericalBessel(x: number): [number, number, number] {
   return [j0, j1, (3 / (x * x) - 1) * j0 - (3 * c) / (x * x)];
 }
 
-/** Mutual radiation resistance of two short uniform elements (point limit) [Ω]. */
-function hertzianMutualResistance(k: number, a: DipoleGeometry, b: DipoleGeometry): number {
+/** Mutual radiation resistance of two short uniform elements (point limit) [Ω]. @internal */
+export function hertzianMutualResistance(k: number, a: DipoleGeometry, b: DipoleGeometry): number {
   const dx = b.cx - a.cx, dy = b.cy - a.cy, dz = b.cz - a.cz;
   const d = Math.hypot(dx, dy, dz);
   const x = k * d;

@@ -118,15 +118,21 @@ export interface SphereQuadratureOptions {
    * converges slowly. @defaultValue false
    */
   splitAtHorizon?: boolean;
+  /**
+   * Further polar angles θ ∈ (0, π) [rad] at which to split the θ rule (each piece gets
+   * `thetaCount` nodes): put them where the integrand jumps or has a kink, e.g. at a reflector's
+   * rim seen from its feed, so that the step is integrated exactly. @defaultValue none
+   */
+  splitAtThetaRad?: ReadonlyArray<number>;
 }
 
 /**
  * The product rule with the given numbers of θ and φ nodes.
  * @param thetaCount - Gauss–Legendre nodes in cosθ, integer ≥ 1.
  * @param phiCount - Trapezoid nodes in φ, integer ≥ 1.
- * @param options - Hemisphere split.
- * @returns The rule (thetaCount doubles when split).
- * @throws {@link DomainError} for bad counts.
+ * @param options - Hemisphere split and further θ breakpoints.
+ * @returns The rule (thetaCount is multiplied by the number of pieces when split).
+ * @throws {@link DomainError} for bad counts or breakpoints outside (0, π).
  * @example
  * ```ts
  * const q = sphereQuadrature(8, 16);
@@ -138,15 +144,21 @@ export function sphereQuadrature(thetaCount: number, phiCount: number, options: 
   assertInteger('thetaCount', thetaCount, 1, 100000);
   assertInteger('phiCount', phiCount, 1, 10000000);
   const gl = gaussLegendre(thetaCount);
-  // cosθ nodes (descending ⇔ θ ascending) and their weights; split rules map the n-point rule onto [0, 1] and [−1, 0]
-  let xs: number[], ws: number[];
-  if (options.splitAtHorizon) {
-    xs = []; ws = [];
-    for (let i = thetaCount - 1; i >= 0; i--) { xs.push((1 + gl.nodes[i]) / 2); ws.push(gl.weights[i] / 2); }
-    for (let i = thetaCount - 1; i >= 0; i--) { xs.push((gl.nodes[i] - 1) / 2); ws.push(gl.weights[i] / 2); }
-  } else {
-    xs = Array.from(gl.nodes).reverse();
-    ws = Array.from(gl.weights).reverse();
+  // cosθ nodes (descending ⇔ θ ascending) and their weights; a split rule maps the n-point rule
+  // onto each piece [x_lo, x_hi] of cosθ between the breakpoints (the horizon is cosθ = 0).
+  const cuts = [...(options.splitAtThetaRad ?? [])];
+  cuts.forEach((t, i) => {
+    if (typeof t !== 'number' || !(t > 0 && t < Math.PI)) throw new DomainError(`invalid option "splitAtThetaRad[${i}]": expected an angle in (0, π) rad, received ${String(t)}.`);
+  });
+  const bounds: number[] = [];
+  for (const x of [1, -1, ...cuts.map((t) => (Math.abs(t - Math.PI / 2) < 1e-15 ? 0 : Math.cos(t))), ...(options.splitAtHorizon ? [0] : [])].sort((a, b) => b - a)) {
+    if (bounds.length === 0 || bounds[bounds.length - 1] - x > 1e-14) bounds.push(x);
+  }
+  const xs: number[] = [], ws: number[] = [];
+  for (let b = 0; b + 1 < bounds.length; b++) {
+    const hi = bounds[b], lo = bounds[b + 1], h = (hi - lo) / 2;
+    if (!(h > 0)) continue;
+    for (let i = thetaCount - 1; i >= 0; i--) { xs.push(lo + h * (1 + gl.nodes[i])); ws.push(h * gl.weights[i]); }
   }
   const nt = xs.length;
   thetaCount = nt;

@@ -5,7 +5,7 @@
  * networks (Twiss 1955) and noise waves carried by a {@link Multiport}.
  *
  * Conventions: RMS phasors; correlation matrices are E[s sᴴ] over a bandwidth
- * B (default 1 Hz, i.e. per hertz). Chain form: the noisy two-port is a
+ * B (required everywhere, as in the reception module; pass 1 for per-hertz values). Chain form: the noisy two-port is a
  * noiseless one preceded by a series voltage source u and a shunt current
  * source i at its input (noiseless input voltage = V₁ + u, current = I₁ + i),
  * C_A = E[[u; i][u; i]ᴴ] = 4 k_B B [[T0·R_n, T_min/2 − T0·R_n·Y_opt*],
@@ -132,12 +132,12 @@ export function noiseParametersFromFigure(
  * 1976, eq. (25) (from memory; their matrices are per unit bandwidth with 2kT, i.e. peak
  * phasors — ours carry 4kT for RMS phasors).
  * @param params - Noise parameters.
- * @param bandwidthHz - Bandwidth B [Hz], > 0 (default 1).
+ * @param bandwidthHz - Bandwidth B [Hz], > 0 (required; 1 gives per-hertz values).
  * @returns C_A, 2×2: [[V², V·A], [A·V, A²]].
  * @throws {@link DomainError} on invalid parameters.
  * @category Network
  */
-export function chainNoiseCorrelation(params: NoiseParametersInput, bandwidthHz = 1): CMatrix {
+export function chainNoiseCorrelation(params: NoiseParametersInput, bandwidthHz: number): CMatrix {
   const { tMin, rn, gOpt, bOpt } = readParams('params', params);
   assertPositive('bandwidthHz', bandwidthHz, 'Hz');
   const k4 = 4 * K_BOLTZMANN_J_PER_K * bandwidthHz;
@@ -158,13 +158,13 @@ export function chainNoiseCorrelation(params: NoiseParametersInput, bandwidthHz 
  * B_opt = −Im Y_cor, G_opt = √(G_u/R_n + (Re Y_cor)²), T_min = 2 T0 R_n (G_opt + Re Y_cor).
  * Source: Hillbrand & Russer 1976 (from memory).
  * @param chainCorrelation - C_A, 2×2 Hermitian positive semidefinite [V², V·A; A·V, A²].
- * @param bandwidthHz - Bandwidth B of `chainCorrelation` [Hz], > 0 (default 1).
+ * @param bandwidthHz - Bandwidth B of `chainCorrelation` [Hz], > 0 (required; 1 for per-hertz values).
  * @returns The noise parameters.
  * @throws {@link DimensionError} unless 2×2; {@link DomainError} if C_uu ≤ 0 (no series noise:
  *   R_n = 0 leaves Y_opt undefined) or non-finite.
  * @category Network
  */
-export function noiseParametersFromChainCorrelation(chainCorrelation: CMatrix, bandwidthHz = 1): TwoPortNoiseParameters {
+export function noiseParametersFromChainCorrelation(chainCorrelation: CMatrix, bandwidthHz: number): TwoPortNoiseParameters {
   assertShape('chainCorrelation', chainCorrelation, 2, 2);
   assertFiniteCMatrix('chainCorrelation', chainCorrelation);
   assertPositive('bandwidthHz', bandwidthHz, 'Hz');
@@ -283,12 +283,12 @@ export function cascadeNoiseTemperatureK(stages: ReadonlyArray<CascadeStage>): n
  * generalized for nonreciprocal linear networks", J. Appl. Phys. 26(5), 1955 (from memory).
  * @param impedanceOhm - Z [Ω], N×N.
  * @param temperatureK - Physical temperature T [K], ≥ 0.
- * @param bandwidthHz - Bandwidth B [Hz], > 0 (default 1).
+ * @param bandwidthHz - Bandwidth B [Hz], > 0 (required; 1 gives per-hertz values).
  * @returns C_Z [V²], N×N Hermitian.
  * @throws {@link DimensionError} unless square; {@link DomainError} on bad T or B.
  * @category Network
  */
-export function thermalImpedanceNoise(impedanceOhm: CMatrix, temperatureK: number, bandwidthHz = 1): CMatrix {
+export function thermalImpedanceNoise(impedanceOhm: CMatrix, temperatureK: number, bandwidthHz: number): CMatrix {
   assertSquare('impedanceOhm', impedanceOhm);
   assertFiniteCMatrix('impedanceOhm', impedanceOhm);
   assertNonNegative('temperatureK', temperatureK, 'K');
@@ -305,12 +305,12 @@ export function thermalImpedanceNoise(impedanceOhm: CMatrix, temperatureK: numbe
  * 1967 (from memory); equal to the Twiss form mapped to waves by c = (I − S)F v.
  * @param scattering - Power-wave S (dimensionless), N×N.
  * @param temperatureK - Physical temperature T [K], ≥ 0.
- * @param bandwidthHz - Bandwidth B [Hz], > 0 (default 1).
+ * @param bandwidthHz - Bandwidth B [Hz], > 0 (required; 1 gives per-hertz values).
  * @returns C_S [W], N×N Hermitian.
  * @throws {@link DimensionError} unless square; {@link DomainError} on bad T or B.
  * @category Network
  */
-export function thermalNoiseWaves(scattering: CMatrix, temperatureK: number, bandwidthHz = 1): CMatrix {
+export function thermalNoiseWaves(scattering: CMatrix, temperatureK: number, bandwidthHz: number): CMatrix {
   assertSquare('scattering', scattering);
   assertFiniteCMatrix('scattering', scattering);
   assertNonNegative('temperatureK', temperatureK, 'K');
@@ -412,7 +412,7 @@ export function withThermalNoise(net: Multiport, temperatureK: number): Multipor
   const s = powerScatteringStack(net);
   const n = net.ports;
   const out = new Float64Array(s.length);
-  for (let k = 0; k < net.frequencyHz.length; k++) out.set(thermalNoiseWaves(stackMatrix(s, n, k), temperatureK).data, 2 * k * n * n);
+  for (let k = 0; k < net.frequencyHz.length; k++) out.set(thermalNoiseWaves(stackMatrix(s, n, k), temperatureK, 1).data, 2 * k * n * n);
   return withFields(net, { data: net.data.slice(), noiseWaves: out });
 }
 
@@ -466,7 +466,7 @@ export function withTwoPortNoise(net: Multiport, params: ReadonlyArray<NoisePara
   const maps = chainToWaveMaps(net);
   const out = new Float64Array(8 * nf);
   params.forEach((p, k) => {
-    const cA = chainNoiseCorrelation(p);
+    const cA = chainNoiseCorrelation(p, 1);
     out.set(multiply(multiply(maps[k], cA), adjoint(maps[k])).data, 8 * k);
   });
   return withFields(net, { data: net.data.slice(), noiseWaves: out });
@@ -489,6 +489,6 @@ export function twoPortNoiseOf(net: Multiport): TwoPortNoiseParameters[] {
     const cA = multiply(multiply(mi, stackMatrix(noise, 2, k)), adjoint(mi));
     // symmetrise rounding
     cA.data[1] = 0; cA.data[7] = 0;
-    return noiseParametersFromChainCorrelation(cA);
+    return noiseParametersFromChainCorrelation(cA, 1);
   });
 }

@@ -222,13 +222,27 @@ function figuresFromForms(
  * beam. The optimum is independent of the reference plane (open circuit or
  * loads). Source: generalized Rayleigh quotient, e.g. H. L. Van Trees, *Optimum
  * Array Processing*, Wiley, 2002, §6.2 (from memory).
- * @param noise - Total noise correlation R_n [V²], N×N Hermitian positive definite.
+ * Argument order (beamPatterns, noise): the response first, the correlation second, as in
+ * every weight function (beamform module); the former (noise, beamPatterns) order is still
+ * accepted (deprecated overload).
  * @param beamPatterns - Patterns at the K beam directions, N×K.
+ * @param noise - Total noise correlation R_n [V²], N×N Hermitian positive definite.
  * @returns Weights, N×K, each column of unit 2-norm.
  * @throws {@link DimensionError} for mismatched sizes; {@link NotPositiveDefiniteError} if R_n is not positive definite.
  * @category Reception
  */
-export function maxSnrWeightsUnpolarized(noise: CMatrix, beamPatterns: SampledPortPatterns): CMatrix {
+export function maxSnrWeightsUnpolarized(beamPatterns: SampledPortPatterns, noise: CMatrix): CMatrix;
+/**
+ * @deprecated The (noise, beamPatterns) order; use `maxSnrWeightsUnpolarized(beamPatterns, noise)`.
+ * @param noise - Total noise correlation R_n [V²], N×N.
+ * @param beamPatterns - Patterns at the K beam directions.
+ * @returns Weights, N×K.
+ */
+export function maxSnrWeightsUnpolarized(noise: CMatrix, beamPatterns: SampledPortPatterns): CMatrix;
+export function maxSnrWeightsUnpolarized(first: SampledPortPatterns | CMatrix, second: CMatrix | SampledPortPatterns): CMatrix {
+  const oldOrder = first !== null && typeof first === 'object' && 'rows' in first && second !== null && typeof second === 'object' && 'thetaComponentV' in second;
+  const beamPatterns = (oldOrder ? second : first) as SampledPortPatterns;
+  const noise = (oldOrder ? first : second) as CMatrix;
   const n = assertSampledPatterns('beamPatterns', beamPatterns);
   assertFiniteCMatrix('noise', noise);
   if (noise.rows !== n || noise.cols !== n) {
@@ -314,7 +328,7 @@ export interface ScanSweepResult {
 export function scanSweep(budget: NoiseBudget, beamPatterns: SampledPortPatterns, options: ScanSweepOptions = {}): ScanSweepResult {
   checkBeamPatterns(budget, beamPatterns);
   checkOptions(options);
-  const weights = options.weights ?? maxSnrWeightsUnpolarized(budget.total, beamPatterns);
+  const weights = options.weights ?? maxSnrWeightsUnpolarized(beamPatterns, budget.total);
   const kb = beamPatterns.thetaRad.length;
   assertFiniteCMatrix('options.weights', weights);
   if (weights.rows !== budget.portCount || weights.cols !== kb) {

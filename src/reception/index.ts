@@ -24,8 +24,8 @@ export type { ArrayPorts, ReceivingArrayDescription, ReceivingArrayEvaluation, B
 export { evaluateReceivingArray } from './evaluate.js';
 export type { ReceivingArrayCheckInput } from './checks.js';
 export { receivingArrayChecks, twissResidual } from './checks.js';
-export type { ArrayPortSource, DipoleArrayPortsOptions, PortGeometry } from './ports.js';
-export { dipoleArrayPorts, patternSetPorts, dipoleModelChecks, DIPOLE_MODEL_MAX_LENGTH_WAVELENGTHS, DIPOLE_MODEL_MAX_RADIUS_WAVELENGTHS } from './ports.js';
+export type { ArrayPortSource, DipoleArrayPortsOptions, HertzianDipolePortsOptions, PortGeometry } from './ports.js';
+export { dipoleArrayPorts, hertzianDipolePorts, patternSetPorts, dipoleModelChecks, DIPOLE_MODEL_MAX_LENGTH_WAVELENGTHS, DIPOLE_MODEL_MAX_RADIUS_WAVELENGTHS } from './ports.js';
 export type { EvaluationSize, EvaluationCost } from './cost.js';
 export { evaluationCost, assertEvaluationFits } from './cost.js';
 export { patternOverlapMatrix } from './overlap.js';

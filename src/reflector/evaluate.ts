@@ -7,7 +7,7 @@ import { DimensionError, DomainError } from '../errors.js';
 import { assertNonNegative, assertPositive } from '../internal/validate.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
 import type { NoiseParametersInput } from '../network/noise.js';
-import { type SphereQuadrature } from '../geometry/quadrature.js';
+import { type SphereQuadrature, sphereQuadrature } from '../geometry/quadrature.js';
 import { type QuadratureDirections, quadratureDirections } from '../reception/patterns.js';
 import type { ArrayPortSource } from '../reception/ports.js';
 import { type LossModel, type NoiseBudget, arrayNoiseBudget } from '../reception/budget.js';
@@ -35,6 +35,36 @@ export function rayHitsReflector(dish: Paraboloid, thetaRad: number, phiRad: num
 }
 
 /**
+ * Sphere rule in the feed frame for a reflector's noise integrals, split at the rim.
+ *
+ * @remarks
+ * Seen from the focus of a symmetric paraboloid the rim is the cone θ_f = θ0: the brightness
+ * steps there from the reflected sky to the ground behind, so a product rule (Gauss–Legendre
+ * in cos θ_f × trapezoid in φ_f) with a node boundary at θ0 integrates the step exactly, where
+ * a rule split only at the horizon converges slowly (its error is set by how the step falls
+ * between nodes). The rule is also split at the horizon θ_f = π/2, where feeds backed by a
+ * ground plane stop. On an offset dish the rim is not a cone about the feed axis and no product
+ * rule splits it; pass a rule of your own there.
+ * @param dish - Symmetric paraboloid (offsetM = 0).
+ * @param thetaCount - Gauss–Legendre nodes in cos θ_f on each of the three pieces. @defaultValue 48
+ * @param phiCount - Trapezoid nodes in φ_f. @defaultValue 96
+ * @returns The rule (3·thetaCount × phiCount directions).
+ * @throws {@link DomainError} for an offset dish or bad counts.
+ * @example
+ * ```ts
+ * const q = reflectorFeedQuadrature(paraboloidReflector({ diameterM: 12, focalLengthM: 4.8 }), 8, 16);
+ * q.thetaCount, q.count; // 24, 384
+ * ```
+ * @category Reflector
+ */
+export function reflectorFeedQuadrature(dish: Paraboloid, thetaCount = 48, phiCount = 96): SphereQuadrature {
+  if (dish.offsetM !== 0) {
+    throw new DomainError(`invalid argument "dish": the rim of an offset dish (offsetM = ${dish.offsetM} m) is not a cone about the feed axis, so no product rule splits at it; pass a sphere rule of your own.`);
+  }
+  return sphereQuadrature(thetaCount, phiCount, { splitAtThetaRad: [dish.rimHalfAngleRad], splitAtHorizon: true });
+}
+
+/**
  * Description of a reflector antenna with an array feed for {@link evaluateReflectorArrayFeed}.
  * @category Reflector
  */
@@ -43,8 +73,12 @@ export interface ReflectorArrayFeedDescription {
   readonly dish: Paraboloid;
   /** The feed's ports: open-circuit embedded patterns in the feed frame (phase reference at the focus) and the feed array's impedance matrix Z_A [Ω]. */
   readonly feed: ArrayPortSource;
-  /** Sphere quadrature in the feed frame for the noise integrals (a geometry-module rule or explicit directions). */
-  readonly feedQuadrature: SphereQuadrature | QuadratureDirections;
+  /**
+   * Sphere quadrature in the feed frame for the noise integrals (a geometry-module rule or
+   * explicit directions).
+   * @defaultValue {@link reflectorFeedQuadrature}(dish) — split at the rim; required for offset dishes
+   */
+  readonly feedQuadrature?: SphereQuadrature | QuadratureDirections;
   /** Brightness of the sky reflected into the feed by the dish [K], ≥ 0. */
   readonly skyTemperatureK: number;
   /** Brightness seen by feed spillover past the rim (ground behind a zenith-pointing dish) [K], ≥ 0. */
@@ -105,7 +139,8 @@ export interface ReflectorArrayFeedEvaluation {
  * port's physical-optics secondary pattern, which is an embedded pattern of
  * the whole antenna, so the reception row of docs/conventions.md applies
  * unchanged. T_sys is referred to the isotropic noise response of the feed
- * ports, 2k_B B(Z + Zᴴ) (IEEE Std 145-2013 receiving-array definitions).
+ * ports, 2k_B B(Z + Zᴴ) (IEEE Std 145-2013 receiving-array definitions). The default feed-side
+ * rule is split at the rim ({@link reflectorFeedQuadrature}), where the brightness steps.
  * Scattering from the feed and struts onto the dish and back is neglected.
  * @param d - Reflector, feed, environment, amplifiers and beams.
  * @returns Budget, secondary beam patterns, weights and figures per beam.
@@ -120,7 +155,8 @@ export function evaluateReflectorArrayFeed(d: ReflectorArrayFeedDescription): Re
   if (d.feed.impedanceOhm.rows !== d.feed.patterns.portCount) {
     throw new DimensionError(`invalid argument "feed.impedanceOhm": expected ${d.feed.patterns.portCount}×${d.feed.patterns.portCount} (one row per feed port), received ${d.feed.impedanceOhm.rows}×${d.feed.impedanceOhm.cols}.`);
   }
-  const quadrature = 'weightSr' in d.feedQuadrature ? d.feedQuadrature : quadratureDirections(d.feedQuadrature);
+  const rule = d.feedQuadrature ?? reflectorFeedQuadrature(d.dish);
+  const quadrature = 'weightSr' in rule ? rule : quadratureDirections(rule);
   const dish = d.dish;
   const budget = arrayNoiseBudget({
     patterns: d.feed.patterns,
@@ -136,7 +172,7 @@ export function evaluateReflectorArrayFeed(d: ReflectorArrayFeedDescription): Re
     loss: d.loss,
   });
   const beamPatterns = secondaryPatternsPhysicalOptics(dish, d.feed.patterns, d.beams.thetaRad, d.beams.phiRad, d.secondaryOptions);
-  const weights = d.weights ?? maxSnrWeightsUnpolarized(budget.total, beamPatterns);
+  const weights = d.weights ?? maxSnrWeightsUnpolarized(beamPatterns, budget.total);
   if (weights.rows !== budget.portCount || weights.cols !== d.beams.thetaRad.length) {
     throw new DimensionError(`invalid argument "weights": expected ${budget.portCount}×${d.beams.thetaRad.length} (ports × beams), received ${weights.rows}×${weights.cols}.`);
   }

@@ -30,7 +30,13 @@ export interface FeedFieldSample {
  * their position phase exp(+j k r̂·rₙ) in f.
  * @category Reflector
  */
-export type FeedPattern = (thetaRad: number, phiRad: number) => FeedFieldSample;
+export type FeedPattern = ((thetaRad: number, phiRad: number) => FeedFieldSample) & {
+  /**
+   * Polar angles θ_f in (0, π) [rad] where the pattern jumps or has a kink (e.g. π/2 for a
+   * pattern that stops at the horizon); integrals over the pattern are split there.
+   */
+  readonly edgesRad?: readonly number[];
+};
 
 /**
  * A body-of-revolution feed with separate E- and H-plane patterns, linearly
@@ -41,18 +47,26 @@ export type FeedPattern = (thetaRad: number, phiRad: number) => FeedFieldSample;
  * @param ePlane - E-plane amplitude E(θ) [V] (real).
  * @param hPlane - H-plane amplitude H(θ) [V] (real).
  * @param polarization - 'x' or 'y' (feed frame).
+ * @param edgesRad - Angles θ [rad] in (0, π) where E or H jumps or has a kink (see {@link FeedPattern}). @defaultValue none
  * @returns The feed pattern.
+ * @throws {@link DomainError} for a bad polarization or edge.
  * @category Reflector
  */
-export function bodyOfRevolutionFeed(ePlane: (thetaRad: number) => number, hPlane: (thetaRad: number) => number, polarization: 'x' | 'y' = 'x'): FeedPattern {
+export function bodyOfRevolutionFeed(
+  ePlane: (thetaRad: number) => number, hPlane: (thetaRad: number) => number, polarization: 'x' | 'y' = 'x', edgesRad: readonly number[] = [],
+): FeedPattern {
   if (polarization !== 'x' && polarization !== 'y') throw new DomainError(`invalid argument "polarization": expected 'x' or 'y', received ${String(polarization)}.`);
-  return (theta, phi) => {
+  edgesRad.forEach((t, i) => {
+    if (typeof t !== 'number' || !(t > 0 && t < Math.PI)) throw new DomainError(`invalid argument "edgesRad[${i}]": expected an angle in (0, π) rad, received ${String(t)}.`);
+  });
+  const f = (theta: number, phi: number): FeedFieldSample => {
     const e = ePlane(theta), h = hPlane(theta);
     const c = Math.cos(phi), s = Math.sin(phi);
     return polarization === 'x'
       ? { thetaRe: e * c, thetaIm: 0, phiRe: -h * s, phiIm: 0 }
       : { thetaRe: e * s, thetaIm: 0, phiRe: h * c, phiIm: 0 };
   };
+  return Object.assign(f, { edgesRad: edgesRad.slice() });
 }
 
 /**
@@ -62,14 +76,14 @@ export function bodyOfRevolutionFeed(ePlane: (thetaRad: number) => number, hPlan
  * 2000, from memory).
  * @param n - Exponent n ≥ 0 (dimensionless); larger n gives a narrower pattern.
  * @param amplitudeV - Peak amplitude A [V] (efficiencies do not depend on it).
- * @returns The feed pattern.
+ * @returns The feed pattern, with its edge at θ = π/2 declared (`edgesRad`).
  * @category Reflector
  */
 export function cosinePowerFeed(n: number, amplitudeV = 1): FeedPattern {
   assertNonNegative('n', n);
   assertFinite('amplitudeV', amplitudeV);
   const g = (t: number) => (t < Math.PI / 2 ? amplitudeV * Math.cos(t) ** n : 0);
-  return bodyOfRevolutionFeed(g, g, 'x');
+  return bodyOfRevolutionFeed(g, g, 'x', [Math.PI / 2]);
 }
 
 /**

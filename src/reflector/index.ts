@@ -7,4 +7,4 @@ export { reflectorIntegrationOrders, secondaryPatternsPhysicalOptics, secondaryP
 export type { FeedEfficiencyOptions, FeedEfficiencies } from './efficiency.js';
 export { feedEfficiencies } from './efficiency.js';
 export type { ReflectorArrayFeedDescription, ReflectorArrayFeedEvaluation } from './evaluate.js';
-export { rayHitsReflector, evaluateReflectorArrayFeed } from './evaluate.js';
+export { rayHitsReflector, evaluateReflectorArrayFeed, reflectorFeedQuadrature } from './evaluate.js';

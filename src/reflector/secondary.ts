@@ -23,7 +23,9 @@ export interface SecondaryPatternOptions {
   /** Number of uniform azimuth samples; default as for `radialOrder`. */
   azimuthOrder?: number;
   /**
-   * Remove the currents (PO) or aperture field (aperture method) in the central blockage.
+   * Remove the currents (PO) or aperture field (aperture method) in the central blockage. On a
+   * symmetric dish the radial rule then starts at the blockage edge (an exact split); on an
+   * offset dish the nodes inside the blockage are dropped.
    * @defaultValue true when the reflector has a blockage diameter
    */
   applyBlockage?: boolean;
@@ -118,10 +120,11 @@ function setUp(dish: Paraboloid, feed: PortPatternSource, thetaRad: Float64Array
   const na = options.azimuthOrder ?? def.azimuthOrder;
   assertInteger('radialOrder', nr, 2, 20000);
   assertInteger('azimuthOrder', na, 4, 200000);
-  const s = sampleAperture(dish, nr, na);
+  const block = options.applyBlockage ?? dish.blockageDiameterM > 0;
+  const s = sampleAperture(dish, nr, na, block);
   const p = s.count, n = feed.portCount;
   return {
-    s, k: wavenumberRadPerM(feed.frequencyHz), nr, na, block: options.applyBlockage ?? dish.blockageDiameterM > 0, p, n, f: dish.focalLengthM,
+    s, k: wavenumberRadPerM(feed.frequencyHz), nr, na, block, p, n, f: dish.focalLengthM,
     src: [new Float64Array(2 * n * p), new Float64Array(2 * n * p), new Float64Array(2 * n * p)],
     e: incidentAmplitudes(s, feed),
   };

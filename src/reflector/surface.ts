@@ -25,9 +25,15 @@ export interface ApertureSamples {
   blocked: Uint8Array;
 }
 
-/** Gauss–Legendre in ρ × uniform in φ over the aperture disk. @internal */
-export function sampleAperture(dish: Paraboloid, radialOrder: number, azimuthOrder: number): ApertureSamples {
+/**
+ * Gauss–Legendre in ρ × uniform in φ over the aperture disk. When the blockage is to be
+ * removed from a symmetric dish, the radial rule covers the annulus ρ_b ≤ ρ ≤ a instead, so
+ * the blockage edge is a node boundary (integrated exactly, not by masking nodes). @internal
+ */
+export function sampleAperture(dish: Paraboloid, radialOrder: number, azimuthOrder: number, removeBlockage = false): ApertureSamples {
   const a = dish.diameterM / 2;
+  const annulus = removeBlockage && dish.offsetM === 0 && dish.blockageDiameterM > 0;
+  const r0 = annulus ? dish.blockageDiameterM / 2 : 0;
   const gl = gaussLegendre(radialOrder);
   const p = radialOrder * azimuthOrder;
   const s: ApertureSamples = {
@@ -37,8 +43,8 @@ export function sampleAperture(dish: Paraboloid, radialOrder: number, azimuthOrd
   const rb = dish.blockageDiameterM / 2;
   let k = 0;
   for (let i = 0; i < radialOrder; i++) {
-    const rho = 0.5 * a * (gl.nodes[i] + 1);
-    const wr = 0.5 * a * gl.weights[i] * rho * ((2 * Math.PI) / azimuthOrder);
+    const rho = r0 + 0.5 * (a - r0) * (gl.nodes[i] + 1);
+    const wr = 0.5 * (a - r0) * gl.weights[i] * rho * ((2 * Math.PI) / azimuthOrder);
     for (let j = 0; j < azimuthOrder; j++) {
       const ph = (2 * Math.PI * (j + 0.5)) / azimuthOrder;
       const x = dish.offsetM + rho * Math.cos(ph), y = rho * Math.sin(ph);
@@ -47,7 +53,7 @@ export function sampleAperture(dish: Paraboloid, radialOrder: number, azimuthOrd
       s.rf[k] = z + 2 * f; // focal distance equals the distance to the directrix z = −2f
       s.w[k] = wr;
       // Blockage is a disk centred on the paraboloid axis in the projected aperture.
-      s.blocked[k] = x * x + y * y < rb * rb ? 1 : 0;
+      s.blocked[k] = !annulus && x * x + y * y < rb * rb ? 1 : 0;
       k++;
     }
   }

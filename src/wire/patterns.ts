@@ -37,7 +37,7 @@ function internalsOf(solution: WireSolution): NonNullable<ReturnType<typeof solu
  * @param portCurrentsA - Port currents [A, RMS], P×1.
  * @param thetaRad - Polar angles [rad].
  * @param phiRad - Azimuths [rad], same length.
- * @returns θ̂ and φ̂ parts of f [V], each M×1.
+ * @returns θ̂ and φ̂ parts of f [V], each 1×M (one row, one column per direction: the element module's far-field shape).
  * @throws {@link DimensionError} for a current vector of the wrong size or unequal angle arrays.
  * @category Wire
  */
@@ -70,7 +70,7 @@ export function wireFarField(solution: WireSolution, portCurrentsA: CMatrix, the
     fillModelPatterns(model, c, 1, 1, thetaRad, phiRad, s, cnt, bt, bp, cnt);
     th.set(bt.subarray(0, 2 * cnt), 2 * s); ph.set(bp.subarray(0, 2 * cnt), 2 * s);
   }
-  return { thetaComponentV: { rows: m, cols: 1, data: th }, phiComponentV: { rows: m, cols: 1, data: ph } };
+  return { thetaComponentV: { rows: 1, cols: m, data: th }, phiComponentV: { rows: 1, cols: m, data: ph } };
 }
 
 /**

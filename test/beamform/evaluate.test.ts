@@ -54,7 +54,7 @@ describe('beam evaluation', () => {
   });
   it('interference rejection: LCMV nulls give > 250 dB, a conjugate beam gives its sidelobe level', () => {
     const b = lineSteering(n, [-0.5, 0.7]);
-    const w = constrainedMinimumVarianceWeights(identity(n), concatColumns([a, b]), fromRows([[1], [0], [0]]));
+    const w = constrainedMinimumVarianceWeights(concatColumns([a, b]), identity(n), fromRows([[1], [0], [0]]));
     for (const d of interferenceRejection(w, a, b).rejectionDb) expect(d).toBeGreaterThan(250);
     // Uniform 8-element beam, interferer at a sidelobe: |AF|² = (sin(Nψ/2)/(N sin(ψ/2)))², ψ = kd·Δu.
     const wc = conjugateFieldWeights(a);
@@ -79,8 +79,8 @@ describe('LCMV derivative constraint on a line', () => {
     const n = 10, u0 = 0.23, h = 1e-4; // interferer off the conjugate beam's nulls, so MVDR ≠ conjugate match
     const r = add(identity(n), scale(multiply(lineSteering(n, [-0.05]), adjoint(lineSteering(n, [-0.05]))), 100));
     const c = concatColumns([lineSteering(n, [u0]), lineSteeringDerivative(n, [u0])]);
-    const flat = constrainedMinimumVarianceWeights(r, c, fromRows([[1], [0]]));
-    const plain = constrainedMinimumVarianceWeights(r, lineSteering(n, [u0]), fromRows([[1]]));
+    const flat = constrainedMinimumVarianceWeights(c, r, fromRows([[1], [0]]));
+    const plain = constrainedMinimumVarianceWeights(lineSteering(n, [u0]), r, fromRows([[1]]));
     const slope = (w: ReturnType<typeof zeros>) => {
       const resp = beamResponse(w, lineSteering(n, [u0 - h, u0 + h]));
       return Math.hypot(resp.data[2] - resp.data[0], resp.data[3] - resp.data[1]) / (2 * h);

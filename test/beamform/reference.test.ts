@@ -27,7 +27,7 @@ describe('against numpy/scipy', () => {
   it('MVDR, raw max-SNR and LCMV (look, null, derivative and a complex-valued look constraint)', () => {
     expectCMatrixClose(minimumVarianceWeights(a0, R), matrixFromJSON(fx.mvdr), { rtol: 1e-10 });
     expectCMatrixClose(maxSnrWeights(a0, Rn, { normalization: 'none' }), matrixFromJSON(fx.maxSnrRaw), { rtol: 1e-10 });
-    expectCMatrixClose(constrainedMinimumVarianceWeights(R, matrixFromJSON(fx.constraints), matrixFromJSON(fx.responses)), matrixFromJSON(fx.lcmv), { rtol: 1e-10 });
+    expectCMatrixClose(constrainedMinimumVarianceWeights(matrixFromJSON(fx.constraints), R, matrixFromJSON(fx.responses)), matrixFromJSON(fx.lcmv), { rtol: 1e-10 });
   });
   it('Bartlett, Capon and MUSIC spectra', () => {
     expectArrayClose(bartlettSpectrum(R, scan), fx.bartlett, 1e-12);

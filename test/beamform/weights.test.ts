@@ -30,7 +30,7 @@ describe('maximum-SNR beam', () => {
         conjugateFieldWeights(a),
         minimumVarianceWeights(a, rTotal, { diagonalLoading: 0.3 }),
         maxSnrWeights(a, rn, { diagonalLoading: 0.5 }),
-        constrainedMinimumVarianceWeights(rTotal, randomMatrix(n, 1, seed + 2), fromRows([[1]])),
+        constrainedMinimumVarianceWeights(randomMatrix(n, 1, seed + 2), rTotal, fromRows([[1]])),
         randomMatrix(n, 1, seed + 3),
       ];
       for (const w of others) expect(beamSnr(w, a, rn)).toBeLessThanOrEqual(best * (1 + 1e-12));
@@ -83,7 +83,7 @@ describe('LCMV', () => {
       const c = randomMatrix(n, m, seed + 5);
       const g = randomMatrix(m, 1, seed + 6);
       if (m > 1) { g.data[2] = 0; g.data[3] = 0; } // one null constraint
-      const w = constrainedMinimumVarianceWeights(r, c, g);
+      const w = constrainedMinimumVarianceWeights(c, r, g);
       const resp = multiply(adjoint(w), c); // 1×M: wᴴcₘ
       let scaleRef = 0;
       for (let k = 0; k < m; k++) scaleRef = Math.max(scaleRef, Math.hypot(g.data[2 * k], g.data[2 * k + 1]), 1);
@@ -97,18 +97,18 @@ describe('LCMV', () => {
     // Frost 1972: adding constraints shrinks the feasible set, so min wᴴRw cannot decrease.
     const r = randomHpd(8, 21);
     const a = randomMatrix(8, 1, 22);
-    const one = constrainedMinimumVarianceWeights(r, a, fromRows([[1]]));
+    const one = constrainedMinimumVarianceWeights(a, r, fromRows([[1]]));
     expectCMatrixClose(one, minimumVarianceWeights(a, r), { rtol: 1e-12 });
-    const two = constrainedMinimumVarianceWeights(r, concat(a, randomMatrix(8, 1, 24)), fromRows([[1], [0]]));
+    const two = constrainedMinimumVarianceWeights(concat(a, randomMatrix(8, 1, 24)), r, fromRows([[1], [0]]));
     expect(beamOutputPower(two, r)).toBeGreaterThanOrEqual(beamOutputPower(one, r) * (1 - 1e-12));
   });
 
   it('throws for more constraints than elements and for dependent constraints', () => {
     const r = randomHpd(4, 1);
-    expect(() => constrainedMinimumVarianceWeights(r, randomMatrix(4, 5, 2), randomMatrix(5, 1, 3))).toThrow(DimensionError);
+    expect(() => constrainedMinimumVarianceWeights(randomMatrix(4, 5, 2), r, randomMatrix(5, 1, 3))).toThrow(DimensionError);
     const a = randomMatrix(4, 1, 4);
-    expect(() => constrainedMinimumVarianceWeights(r, concat(a, scale(a, 2)), fromRows([[1], [0]]))).toThrow(SingularMatrixError);
-    expect(() => constrainedMinimumVarianceWeights(r, a, fromRows([[1], [0]]))).toThrow(DimensionError);
+    expect(() => constrainedMinimumVarianceWeights(concat(a, scale(a, 2)), r, fromRows([[1], [0]]))).toThrow(SingularMatrixError);
+    expect(() => constrainedMinimumVarianceWeights(a, r, fromRows([[1], [0]]))).toThrow(DimensionError);
   });
 });
 

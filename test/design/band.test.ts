@@ -181,7 +181,7 @@ describe('beams over the scan coverage', () => {
   it('conjugate-field weights equal max-SNR weights for white noise (R_n = I), up to a phase', () => {
     const ports = dipoleArrayPorts(dipolesAt(), F0, { groundPlane: { zM: 0 } });
     const bp = samplePatterns(ports.patterns, Float64Array.of(0.3, 0), Float64Array.of(0.5, 0));
-    const a = matchedFieldWeightsUnpolarized(bp), b = maxSnrWeightsUnpolarized(identity(4), bp);
+    const a = matchedFieldWeightsUnpolarized(bp), b = maxSnrWeightsUnpolarized(bp, identity(4));
     for (let k = 0; k < 2; k++) {
       let re = 0, im = 0;
       for (let i = 0; i < 4; i++) {

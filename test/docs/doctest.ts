@@ -225,7 +225,7 @@ const srcUrl = (p: string): string => pathToFileURL(join(root, 'src', p)).href;
  * namespace imports are pointed at the sources.
  */
 async function asModule(code: string): Promise<string> {
-  let body = code.replace(/import\s+(type\s+)?\{[\s\S]*?\}\s+from\s+'phasewise(\/plot|\/node)?';?\n?/g, '');
+  let body = code.replace(/import\s+(type\s+)?\{[^}]*\}\s+from\s+'phasewise(\/plot|\/node)?';?\n?/g, '');
   for (const [spec, file] of ENTRIES) body = body.split(`from '${spec}'`).join(`from '${srcUrl(file)}'`);
   const taken = new Set<string>();
   const imports: string[] = [];

@@ -41,7 +41,7 @@ describe('TSDoc @example blocks in src/', () => {
 
 describe('docs/getting-started.md', () => {
   const b = markdownExamples('docs/getting-started.md');
-  it('has the taper, plot and evaluation examples', () => expect(b.length).toBe(3));
+  it('has the taper, plot, evaluation and band examples', () => expect(b.length).toBe(4));
   it('taper block prints the quoted numbers', async () => {
     const out = await runChecked(b[0].code, b[0].where, 'gs-taper');
     tally.run++;
@@ -58,6 +58,12 @@ describe('docs/getting-started.md', () => {
     const out = await runChecked(b[2].code, b[2].where, 'gs-eval');
     tally.run++;
     expect(out).toEqual(['T_sys 46.6 K, A_e 0.0210 m², A_e/T_sys 4.501e-4 m²/K']);
+  });
+  it('band block prints the quoted numbers', async () => {
+    const out = await runChecked(b[3].code, b[3].where, 'gs-band');
+    expect(out).toEqual(['broadside: band-average A_e/T_sys 0.00349 m²/K, worst 0.00320 m²/K at 2.40 GHz, worst G/T 3.95 dB/K, worst SEFD 864 kJy']);
+    // The identity the text states, on the printed values: the worst SEFD is 2k_B/(worst A_e/T_sys), in kJy.
+    expect(2 * 1.380649e-23 / 0.0031953 / 1e-26 / 1e3).toBeCloseTo(864, 0);
   });
 });
 

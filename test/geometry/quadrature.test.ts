@@ -78,3 +78,16 @@ describe('sphere quadrature', () => {
     expect(() => sphereQuadrature(0, 4)).toThrow(DomainError);
   });
 });
+
+describe('sphereQuadrature split at given polar angles', () => {
+  it('integrates a step at θ = 0.7 rad exactly: ∫_{θ<0.7} dΩ = 2π(1 − cos 0.7)', () => {
+    const q = sphereQuadrature(6, 4, { splitAtThetaRad: [0.7], splitAtHorizon: true });
+    expect(q.thetaCount).toBe(18);
+    let cap = 0;
+    for (let k = 0; k < q.count; k++) if (q.directions[3 * k + 2] > Math.cos(0.7)) cap += q.weights[k];
+    expect(cap / (2 * Math.PI * (1 - Math.cos(0.7))) - 1).toBeCloseTo(0, 14);
+    // The horizon given twice (as an angle and as the flag) is one breakpoint.
+    expect(sphereQuadrature(6, 4, { splitAtThetaRad: [Math.PI / 2], splitAtHorizon: true }).thetaCount).toBe(12);
+    expect(() => sphereQuadrature(6, 4, { splitAtThetaRad: [4] })).toThrow(DomainError);
+  });
+});

@@ -51,7 +51,7 @@ describe('matrix Y-factor on reception-module data', () => {
     const beams = samplePatterns(ports.patterns, Float64Array.of(0.2), Float64Array.of(0.4));
     const s = janskyToSi(5e4);
     const rs = pointSourceCorrelation(beams, 0, { fluxDensityWPerM2Hz: s, bandwidthHz: B });
-    const w = maxSnrWeightsUnpolarized(cold.total, beams);
+    const w = maxSnrWeightsUnpolarized(beams, cold.total);
     const red = onOffSensitivityFromCorrelation({ on: add(cold.total, rs), off: cold.total, weights: w, fluxDensityWPerM2Hz: s });
     const fig = beamFigures(cold, w, beams)[0];
     expect(Math.abs(red.aeOverTsysM2PerK / fig.sensitivityM2PerK - 1)).toBeLessThan(1e-9);

@@ -44,11 +44,13 @@ describe('bad input is a typed error', () => {
     expect(() => impedanceNoiseOf(two)).toThrow(DomainError);
     expect(() => convertNoiseCorrelation(identity(2), 'wave' as never, 'chain', identity(2))).toThrow(DomainError);
     expect(() => convertNoiseCorrelation(identity(3), 'chain', 'impedance', identity(2))).toThrow(DimensionError);
-    expect(() => noiseParametersFromChainCorrelation(fromRows([[0, 0], [0, 1]]))).toThrow(DomainError);
-    expect(() => thermalNoiseWaves(identity(2), -1)).toThrow(DomainError);
+    expect(() => noiseParametersFromChainCorrelation(fromRows([[0, 0], [0, 1]]), 1)).toThrow(DomainError);
+    expect(() => thermalNoiseWaves(identity(2), -1, 1)).toThrow(DomainError);
     expect(() => thermalImpedanceNoise(identity(2), 290, 0)).toThrow(DomainError);
+    // One bandwidth rule (issue 23): required, as in the reception module; a missing bandwidth is a typed error, not 1 Hz.
+    expect(() => thermalImpedanceNoise(identity(2), 290, undefined as unknown as number)).toThrow(/bandwidthHz/);
     expect(() => withImpedanceNoise(two, [identity(2)])).toThrow(DimensionError);
-    expect(() => chainNoiseCorrelation({ ...p, optimumSourceAdmittanceS: { re: -1, im: 0 } })).toThrow(DomainError);
+    expect(() => chainNoiseCorrelation({ ...p, optimumSourceAdmittanceS: { re: -1, im: 0 } }, 1)).toThrow(DomainError);
   });
   it('Touchstone writer options and parser input', () => {
     expect(() => formatTouchstone(two, { version: 3 as never })).toThrow(DomainError);

@@ -58,11 +58,11 @@ describe('Twiss (1955) vs. the scattering form', () => {
       const z = randomPassiveImpedance(n, seed);
       const refs = Array.from({ length: n }, (_, i) => ({ re: 20 + 15 * i, im: 10 * (i - 1) }));
       const net = createMultiport('impedance', [1e9], [z], { referenceOhm: refs });
-      const twiss = withImpedanceNoise(net, [thermalImpedanceNoise(z, 300)]);
+      const twiss = withImpedanceNoise(net, [thermalImpedanceNoise(z, 300, 1)]);
       const s = multiportMatrix(convertMultiport(net, 'scattering'), 0);
-      const cs = thermalNoiseWaves(s, 300);
+      const cs = thermalNoiseWaves(s, 300, 1);
       expectCMatrixClose({ rows: n, cols: n, data: twiss.noiseWaves!.slice() }, cs, { rtol: 1e-12 });
-      expectCMatrixClose(impedanceNoiseOf(withThermalNoise(net, 300))[0], thermalImpedanceNoise(z, 300), { rtol: 1e-12 });
+      expectCMatrixClose(impedanceNoiseOf(withThermalNoise(net, 300))[0], thermalImpedanceNoise(z, 300, 1), { rtol: 1e-12 });
     }
   });
   it('Bosma (1967): thermal networks at one T stay thermal after joining and renormalisation', () => {
@@ -101,10 +101,10 @@ describe('correlation-matrix forms (Hillbrand & Russer 1976)', () => {
     const y = inverse(z);
     const zn = createMultiport('impedance', [1e9], [z]);
     const abcd = multiportMatrix(convertMultiport(zn, 'chain'), 0);
-    const cz = thermalImpedanceNoise(z, 400);
+    const cz = thermalImpedanceNoise(z, 400, 1);
     const cy = multiply(multiply(y, cz), fromRows([[entry(y, 0, 0).conjugate(), entry(y, 1, 0).conjugate()], [entry(y, 0, 1).conjugate(), entry(y, 1, 1).conjugate()]]));
     // C_Y of a thermal network is 2kT(Y + Yᴴ) (Twiss, dual form)
-    const twissY = thermalImpedanceNoise(y, 400);
+    const twissY = thermalImpedanceNoise(y, 400, 1);
     expectCMatrixClose(cy, twissY, { rtol: 1e-12 });
     expectCMatrixClose(convertNoiseCorrelation(cz, 'impedance', 'admittance', abcd), twissY, { rtol: 1e-12 });
     const ca = convertNoiseCorrelation(cz, 'impedance', 'chain', abcd);
@@ -125,8 +125,8 @@ describe('correlation-matrix forms (Hillbrand & Russer 1976)', () => {
     const p = twoPortNoiseOf(att)[0];
     expect(noiseTemperatureK(p, 1 / z0)).toBeCloseTo((L - 1) * T, 9);
     // the same from the Twiss C_Z through the chain form
-    const ca = convertNoiseCorrelation(thermalImpedanceNoise(z, T), 'impedance', 'chain', multiportMatrix(convertMultiport(att, 'chain'), 0));
-    expect(noiseTemperatureK(noiseParametersFromChainCorrelation(ca), 1 / z0)).toBeCloseTo((L - 1) * T, 9);
+    const ca = convertNoiseCorrelation(thermalImpedanceNoise(z, T, 1), 'impedance', 'chain', multiportMatrix(convertMultiport(att, 'chain'), 0));
+    expect(noiseTemperatureK(noiseParametersFromChainCorrelation(ca, 1), 1 / z0)).toBeCloseTo((L - 1) * T, 9);
   });
 });
 

@@ -68,7 +68,9 @@ describe('analytic dipoles (element module) through the reception chain', () => 
     expect(dMax).toBeGreaterThan(3.5); // closely spaced endfire pair is superdirective
     expect(Math.abs(fig.sensitivityM2PerK / ((lambda * lambda * dMax) / (4 * Math.PI * t)) - 1)).toBeLessThan(1e-8);
     // max-SNR weights beat every other weight (sensitivity of random weights is lower)
-    const w = maxSnrWeightsUnpolarized(budget.total, beam);
+    const w = maxSnrWeightsUnpolarized(beam, budget.total);
+    // The deprecated (noise, beamPatterns) order gives the same weights.
+    expect(maxSnrWeightsUnpolarized(budget.total, beam).data).toEqual(w.data);
     for (const other of [[1, 0, 1, 0], [1, 0, -1, 0], [0.3, 0.2, 1, -0.4]]) {
       const g = beamFigures(budget, { rows: 2, cols: 1, data: Float64Array.from(other) }, beam)[0];
       expect(g.sensitivityM2PerK).toBeLessThan(fig.sensitivityM2PerK);

@@ -171,7 +171,7 @@ describe('signal and sensitivity', () => {
     const z = hertzianZ(xy);
     const budget = arrayNoiseBudget({ patterns: src, quadrature: quad, impedanceOhm: z, environment: isotropicEnvironment(t), bandwidthHz: 1, loss: 'lossless' });
     const beam = samplePatterns(src, Float64Array.of(Math.PI / 2), Float64Array.of(0)); // endfire along +x
-    const w = maxSnrWeightsUnpolarized(budget.total, beam);
+    const w = maxSnrWeightsUnpolarized(beam, budget.total);
     const [fig] = beamFigures(budget, w, beam);
     const k = (2 * Math.PI) / lambda;
     const rInv = inverse({ rows: 2, cols: 2, data: hertzianResistance(xy, L, f) });
@@ -234,7 +234,7 @@ describe('noise decomposition and efficiencies', () => {
   });
   it('batched rank-2 max-SNR weights reach the SNR of the generic generalized-eigenvector beamformer', () => {
     // Cross-check against the beamform module's any-rank max-SNR (principal generalized eigenvector).
-    const w = maxSnrWeightsUnpolarized(budget.total, beams);
+    const w = maxSnrWeightsUnpolarized(beams, budget.total);
     for (let k = 0; k < 2; k++) {
       const rs = pointSourceCorrelation(beams, k, { fluxDensityWPerM2Hz: 1e-24, bandwidthHz: 1 });
       const ref = maxSnrWeightsForCorrelation(rs, budget.total);
@@ -275,7 +275,7 @@ describe('noise decomposition and efficiencies', () => {
     expect(Math.abs(sp(0) - 0.5)).toBeLessThan(1e-12);
     expect(Math.abs(sp(1.1) - 0.5)).toBeLessThan(1e-3); // GL nodes are not symmetric about a tilted horizon
     // 4-element array, asymmetric beam
-    const w = maxSnrWeightsUnpolarized(budget.total, beams);
+    const w = maxSnrWeightsUnpolarized(beams, budget.total);
     const e0 = arrayNoiseBudget({ patterns: src, quadrature: quad, impedanceOhm: z, bandwidthHz: 1, environment: skyAndGroundEnvironment({ skyK: 5, tiltRad: 0 }), loss: 'lossless' });
     const eP = arrayNoiseBudget({ patterns: src, quadrature: quad, impedanceOhm: z, bandwidthHz: 1, environment: skyAndGroundEnvironment({ skyK: 5, tiltRad: Math.PI }), loss: 'lossless' });
     const a = beamFigures(e0, w, beams), c = beamFigures(eP, w, beams);

@@ -1,7 +1,10 @@
 import { describe, it, expect } from 'vitest';
 import {
   paraboloidReflector, evaluateReflectorArrayFeed, feedEfficiencies, beamformedFeedPattern, rayHitsReflector,
+  reflectorFeedQuadrature, analyticFeedSource, cosinePowerFeed,
 } from '../../src/reflector/index.js';
+import { fromRows } from '../../src/linalg/cmatrix.js';
+import { ETA0_OHM } from '../../src/units/constants.js';
 import { dipoleArrayPorts } from '../../src/reception/ports.js';
 import { sphereQuadrature } from '../../src/geometry/quadrature.js';
 import { columnVector, zeros } from '../../src/linalg/cmatrix.js';
@@ -70,6 +73,23 @@ describe('evaluateReflectorArrayFeed', () => {
       expect(best.figures[b].sensitivityM2PerK).toBeGreaterThanOrEqual(cf.figures[b].sensitivityM2PerK * (1 - 1e-9));
       expect(best.figures[b].apertureEfficiency!).toBeLessThan(1);
     }
+  });
+  it('system temperature of a cosⁿ feed: the rim-split rule gives the closed form η_s = 1 − cos^{2n+1}θ0 (issue 23)', () => {
+    // Lossless one-port cosⁿ feed with noiseless receivers: T_sys = η_s T_sky + (1 − η_s) T_ground with the captured
+    // fraction of ∫cos^{2n}θ sinθ dθ (closed form). Twiss-consistent radiation resistance: R = ∮|f|²dΩ/η = 2π/((2n + 1)η).
+    const n = 2;
+    const feed = { patterns: analyticFeedSource([cosinePowerFeed(n)], F), impedanceOhm: fromRows([[(2 * Math.PI) / ((2 * n + 1) * ETA0_OHM)]]) };
+    const etaS = 1 - Math.cos(dish.rimHalfAngleRad) ** (2 * n + 1);
+    const expected = etaS * 10 + (1 - etaS) * 290;
+    const base = { dish, feed, skyTemperatureK: 10, groundTemperatureK: 290, bandwidthHz: 1e6, beams, loss: 'lossless' as const, weights: columnVector([1]) };
+    const byDefault = evaluateReflectorArrayFeed(base);
+    expect(Math.abs(byDefault.figures[0].systemTemperatureK / expected - 1)).toBeLessThan(1e-12);
+    const small = evaluateReflectorArrayFeed({ ...base, feedQuadrature: reflectorFeedQuadrature(dish, 8, 8) });
+    expect(Math.abs(small.figures[0].systemTemperatureK / expected - 1)).toBeLessThan(1e-9);
+    // A rule split only at the horizon, with as many θ nodes (24) as the small rim-split rule: the step at the rim falls between nodes.
+    const horizonOnly = evaluateReflectorArrayFeed({ ...base, feedQuadrature: sphereQuadrature(12, 8, { splitAtHorizon: true }) });
+    expect(Math.abs(horizonOnly.figures[0].systemTemperatureK / expected - 1)).toBeGreaterThan(1e-3);
+    expect(() => reflectorFeedQuadrature(paraboloidReflector({ diameterM: 2, focalLengthM: 1, offsetM: 1.2 }))).toThrow(DomainError);
   });
   it('bad input', () => {
     expect(() => evaluateReflectorArrayFeed({ dish, feed: single, feedQuadrature: quad, skyTemperatureK: -1, groundTemperatureK: 290, bandwidthHz: 1e6, beams })).toThrow(DomainError);

@@ -194,16 +194,17 @@ export function formatRun(r: ReportRun): string {
   }
   const ev = r.evaluation;
   const nf = ev.frequenciesHz.length;
-  // Best and worst beam by band-average sensitivity.
+  // Best beam by band-average sensitivity, worst by its lowest sensitivity in the band.
   const s = ev.bandSummary;
   let best = 0, worst = 0;
   s.forEach((b, k) => { if (b.bandAverageSensitivityM2PerK > s[best].bandAverageSensitivityM2PerK) best = k; if (b.worstSensitivityM2PerK < s[worst].worstSensitivityM2PerK) worst = k; });
   const label = (k: number) => ev.beams.kind === 'plane' && ev.beams.scanAngleDeg ? `${ev.beams.scanAngleDeg[k]}°` : `θ ${num(ev.beams.thetaDeg[k], 4)}°, φ ${num(ev.beams.phiDeg[k], 4)}°`;
   const fText = (f: number) => `${num(f / 1e9, 6)} GHz`;
+  const band = nf > 1;
   const lines = [
-    `${ev.title}: ${ev.elementCount} elements, ${ev.beams.thetaDeg.length} beams (${ev.beamformer}), ${nf === 1 ? fText(ev.frequenciesHz[0]) : `${nf} frequencies ${fText(ev.frequenciesHz[0])} – ${fText(ev.frequenciesHz[nf - 1])}`}`,
-    `  best beam  (${label(best)}): A_e/T_sys ${num(s[best].bandAverageSensitivityM2PerK, 4)} m²/K${nf > 1 ? ' band average' : ''}, G/T ${num(ev.frequencies[0].beams[best].gainOverTemperatureDbPerK, 4)} dB/K${nf > 1 ? ' at the lowest frequency' : ''}`,
-    `  worst beam (${label(worst)}): A_e/T_sys ${num(s[worst].worstSensitivityM2PerK, 4)} m²/K at ${fText(s[worst].worstFrequencyHz)}, worst G/T ${num(s[worst].worstGainOverTemperatureDbPerK, 4)} dB/K, worst SEFD ${num(s[worst].worstSefdJy, 4)} Jy`,
+    `${ev.title}: ${ev.elementCount} elements, ${ev.beams.thetaDeg.length} beams (${ev.beamformer}), ${band ? `${nf} frequencies ${fText(ev.frequenciesHz[0])} – ${fText(ev.frequenciesHz[nf - 1])}` : fText(ev.frequenciesHz[0])}`,
+    `  best beam  (${label(best)}): A_e/T_sys ${num(s[best].bandAverageSensitivityM2PerK, 4)} m²/K${band ? ' band average' : ''}, G/T ${num(s[best].worstGainOverTemperatureDbPerK, 4)} dB/K${band ? ' or better' : ''}`,
+    `  worst beam (${label(worst)}): A_e/T_sys ${num(s[worst].worstSensitivityM2PerK, 4)} m²/K${band ? ` at ${fText(s[worst].worstFrequencyHz)}` : ''}, G/T ${num(s[worst].worstGainOverTemperatureDbPerK, 4)} dB/K, SEFD ${num(s[worst].worstSefdJy, 4)} Jy`,
     `  report written to ${r.folder}`,
     `  files: ${r.files.join(', ')}`,
   ];

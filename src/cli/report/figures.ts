@@ -22,7 +22,7 @@ export function frequencyUnit(ev: DesignEvaluation): { scale: number; unit: 'MHz
 export function beamLabel(ev: DesignEvaluation, k: number): string {
   const b = ev.beams;
   if (b.kind === 'plane' && b.scanAngleDeg) return `beam at ${round(b.scanAngleDeg[k])}°`;
-  return `beam θ ${round(b.thetaDeg[k])}°, φ ${round(b.phiDeg[k])}°`;
+  return `θ ${round(b.thetaDeg[k])}°, φ ${round(b.phiDeg[k])}°`;
 }
 
 const round = (x: number) => Number(x.toFixed(2));
@@ -104,23 +104,28 @@ export function reportFigureList(ev: DesignEvaluation): ReportFigure[] {
   }
 
   if (ev.beams.kind === 'cone' && ev.beams.stepUV !== undefined) {
-    // A_e/T_sys over the scan coverage on its u-v grid, in dB relative to the best beam of all maps.
+    // A_e/T_sys over the scan coverage on its u-v grid, in dB relative to the best beam at that frequency.
     const s = ev.beams.stepUV;
     const m = Math.round(Math.max(...ev.beams.u.map(Math.abs), ...ev.beams.v.map(Math.abs)) / s);
     const axis = Array.from({ length: 2 * m + 1 }, (_, i) => (i - m) * s);
-    let best = 0;
-    for (const i of ev.reportFrequencyIndices) for (const b of ev.frequencies[i].beams) best = Math.max(best, b.sensitivityM2PerK);
     for (const i of ev.reportFrequencyIndices) {
+      const beams = ev.frequencies[i].beams;
+      const best = Math.max(...beams.map((b) => b.sensitivityM2PerK));
       const grid = new Float64Array(axis.length * axis.length).fill(NaN);
-      ev.frequencies[i].beams.forEach((b, k) => {
+      let low = 0;
+      beams.forEach((b, k) => {
         const iu = Math.round(ev.beams.u[k] / s) + m, iv = Math.round(ev.beams.v[k] / s) + m;
-        grid[iv * axis.length + iu] = powerToDb(b.sensitivityM2PerK / best);
+        const db = powerToDb(b.sensitivityM2PerK / best);
+        grid[iv * axis.length + iu] = db;
+        low = Math.min(low, db);
       });
+      // Colour scale from the lowest value (rounded down to 0.5 dB, at least 1 dB deep) to 0 dB.
+      const floorDb = Math.min(-1, Math.floor(low * 2) / 2);
       const at = band ? ` at ${fText(ev, i)}` : '';
       out.push({
         file: `sensitivity-map${suffix(ev, i)}.svg`,
-        caption: `A_e/T_sys over the scan coverage${at}, dB relative to the best beam (${best.toPrecision(4)} m²/K); one cell per beam.`,
-        svg: uvMapSvg({ title: `A_e/T_sys over the scan coverage${at} [dB re best]`, u: axis, v: axis, valueDb: grid, floorDb: -3, ceilingDb: 0, showVisibleCircle: false }),
+        caption: `A_e/T_sys over the scan coverage${at}, dB relative to the best beam there (${best.toPrecision(4)} m²/K); one cell per beam, colour scale ${floorDb} to 0 dB.`,
+        svg: uvMapSvg({ title: `A_e/T_sys over the scan coverage${at} [dB re best]`, u: axis, v: axis, valueDb: grid, floorDb, ceilingDb: 0, showVisibleCircle: false }),
       });
     }
   }

@@ -49,7 +49,7 @@ export function reportHtml(ev: DesignEvaluation, figures: readonly ReportFigure[
   ]);
   const bandTable = tableHtml(['beam', 'worst A_e/T_sys [m²/K]', `at [${unit}]`, 'mean A_e/T_sys [m²/K]', 'band-average A_e/T_sys [m²/K]', 'worst G/T [dB/K]', 'worst SEFD [Jy]'], bandRows);
   const hasAp = ev.frequencies[0].beams[0].apertureEfficiency !== undefined;
-  const perFrequency = ev.frequencies.map((r) => {
+  const perFrequency = ev.reportFrequencyIndices.map((i) => ev.frequencies[i]).map((r) => {
     const rows = r.beams.map((b, k) => [
       beamLabel(ev, k), num(b.systemTemperatureK, 5), num(b.receiverTemperatureK, 5), num(b.skyTemperatureK, 4), num(b.spilloverTemperatureK, 4),
       num(b.effectiveAreaM2, 4), num(b.sensitivityM2PerK, 4), num(b.gainOverTemperatureDbPerK, 4), num(b.sefdJy, 4), num(10 * Math.log10(b.gain), 4),
@@ -65,14 +65,15 @@ export function reportHtml(ev: DesignEvaluation, figures: readonly ReportFigure[
 <main>
 <h2>Summary</h2>
 ${summary}
-<h2>Band summary per beam</h2>
-${bandTable}
-<p class="note">G/T = (4π/λ²)·A_e/T_sys and SEFD = 2k_B·T_sys/A_e for an unpolarized source; gain and T_sys are both referred to the beamformer output and normalised by the beam's isotropic noise response (Warnick, Ivashina, Maaskant, Woestenburg, IEEE Trans. Antennas Propag. 58(6), 2010), so their ratio does not depend on the reference plane. The band average is the trapezoid-rule mean over frequency.</p>
 <h2>Figures</h2>
 <div class="figs">
 ${figs}
 </div>
-<h2>Figures of merit per frequency and beam</h2>
+<h2>Band summary per beam</h2>
+${bandTable}
+<p class="note">G/T = (4π/λ²)·A_e/T_sys and SEFD = 2k_B·T_sys/A_e for an unpolarized source; gain and T_sys are both referred to the beamformer output and normalised by the beam's isotropic noise response (Warnick, Ivashina, Maaskant, Woestenburg, IEEE Trans. Antennas Propag. 58(6), 2010), so their ratio does not depend on the reference plane. The band average is the trapezoid-rule mean over frequency.</p>
+<h2>Figures of merit per beam${fl.length > 1 ? ' at the report frequencies' : ''}</h2>
+${fl.length > 1 ? `<p class="note">Tables at ${ev.reportFrequencyIndices.length} of the ${fl.length} band frequencies; figures.json holds every frequency.</p>` : ''}
 ${perFrequency}
 <p class="note">These are engineering estimates from the models named in the design; check them against measurements before relying on them.</p>
 <h2>Design file</h2>
