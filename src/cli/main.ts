@@ -1,6 +1,7 @@
 /**
- * The `phasewise` command line. Exit codes: 0 success, 2 bad input (with a
- * message naming the problem), 1 internal failure. The bin is bin.ts. Never evaluates input as
+ * The `phasewise` command line. Exit codes: 0 done, 1 internal fault, 2 bad input
+ * (with a message naming the problem), 3 results written but a physical check failed
+ * (unless --accept-failed-checks). The bin is bin.ts. Never evaluates input as
  * code; writes only inside the chosen output folder.
  * @internal
  * @module
@@ -10,7 +11,8 @@ import { UsageError, exitCodeFor } from './errors.js';
 import { TAPER_KINDS, formatTaper, runTaper } from './commands/taper.js';
 import { formatSpacing, runSpacing } from './commands/spacing.js';
 import { formatYFactor, noiseSourceSetting, runYFactor } from './commands/yfactor.js';
-import { formatRun, parseShard, runEvaluate, runMerge } from './commands/evaluate.js';
+import { failedChecksText, formatRun, parseShard, runEvaluate, runMerge, type ReportRun } from './commands/evaluate.js';
+import { FailedChecksError } from './errors.js';
 import { VERSION } from '../version.js';
 import { DEMO_FOLDER, runDemo } from './commands/demo.js';
 
@@ -23,6 +25,17 @@ function numberArg(name: string, opts: { integer?: boolean; min?: number; max?: 
     }
     return v;
   };
+}
+
+/** Exit 3 (FailedChecksError) when the run's results failed a check, unless accepted (then a warning). */
+function throwIfChecksFailed(run: ReportRun, accept: boolean, err: (s: string) => void): void {
+  const text = failedChecksText(run);
+  if (text === undefined) return;
+  if (accept) {
+    err(`phasewise: warning: ${text} (accepted with --accept-failed-checks; the report is marked)\n`);
+    return;
+  }
+  throw new FailedChecksError(`${text}; the report is written and marked. Pass --accept-failed-checks to exit 0 anyway.`);
 }
 
 function parseShardArg(value: string): { index: number; count: number } {
@@ -101,7 +114,11 @@ export function buildProgram(io: { out: (s: string) => void; err: (s: string) =>
     .option('--workers <n>', 'worker threads for the frequency blocks (default: every core)', numberArg('--workers', { integer: true, min: 1, max: 1024 }))
     .option('--shard <i/n>', 'evaluate only block i of n of the band and write part-i-of-n.json (combine with "phasewise merge")', parseShardArg)
     .option('--no-progress', 'no progress bar (it is shown only when stderr is a terminal)')
+    .option('--dry-run', 'print the estimated time and memory only; evaluate and write nothing')
+    .option('--accept-failed-checks', 'exit 0 even when results fail a physical check (the report is marked either way)')
     .addHelpText('after', [
+      '',
+      'Exit codes: 0 done, 1 internal fault, 2 bad input, 3 a physical check failed (report written, marked).',
       '',
       'Example:',
       '  phasewise evaluate feed-array.json --out feed-report',
@@ -117,16 +134,21 @@ export function buildProgram(io: { out: (s: string) => void; err: (s: string) =>
       '   "beams": {"cone": {"maxThetaDeg": 30, "stepUV": 0.2}, "beamformer": "max-snr"}}',
     ].join('\n'))
     .action(async (file: string, o) => {
-      io.out(formatRun(await runEvaluate(file, o.out, { progress: o.progress !== false, workers: o.workers, shard: o.shard })) + '\n');
+      const run = await runEvaluate(file, o.out, { progress: o.progress !== false, workers: o.workers, shard: o.shard, dryRun: o.dryRun === true, log: io.err });
+      io.out(formatRun(run) + '\n');
+      throwIfChecksFailed(run, o.acceptFailedChecks === true, io.err);
     });
 
   program.command('merge')
     .description('Merge the shard parts of one design (phasewise evaluate --shard i/n) into the report a single run writes.')
     .argument('<parts...>', 'part files part-<i>-of-<n>.json, all shards of one design')
     .requiredOption('--out <folder>', 'report folder')
+    .option('--accept-failed-checks', 'exit 0 even when results fail a physical check (the report is marked either way)')
     .addHelpText('after', '\nExample:\n  phasewise merge parts/part-1-of-2.json parts/part-2-of-2.json --out report')
     .action(async (parts: string[], o) => {
-      io.out(formatRun(await runMerge(parts, o.out)) + '\n');
+      const run = await runMerge(parts, o.out);
+      io.out(formatRun(run) + '\n');
+      throwIfChecksFailed(run, o.acceptFailedChecks === true, io.err);
     });
 
   program.command('demo')
@@ -136,7 +158,9 @@ export function buildProgram(io: { out: (s: string) => void; err: (s: string) =>
     .addHelpText('after', '\nExample:\n  phasewise demo --out demo-report')
     .option('--workers <n>', 'worker threads (default: every core)', numberArg('--workers', { integer: true, min: 1, max: 1024 }))
     .action(async (o) => {
-      io.out(formatRun(await runDemo(o.out, { progress: o.progress !== false, workers: o.workers })) + '\n');
+      const run = await runDemo(o.out, { progress: o.progress !== false, workers: o.workers });
+      io.out(formatRun(run) + '\n');
+      throwIfChecksFailed(run, false, io.err);
     });
 
   return program;
@@ -156,7 +180,7 @@ export async function runCli(argv: readonly string[], io = { out: (s: string) =>
     }
     const code = exitCodeFor(e);
     const msg = e instanceof Error ? e.message : String(e);
-    io.err(`phasewise: ${code === 2 ? 'error' : 'internal error'}: ${msg}\n`);
+    io.err(`phasewise: ${code === 3 ? 'failed checks' : code === 2 ? 'error' : 'internal error'}: ${msg}\n`);
     if (code === 1 && e instanceof Error && e.stack) io.err(e.stack + '\n');
     return code;
   }

@@ -23,7 +23,7 @@ import { embeddedPatternSet, type EmbeddedPatternSet } from '../element/patternS
 import { dipolesFromLayout } from '../element/fromLayout.js';
 import type { WireDipole } from '../element/types.js';
 import {
-  dipoleArrayPorts, patternSetPorts, skyAndGroundEnvironment, skyTemperatureAt,
+  dipoleArrayPorts, dipoleModelChecks, patternSetPorts, skyAndGroundEnvironment, skyTemperatureAt,
   type ArrayPortSource, type BeamDirections, type NoiseEnvironment,
 } from '../reception/index.js';
 import { circularTaylorTaper, cosineDistribution, sampleRadialDistribution, uniformTaper } from '../taper/index.js';
@@ -289,7 +289,25 @@ export function prepareDesign(design: Design, options: PrepareDesignOptions = {}
   const taper = taperAmplitudes(d, layout, spacingM, file);
   const amplifiersAt = amplifierBand(d, file, frequenciesHz, options.readFile);
   const imported = importElements(d, file, frequenciesHz, layout, options.readFile);
+  checkElementModel(d, file, frequenciesHz);
   return { design: d, fileName: file, frequenciesHz, layout, lattice, beams, taper, amplifiersAt, imported, reportFrequencyIndices: reportFrequencies(d, frequenciesHz) };
+}
+
+/**
+ * Refuses a dipole design outside the one-mode model's validity at the highest band
+ * frequency (reception's dipoleModelChecks: length ≤ 1 λ, radius ≤ 0.01 λ, common practice),
+ * before any integral is sized for it.
+ */
+function checkElementModel(d: Design, file: string, band: Float64Array): void {
+  const e = d.elements;
+  if (e.kind !== 'dipole') return;
+  const fMax = band[band.length - 1];
+  const failed = dipoleModelChecks([{ centerM: [0, 0, 0], axis: e.axis, lengthM: e.lengthM, radiusM: e.radiusM }], fMax).filter((c) => !c.passed);
+  if (failed.length > 0) {
+    const c = failed[0];
+    throw fieldError(file, c.name === 'elementModel.wireRadius' ? 'elements.radiusM' : 'elements.lengthM',
+      `fails the model-validity check "${c.name}" at ${hzText(fMax)}: ${c.value.toPrecision(4)} > ${c.limit} (${c.meaning})`);
+  }
 }
 
 function reportFrequencies(d: Design, band: Float64Array): number[] {

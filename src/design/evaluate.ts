@@ -6,15 +6,16 @@
  * @module
  */
 import { zeros } from '../linalg/cmatrix.js';
+import type { PhysicalCheck } from '../checks.js';
 import { NumericError } from '../errors.js';
-import { sphereQuadrature, sphereQuadratureForLayout } from '../geometry/index.js';
+import { layoutDiameterM, sphereQuadrature, sphereQuadratureForLayout, sphereQuadratureOrder, type SphereQuadrature } from '../geometry/index.js';
 import { gratingLobeCircles } from '../floquet/grating-lobes.js';
 import { createMultiport } from '../network/multiport.js';
 import { activeReflection } from '../network/sources.js';
 import { powerToDb, radToDeg, wavenumberRadPerM } from '../units/convert.js';
 import {
   beamPowerPatterns, evaluateReceivingArray, gainOverTemperatureDbPerK, matchedFieldWeightsUnpolarized, samplePatterns,
-  systemEquivalentFluxDensityJy, type BeamFigures,
+  systemEquivalentFluxDensityJy, evaluationCost, type BeamFigures, type EvaluationCost,
 } from '../reception/index.js';
 import type { Design } from './schema.js';
 import { fieldError } from './schema.js';
@@ -140,10 +141,15 @@ export interface FrequencyEvaluation {
   };
   /** Figures per beam, in beam order. */
   readonly beams: DesignBeamFigures[];
-  /** The array's minimum receiver temperature T_rec,min [K]. */
-  readonly minimumReceiverTemperatureK: number;
-  /** Embedded element efficiency per port (linear). */
+  /** The array's minimum receiver temperature T_rec,min [K]; null when its check failed (see `checks`). */
+  readonly minimumReceiverTemperatureK: number | null;
+  /** Embedded element efficiency per port (linear); empty when they could not be computed (see `checks`). */
   readonly embeddedElementEfficiency: number[];
+  /**
+   * Physical self-checks at this frequency (reception module's receivingArrayChecks, with the
+   * element model's validity): a failed check marks the figures it names as untrustworthy.
+   */
+  readonly checks: PhysicalCheck[];
   /** Pattern cuts (report frequencies only). */
   readonly patternCuts?: DesignPatternCut[];
   /** Angles of the cut samples [deg] (report frequencies only). */
@@ -213,6 +219,17 @@ export interface DesignEvaluation {
   readonly frequencies: FrequencyEvaluation[];
   /** Band summary per beam. */
   readonly bandSummary: BeamBandSummary[];
+  /** Every failed check of the band, with its frequency (empty: every figure passed its checks). */
+  readonly failedChecks: FailedCheck[];
+}
+
+/**
+ * A failed physical check and the frequency it failed at.
+ * @category Design
+ */
+export interface FailedCheck extends PhysicalCheck {
+  /** Frequency [Hz]. */
+  readonly frequencyHz: number;
 }
 
 /** Options of {@link evaluateDesign}. @category Design */
@@ -253,6 +270,43 @@ export function shownBeams(p: PreparedDesign): number[] {
 }
 
 /**
+ * The sphere rule of the noise integrals at one band frequency: the design's own
+ * `quadrature`, or one sized for the layout at f (geometry's sphereQuadratureForLayout,
+ * tolerance 1e-6).
+ * @param prepared - The prepared design.
+ * @param frequencyHz - Frequency [Hz].
+ * @returns The rule.
+ * @category Design
+ */
+export function designQuadratureAt(prepared: PreparedDesign, frequencyHz: number): SphereQuadrature {
+  const q = prepared.design.quadrature;
+  return q ? sphereQuadrature(q.thetaCount, q.phiCount) : sphereQuadratureForLayout(prepared.layout, frequencyHz, { tolerance: 1e-6 });
+}
+
+/**
+ * Estimated cost of evaluating band frequencies of a design (reception module's
+ * evaluationCost per frequency, from the port, direction and beam counts).
+ * @param prepared - The prepared design.
+ * @param indices - Band indices to evaluate. @defaultValue all
+ * @returns Time on one core [s] summed over the frequencies, the peak memory of one frequency [bytes], and the per-frequency estimates.
+ * @category Design
+ */
+export function estimateDesignCost(prepared: PreparedDesign, indices?: readonly number[]): { totalS: number; peakBytes: number; perFrequency: EvaluationCost[] } {
+  const idx = indices ?? Array.from(prepared.frequenciesHz, (_, i) => i);
+  const perFrequency = idx.map((i) => {
+    // Node counts only: the rule itself is not built (it may be what does not fit).
+    const own = prepared.design.quadrature;
+    const q = own ?? sphereQuadratureOrder(wavenumberRadPerM(prepared.frequenciesHz[i]) * layoutDiameterM(prepared.layout), { tolerance: 1e-6 });
+    return evaluationCost({ portCount: prepared.layout.count, directionCount: q.thetaCount * q.phiCount, beamCount: prepared.beams.thetaRad.length });
+  });
+  return {
+    totalS: perFrequency.reduce((a, c) => a + c.totalS, 0),
+    peakBytes: Math.max(0, ...perFrequency.map((c) => c.peakBytes)),
+    perFrequency,
+  };
+}
+
+/**
  * Evaluates one band frequency of a prepared design.
  *
  * @remarks
@@ -274,9 +328,7 @@ export function evaluateDesignFrequency(prepared: PreparedDesign, index: number)
   const f = p.frequenciesHz[index];
   const ports = designPortsAt(p, f);
   const { environment, skyK } = designEnvironmentAt(p, f);
-  const quadrature = d.quadrature
-    ? sphereQuadrature(d.quadrature.thetaCount, d.quadrature.phiCount)
-    : sphereQuadratureForLayout(p.layout, f, { tolerance: 1e-6 });
+  const quadrature = designQuadratureAt(p, f);
   const amplifiers = p.amplifiersAt?.(f);
   const kind = d.beams.beamformer ?? 'max-snr';
   const beams = { thetaRad: p.beams.thetaRad, phiRad: p.beams.phiRad };
@@ -305,8 +357,9 @@ export function evaluateDesignFrequency(prepared: PreparedDesign, index: number)
     frequencyHz: f, skyK,
     quadrature: { thetaCount: quadrature.thetaCount, phiCount: quadrature.phiCount },
     beams: beamRows,
-    minimumReceiverTemperatureK: ev.minimumReceiverTemperatureK,
+    minimumReceiverTemperatureK: Number.isFinite(ev.minimumReceiverTemperatureK) ? ev.minimumReceiverTemperatureK : null,
     embeddedElementEfficiency: Array.from(ev.embeddedElementEfficiency),
+    checks: ev.checks,
   };
   if (amplifiers) {
     const y = amplifiers.optimumSourceAdmittanceS;
@@ -418,6 +471,7 @@ export function assembleDesignEvaluation(prepared: PreparedDesign, frequencies: 
     positionsM: Array.from({ length: p.layout.count }, (_, i) => Array.from(p.layout.positionsM.subarray(3 * i, 3 * i + 3))),
     frequencies: [...frequencies],
     bandSummary,
+    failedChecks: frequencies.flatMap((r) => r.checks.filter((c) => !c.passed).map((c) => ({ ...c, frequencyHz: r.frequencyHz }))),
   };
   if (p.lattice) {
     const fMax = band[band.length - 1];

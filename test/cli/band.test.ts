@@ -11,6 +11,11 @@ import { runCli } from '../../src/cli/main.js';
 async function run(args: string[]): Promise<{ code: number; out: string; err: string }> {
   let out = '', err = '';
   const code = await runCli(args, { out: (s) => { out += s; }, err: (s) => { err += s; } });
+  // Exit 0 means trustworthy: a written report of a successful run has no failed physical check.
+  const o = args.indexOf('--out');
+  if (code === 0 && o >= 0 && !args.includes('--accept-failed-checks') && existsSync(join(args[o + 1], 'figures.json'))) {
+    expect(JSON.parse(readFileSync(join(args[o + 1], 'figures.json'), 'utf8')).failedChecks, `exit 0 with failed checks: ${args.join(' ')}`).toEqual([]);
+  }
   return { code, out, err };
 }
 
@@ -121,5 +126,57 @@ describe('phasewise evaluate on a band design', () => {
       expect(r.err).toContain('permission denied');
     }
     expect(existsSync('/proc/phasewise-report')).toBe(false);
+  });
+
+  it('results that fail a physical check exit 3 with the report written and marked; --accept-failed-checks exits 0', async () => {
+    // 600 λ/2-spaced dipoles over ground with a 14 × 28 sphere rule: far too coarse (η_rad ≈ 24).
+    const d = { ...bandDesign('too coarse a rule'), frequencyHz: F0, layout: { kind: 'line', count: 600, spacingM: 0.5 * L0 }, beams: { thetaDeg: [0] }, quadrature: { thetaCount: 14, phiCount: 28 } } as Record<string, unknown>;
+    delete d.physicalAreaM2;
+    const file = join(dir, 'coarse.json');
+    writeFileSync(file, JSON.stringify(d));
+    const r = await run(['evaluate', file, '--out', join(dir, 'coarse'), '--workers', '1']);
+    expect(r.code, r.err).toBe(3);
+    expect(r.err).toContain('phasewise: failed checks:');
+    expect(r.err).toContain('radiationEfficiency');
+    expect(r.err).toContain('twissResidual');
+    const j = JSON.parse(readFileSync(join(dir, 'coarse', 'figures.json'), 'utf8'));
+    expect(j.failedChecks.map((c: any) => c.name)).toEqual(expect.arrayContaining(['radiationEfficiency', 'twissResidual']));
+    expect(readFileSync(join(dir, 'coarse', 'report.html'), 'utf8')).toContain('id="failed-checks"');
+    const a = await run(['evaluate', file, '--out', join(dir, 'coarse-accepted'), '--workers', '1', '--accept-failed-checks']);
+    expect(a.code).toBe(0);
+    expect(a.err).toContain('warning');
+    // A shard of a failing design exits 3 too, and so does merging it.
+    const s = await run(['evaluate', file, '--out', join(dir, 'coarse-parts'), '--shard', '1/1']);
+    expect(s.code).toBe(3);
+    const m = await run(['merge', join(dir, 'coarse-parts', 'part-1-of-1.json'), '--out', join(dir, 'coarse-merged')]);
+    expect(m.code).toBe(3);
+  }, 120_000);
+
+  it('element-model validity and sizes beyond memory exit 2 before any integral, naming the check or the estimate', async () => {
+    const cases: Array<[string, (d: any) => void, string]> = [
+      ['25.3 λ dipole', (d) => { d.frequencyHz = F0; d.elements.lengthM = 25.3 * L0; }, 'elementModel.electricalLength'],
+      ['10³⁰ Hz', (d) => { d.frequencyHz = 1e30; }, 'elementModel.electricalLength'],
+      ['1000 × 1000 grid', (d) => { d.frequencyHz = F0; d.layout = { kind: 'rectangular', countX: 1000, countY: 1000, spacingXM: 0.5 * L0, spacingYM: 0.5 * L0 }; }, 'GB of memory'],
+    ];
+    for (const [label, mutate, text] of cases) {
+      const d = bandDesign(label) as any;
+      delete d.quadrature;
+      mutate(d);
+      const file = join(dir, `invalid-${label.replace(/\W+/g, '-')}.json`);
+      writeFileSync(file, JSON.stringify(d));
+      const t0 = performance.now();
+      const r = await run(['evaluate', file, '--out', join(dir, 'never'), '--workers', '1']);
+      expect(r.code, `${label}: ${r.err}`).toBe(2);
+      expect(r.err, label).toContain(text);
+      expect(performance.now() - t0, label).toBeLessThan(20_000);
+    }
+    expect(existsSync(join(dir, 'never'))).toBe(false);
+  });
+
+  it('--dry-run prints the time and memory estimate and writes nothing', async () => {
+    const r = await run(['evaluate', join(dir, 'band.json'), '--out', join(dir, 'dry'), '--dry-run']);
+    expect(r.code).toBe(0);
+    expect(r.out).toMatch(/^estimate for a design of 6 elements, 13 beams and 5 frequencies: about .* s on one core, .*peak memory about \d+ MB/);
+    expect(existsSync(join(dir, 'dry'))).toBe(false);
   });
 });

@@ -22,6 +22,11 @@ import { solve } from '../../src/linalg/lu.js';
 async function run(args: string[]): Promise<{ code: number; out: string; err: string }> {
   let out = '', err = '';
   const code = await runCli(args, { out: (s) => { out += s; }, err: (s) => { err += s; } });
+  // Exit 0 means trustworthy: a written report of a successful run has no failed physical check.
+  const o = args.indexOf('--out');
+  if (code === 0 && o >= 0 && !args.includes('--accept-failed-checks') && existsSync(join(args[o + 1], 'figures.json'))) {
+    expect(JSON.parse(readFileSync(join(args[o + 1], 'figures.json'), 'utf8')).failedChecks, `exit 0 with failed checks: ${args.join(' ')}`).toEqual([]);
+  }
   return { code, out, err };
 }
 

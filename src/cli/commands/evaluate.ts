@@ -9,12 +9,14 @@
  */
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
+import { totalmem } from 'node:os';
 import { basename, resolve } from 'node:path';
 import { SingleBar, Presets } from 'cli-progress';
 import {
-  assembleDesignEvaluation, frequencyBlock, parseDesign, prepareDesign, validateDesign,
-  type Design, type DesignEvaluation, type FrequencyEvaluation,
+  assembleDesignEvaluation, estimateDesignCost, frequencyBlock, parseDesign, prepareDesign, validateDesign,
+  type Design, type DesignEvaluation, type FailedCheck, type FrequencyEvaluation,
 } from '../../design/index.js';
+import { CapacityError } from '../../errors.js';
 import { UsageError } from '../errors.js';
 import { outputFolder } from '../output.js';
 import { num } from '../format.js';
@@ -32,7 +34,16 @@ export interface ReportRunOptions {
   workers?: number;
   /** Evaluate only shard `index` (1-based) of `count` and write a partial result. */
   shard?: { index: number; count: number };
+  /** Print the estimate only. */
+  dryRun?: boolean;
+  /** Where notes for the user go (the estimate before a long job). */
+  log?: (s: string) => void;
 }
+
+/** Fraction of the machine's memory a run may plan to use. */
+const MEMORY_SHARE = 0.8;
+/** Jobs estimated longer than this [s] print their estimate first. */
+const ANNOUNCE_S = 10;
 
 /** Result of a report run. @internal */
 export interface ReportRun {
@@ -44,6 +55,12 @@ export interface ReportRun {
   evaluation?: DesignEvaluation;
   /** The shard written, if any. */
   shard?: { index: number; count: number; frequencies: number };
+  /** Failed physical checks of what was evaluated, with their frequencies. */
+  failedChecks: FailedCheck[];
+  /** The estimate (always computed; the whole output of --dry-run). */
+  estimate: string;
+  /** True for --dry-run: nothing was evaluated or written. */
+  dryRun?: boolean;
 }
 
 /** The partial result of one shard (part-<i>-of-<n>.json). @internal */
@@ -97,7 +114,6 @@ function writeReport(ev: DesignEvaluation, designText: string, out: ReturnType<t
  * @internal
  */
 export async function runDesign(design: Design, designFile: string, designText: string, outDir: string, options: ReportRunOptions = {}): Promise<ReportRun> {
-  const out = outputFolder(outDir);
   const fileName = basename(designFile);
   const prepared = prepareDesign(design, { fileName, readFile: designReader(designFile) });
   const count = prepared.frequenciesHz.length;
@@ -106,7 +122,22 @@ export async function runDesign(design: Design, designFile: string, designText: 
     throw new UsageError(`option "--shard": ${shard.count} shards for a band of ${count} frequencies; use at most ${count} shards.`);
   }
   const indices = shard ? frequencyBlock(count, shard.count, shard.index - 1) : Array.from({ length: count }, (_, i) => i);
-  const workers = options.workers ?? defaultWorkers();
+  // Estimate first: refuse what cannot fit, announce what takes long, use fewer workers when memory asks for it.
+  const cost = estimateDesignCost(prepared, indices);
+  const memory = MEMORY_SHARE * totalmem();
+  const plural = (n: number, w: string) => `${n} ${w}${n === 1 ? '' : 's'}`;
+  const what = `a design of ${plural(prepared.layout.count, 'element')}, ${plural(prepared.beams.thetaRad.length, 'beam')} and ${plural(indices.length, 'frequency').replace(/frequencys$/, 'frequencies')}`;
+  if (cost.peakBytes > memory) {
+    throw new CapacityError(`${what} needs about ${gb(cost.peakBytes)} of memory per frequency and ${seconds(cost.totalS)} on one core (estimate), beyond the ${gb(memory)} this machine can give; reduce the number of elements.`, cost.peakBytes, memory);
+  }
+  let workers = Math.min(options.workers ?? defaultWorkers(), indices.length);
+  const fitting = Math.max(1, Math.floor(memory / Math.max(cost.peakBytes, 1)));
+  const note = workers > fitting ? ` (${workers} workers would need ${gb(workers * cost.peakBytes)}; using ${fitting})` : '';
+  workers = Math.min(workers, fitting);
+  const estimate = `estimate for ${what}: about ${seconds(cost.totalS)} on one core, ${seconds(cost.totalS / workers)} on ${workers} worker${workers > 1 ? 's' : ''}${note}; peak memory about ${gb(cost.peakBytes * workers)} (model constants from the development machine, ±50 %)`;
+  if (options.dryRun) return { folder: '', files: [], failedChecks: [], estimate, dryRun: true };
+  if (cost.totalS / workers > ANNOUNCE_S) options.log?.(`phasewise: ${estimate}\n`);
+  const out = outputFolder(outDir);
   const task = { designData: design, designFile: resolve(designFile), fileName };
   const results = await withProgress(options.progress ?? true, indices.length, (tick) => evaluateFrequencies(task, indices, workers, tick));
   if (shard) {
@@ -116,10 +147,32 @@ export async function runDesign(design: Design, designFile: string, designText: 
     };
     const name = `part-${shard.index}-of-${shard.count}.json`;
     out.writeAll([[name, JSON.stringify(part) + '\n']]);
-    return { folder: out.path, files: [name], shard: { ...shard, frequencies: indices.length } };
+    const failedChecks = results.flatMap((r) => r.checks.filter((c) => !c.passed).map((c) => ({ ...c, frequencyHz: r.frequencyHz })));
+    return { folder: out.path, files: [name], shard: { ...shard, frequencies: indices.length }, failedChecks, estimate };
   }
   const ev = assembleDesignEvaluation(prepared, results);
-  return { folder: out.path, files: writeReport(ev, designText, out), evaluation: ev };
+  return { folder: out.path, files: writeReport(ev, designText, out), evaluation: ev, failedChecks: ev.failedChecks, estimate };
+}
+
+function gb(bytes: number): string {
+  return bytes >= 1e9 ? `${(bytes / 1e9).toPrecision(3)} GB` : `${Math.max(1, Math.round(bytes / 1e6))} MB`;
+}
+
+function seconds(s: number): string {
+  return s >= 120 ? `${(s / 60).toPrecision(3)} min` : `${s.toPrecision(2)} s`;
+}
+
+/**
+ * One line naming the failed checks of a run (at most three, with their frequencies), or
+ * undefined when every check passed.
+ * @internal
+ */
+export function failedChecksText(r: ReportRun): string | undefined {
+  const f = r.failedChecks;
+  if (f.length === 0) return undefined;
+  const names = [...new Set(f.map((c) => c.name))];
+  const first = f.slice(0, 3).map((c) => `${c.name} = ${num(c.value, 4)} (limit ${c.comparison === 'atMost' ? '≤' : '≥'} ${num(c.limit, 4)}) at ${num(c.frequencyHz / 1e9, 6)} GHz`);
+  return `${f.length} physical check${f.length > 1 ? 's' : ''} failed (${names.join(', ')}): ${first.join('; ')}${f.length > 3 ? '; …' : ''}`;
 }
 
 function readText(file: string, what: string): string {
@@ -184,11 +237,12 @@ export async function runMerge(partFiles: readonly string[], outDir: string): Pr
   for (const { part } of parts) part.frequencyIndices.forEach((idx, j) => byIndex.set(idx, part.frequencies[j]));
   const results = Array.from(prepared.frequenciesHz, (_, i) => byIndex.get(i) as FrequencyEvaluation);
   const ev = assembleDesignEvaluation(prepared, results);
-  return { folder: out.path, files: writeReport(ev, first.part.designText, out), evaluation: ev };
+  return { folder: out.path, files: writeReport(ev, first.part.designText, out), evaluation: ev, failedChecks: ev.failedChecks, estimate: '' };
 }
 
 /** Console summary of a report run. @internal */
 export function formatRun(r: ReportRun): string {
+  if (r.dryRun) return r.estimate;
   if (r.shard || !r.evaluation) {
     return [`shard ${r.shard?.index}/${r.shard?.count}: ${r.shard?.frequencies} frequencies evaluated`, `  part written to ${r.folder}/${r.files[0]}`].join('\n');
   }

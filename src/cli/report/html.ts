@@ -24,11 +24,25 @@ td:first-child,th:first-child{text-align:left}
 figure{margin:0;background:#fff;border:1px solid #d8d4c8;padding:.5em}
 figcaption{font-size:.85em;color:#4a5a66;margin-top:.3em;max-width:640px}
 .note{font-size:.85em;color:#4a5a66}
+.failed{background:#8b1e1e;color:#fff;padding:.8em 1.2em;margin:1em 0;border-radius:4px}
+.failed h2{color:#fff;border-color:#fff;margin-top:0}
+.failed td,.failed th{color:#1d2a33}
 `;
 
 function tableHtml(header: readonly string[], rows: ReadonlyArray<readonly string[]>): string {
   return `<table><thead><tr>${header.map((h) => `<th>${esc(h)}</th>`).join('')}</tr></thead><tbody>${
     rows.map((r) => `<tr>${r.map((c) => `<td>${esc(c)}</td>`).join('')}</tr>`).join('')}</tbody></table>`;
+}
+
+/** A banner listing every failed physical check: the figures they name are not trustworthy. */
+function failedBanner(ev: DesignEvaluation): string {
+  const f = ev.failedChecks;
+  if (f.length === 0) return '<p class="note">Every physical self-check passed (energy, the Twiss identity of the sphere rule, passivity, element-model validity; listed in figures.json per frequency).</p>';
+  const { scale, unit } = frequencyUnit(ev);
+  const rows = f.slice(0, 40).map((c) => [num(c.frequencyHz * scale, 6), c.name, num(c.value, 4), `${c.comparison === 'atMost' ? '≤' : '≥'} ${num(c.limit, 4)}`, c.figures.join(', '), c.meaning]);
+  return `<section class="failed" id="failed-checks"><h2>Failed physical checks: ${f.length}</h2>
+<p>The figures these checks guard are not trustworthy; they are shown below only so that you can see what failed. Fix the design (or the sphere rule, or the data) before relying on any of them.</p>
+${tableHtml([`frequency [${unit}]`, 'check', 'value', 'limit', 'figures affected', 'meaning'], rows)}${f.length > 40 ? `<p>… and ${f.length - 40} more (figures.json lists all).</p>` : ''}</section>`;
 }
 
 /** Renders the report page. @internal */
@@ -56,13 +70,14 @@ export function reportHtml(ev: DesignEvaluation, figures: readonly ReportFigure[
       num(b.radiationEfficiency, 4), num(b.spilloverEfficiency, 4), ...(hasAp ? [num(b.apertureEfficiency as number, 4)] : []), num(b.noiseMatchingEfficiency ?? NaN, 4),
     ]);
     const header = ['beam', 'T_sys [K]', 'T_rec [K]', 'T_sky [K]', 'T_spill [K]', 'A_e [m²]', 'A_e/T_sys [m²/K]', 'G/T [dB/K]', 'SEFD [Jy]', 'gain [dBi]', 'η_rad', 'η_sp', ...(hasAp ? ['η_ap'] : []), 'η_nm'];
-    return `<h3>${num(r.frequencyHz * scale, 7)} ${unit} · sky ${num(r.skyK, 4)} K · T_rec,min ${num(r.minimumReceiverTemperatureK, 5)} K · sphere rule ${r.quadrature.thetaCount} × ${r.quadrature.phiCount}</h3>\n${tableHtml(header, rows)}`;
+    return `<h3>${num(r.frequencyHz * scale, 7)} ${unit} · sky ${num(r.skyK, 4)} K · T_rec,min ${r.minimumReceiverTemperatureK === null ? 'not computed (failed check)' : `${num(r.minimumReceiverTemperatureK, 5)} K`} · sphere rule ${r.quadrature.thetaCount} × ${r.quadrature.phiCount}</h3>\n${tableHtml(header, rows)}`;
   }).join('\n');
   const figs = figures.map((f) => `<figure>${f.svg}<figcaption>${esc(f.caption)}</figcaption></figure>`).join('\n');
   return `<!DOCTYPE html>
 <html lang="en"><head><meta charset="utf-8"><title>${esc(ev.title)} — phasewise report</title><style>${STYLE}</style></head>
 <body><header><h1>${esc(ev.title)}</h1><p>Receiving-array evaluation by phasewise · design file ${esc(ev.fileName)}</p></header>
 <main>
+${failedBanner(ev)}
 <h2>Summary</h2>
 ${summary}
 <h2>Figures</h2>
