@@ -16,3 +16,5 @@ export type { ThetaPhiGrid, UvGrid, PlaneCut, VisibleDirections } from './grids.
 export { evenlySpaced, thetaPhiGrid, uvGrid, visibleDirections, planeCut } from './grids.js';
 export type { GaussLegendreRule, SphereQuadrature, SphereQuadratureOptions, SphereQuadratureOrderOptions, SphereQuadratureOrder, SizedSphereQuadrature } from './quadrature.js';
 export { gaussLegendre, sphereQuadrature, sphereQuadratureOrder, sphereQuadratureForLayout } from './quadrature.js';
+export type { SplitSphereRuleOptions, SplitSphereRule } from './splitRule.js';
+export { splitSphereRule } from './splitRule.js';

@@ -43,6 +43,18 @@ export interface GaussLegendreRule {
  */
 export function gaussLegendre(n: number): GaussLegendreRule {
   assertInteger('n', n, 1, 100000);
+  const cached = RULES.get(n);
+  if (cached !== undefined) return { nodes: cached.nodes.slice(), weights: cached.weights.slice() };
+  const rule = computeGaussLegendre(n);
+  if (RULES.size >= 64) RULES.delete(RULES.keys().next().value as number);
+  RULES.set(n, rule);
+  return { nodes: rule.nodes.slice(), weights: rule.weights.slice() };
+}
+
+/** Recently computed rules (the nodes cost O(n²) each; sphere rules ask for the same orders repeatedly). */
+const RULES = new Map<number, GaussLegendreRule>();
+
+function computeGaussLegendre(n: number): GaussLegendreRule {
   const nodes = new Float64Array(n), weights = new Float64Array(n);
   const half = Math.floor((n + 1) / 2);
   for (let i = 1; i <= half; i++) {

@@ -7,7 +7,8 @@ import { DimensionError, DomainError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
 import { herkLowerKernel, herkLowerWeighted, mirrorLowerToUpper } from '../internal/herk.js';
 import { assertInteger, assertPositive, describeValue } from '../internal/validate.js';
-import { ETA0_OHM, K_BOLTZMANN_J_PER_K } from '../units/constants.js';
+import { C0_M_PER_S, ETA0_OHM, K_BOLTZMANN_J_PER_K } from '../units/constants.js';
+import { displacementStructure, shiftedBrightnessCorrelations } from './displacement.js';
 import {
   assertPatternSource, assertQuadrature, sampledPatternSource,
   type PortPatternSource, type QuadratureDirections, type SampledPortPatterns,
@@ -36,6 +37,13 @@ export interface BrightnessOptions {
    * @defaultValue 128
    */
   blockSize?: number;
+  /**
+   * Which algorithm: `'auto'` takes the displacement path when the source
+   * carries a {@link ShiftedElementPattern} and the array has few distinct
+   * displacements, `'general'` always sums the N² pattern products.
+   * @defaultValue 'auto'
+   */
+  path?: 'auto' | 'general';
 }
 
 /** @internal Resolves the brightness of every direction into a Float64Array, validated. */
@@ -81,6 +89,14 @@ function asSource(name: string, p: PortPatternSource | SampledPortPatterns): Por
  * skipped, into G = [F_θ F_φ] (N × 2·block) and accumulated as the Hermitian
  * rank-2·block update R += G Gᴴ (lower triangle only, mirrored at the end).
  * Memory: O(N² + N·blockSize) whatever M is.
+ * Displacement path: when the source carries a {@link ShiftedElementPattern}
+ * (identical elements whose patterns differ only by the phase of their
+ * positions) the correlation depends only on dₘ − dₙ; the sums over directions
+ * are then formed once per distinct displacement (a product of the x phases and
+ * the (y, z) phases of each block of directions) and the N×N matrices are read
+ * from that table: O(M·D) instead of O(M·N²) for D distinct displacements
+ * (D = O(N) on a lattice). It equals the general path to rounding (tested to
+ * 1e-10 on 16-, 61- and 256-element arrays).
  * The same integral with a source's brightness gives the signal correlation of
  * an extended source. Rayleigh–Jeans brightness (unpolarized):
  * J. D. Kraus, *Radio Astronomy*, 2nd ed., Cygnus-Quasar, 1986, §3-11 (from
@@ -122,6 +138,16 @@ export function brightnessCorrelations(
   const maps = brightnessK.map((b, i) => brightnessValues(`brightnessK[${i}]`, b, quadrature));
   const w = quadrature.weightSr;
   const scale = (4 * K_BOLTZMANN_J_PER_K * bandwidthHz) / (ETA0_OHM * src.driveCurrentA * src.driveCurrentA);
+  const path = options.path ?? 'auto';
+  if (path !== 'auto' && path !== 'general') {
+    throw new DomainError(`invalid argument "options.path": expected 'auto' or 'general', received ${describeValue(path)}.`);
+  }
+  if (path === 'auto' && src.shifted !== undefined) {
+    const structure = displacementStructure(src.shifted.offsetsM);
+    if (structure !== null) {
+      return shiftedBrightnessCorrelations(src.shifted, structure, (2 * Math.PI * src.frequencyHz) / C0_M_PER_S, quadrature, maps, scale);
+    }
+  }
   const acc = maps.map(() => new Float64Array(2 * n * n));
   const ft = new Float64Array(2 * n * block), fp = new Float64Array(2 * n * block);
   const g = new Float64Array(2 * n * 2 * block);

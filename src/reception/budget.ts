@@ -9,7 +9,7 @@ import { assertFiniteCMatrix, assertSquare, assertPositive, describeValue } from
 import { T0_K } from '../units/constants.js';
 import { receiverNoiseCorrelation } from './amplifier.js';
 import {
-  aboveHorizon, brightnessCorrelations, brightnessValues, checkTemperature,
+  aboveHorizon, brightnessCorrelations, brightnessValues, checkTemperature, zenithInArrayFrame,
   type Brightness, type BrightnessOptions, type HorizonOrientation,
 } from './brightness.js';
 import {
@@ -18,6 +18,7 @@ import {
 } from './patterns.js';
 import { ohmicLossNoiseCorrelation } from './thermal.js';
 import { thermalImpedanceNoise, type NoiseParametersInput } from '../network/noise.js';
+import type { Vector3 } from '../geometry/layout.js';
 
 /**
  * The noise environment: a brightness distribution and which directions count
@@ -33,6 +34,13 @@ export interface NoiseEnvironment {
    * @defaultValue every direction is sky
    */
   readonly isSky?: (thetaRad: number, phiRad: number) => boolean;
+  /**
+   * Great circles on which the brightness (or the sky region) jumps, each
+   * given by its unit normal in array coordinates (e.g. the local zenith for a
+   * horizon); the adaptive sphere rule splits there.
+   * @defaultValue none (a smooth environment)
+   */
+  readonly edgeNormals?: ReadonlyArray<Vector3>;
 }
 
 /**
@@ -61,7 +69,7 @@ export interface SkyAndGroundEnvironmentOptions extends HorizonOrientation {
 /**
  * Sky above the local horizon (uniform or a user function) and warm ground
  * below it, for an array tilted by any angle; the sky region is the upper
- * half-space of the local horizon.
+ * half-space of the local horizon, whose great circle is the environment's edge.
  * @param options - Temperatures [K] and tilt [rad].
  * @returns The environment.
  * @throws {@link DomainError} for negative temperatures or a bad tilt.
@@ -75,7 +83,7 @@ export function skyAndGroundEnvironment(options: SkyAndGroundEnvironmentOptions)
   checkTemperature('options.groundK', ground);
   const up = aboveHorizon(options);
   const skyAt = typeof sky === 'number' ? () => sky : sky;
-  return { brightnessK: (th, ph) => (up(th, ph) ? skyAt(th, ph) : ground), isSky: up };
+  return { brightnessK: (th, ph) => (up(th, ph) ? skyAt(th, ph) : ground), isSky: up, edgeNormals: [zenithInArrayFrame(options)] };
 }
 
 /**
@@ -209,25 +217,10 @@ export function arrayNoiseBudget(input: NoiseBudgetInput): NoiseBudget {
   if (env === null || typeof env !== 'object') {
     throw new DomainError(`invalid argument "input.environment": expected a NoiseEnvironment {brightnessK, isSky?}, received ${describeValue(env)}.`);
   }
-  const t = brightnessValues('input.environment.brightnessK', env.brightnessK, q);
-  const m = q.thetaRad.length;
-  const tSky = new Float64Array(m), tGround = new Float64Array(m), oneSky = new Float64Array(m), oneGround = new Float64Array(m);
-  for (let k = 0; k < m; k++) {
-    const sky = env.isSky === undefined ? true : env.isSky(q.thetaRad[k], q.phiRad[k]);
-    if (sky) { tSky[k] = t[k]; oneSky[k] = 1; } else { tGround[k] = t[k]; oneGround[k] = 1; }
-  }
-  const [sky, ground, skyRegionPerK, groundRegionPerK] = brightnessCorrelations(
-    src, q, [tSky, tGround, oneSky, oneGround], b, input.blockOptions ?? {},
-  );
-  const radiationPerK = { rows: n, cols: n, data: skyRegionPerK.data.map((v, k) => v + groundRegionPerK.data[k]) };
+  const ext = externalNoise(src, q, env, b, input.blockOptions ?? {});
+  const { sky, ground, skyRegionPerK, radiationPerK } = ext;
   const isotropicPerK = thermalImpedanceNoise(z, 1, b);
-  const lossModel = input.loss ?? 'fromPatterns';
-  let loss: CMatrix;
-  if (lossModel === 'lossless') loss = { rows: n, cols: n, data: new Float64Array(2 * n * n) };
-  else if (lossModel === 'fromPatterns') loss = ohmicLossNoiseCorrelation(z, tPhys, b, { isotropicRadiationPerK: radiationPerK });
-  else if (lossModel !== null && typeof lossModel === 'object' && 'lossResistanceOhm' in lossModel) loss = ohmicLossNoiseCorrelation(z, tPhys, b, { lossResistanceOhm: lossModel.lossResistanceOhm });
-  else if (lossModel !== null && typeof lossModel === 'object') loss = ohmicLossNoiseCorrelation(z, tPhys, b, { radiationEfficiency: lossModel.radiationEfficiency });
-  else throw new DomainError(`invalid argument "input.loss": expected 'fromPatterns', 'lossless', {radiationEfficiency} or {lossResistanceOhm}, received ${describeValue(lossModel)}.`);
+  const loss = lossNoise(input.loss ?? 'fromPatterns', z, tPhys, b, radiationPerK);
   const receiver = input.amplifiers === undefined
     ? { rows: n, cols: n, data: new Float64Array(2 * n * n) }
     : receiverNoiseCorrelation(z, input.amplifiers, b);
@@ -239,4 +232,45 @@ export function arrayNoiseBudget(input: NoiseBudgetInput): NoiseBudget {
     isotropicPerK, radiationPerK, skyRegionPerK, sky, ground, loss, receiver,
     total: { rows: n, cols: n, data: total },
   };
+}
+
+/** @internal The four brightness integrals of a budget (one blocked pass): sky, ground, 1 K on the sky region and on all directions. */
+export function externalNoise(
+  src: PortPatternSource, q: QuadratureDirections, env: NoiseEnvironment, b: number, options: BrightnessOptions,
+): { sky: CMatrix; ground: CMatrix; skyRegionPerK: CMatrix; radiationPerK: CMatrix } {
+  const t = brightnessValues('input.environment.brightnessK', env.brightnessK, q);
+  const m = q.thetaRad.length;
+  const tSky = new Float64Array(m), tGround = new Float64Array(m), oneSky = new Float64Array(m), oneGround = new Float64Array(m);
+  for (let k = 0; k < m; k++) {
+    const sky = env.isSky === undefined ? true : env.isSky(q.thetaRad[k], q.phiRad[k]);
+    if (sky) { tSky[k] = t[k]; oneSky[k] = 1; } else { tGround[k] = t[k]; oneGround[k] = 1; }
+  }
+  const [sky, ground, skyRegionPerK, groundRegionPerK] = brightnessCorrelations(src, q, [tSky, tGround, oneSky, oneGround], b, options);
+  const n = src.portCount;
+  const radiationPerK = { rows: n, cols: n, data: skyRegionPerK.data.map((v, k) => v + groundRegionPerK.data[k]) };
+  return { sky, ground, skyRegionPerK, radiationPerK };
+}
+
+/** @internal The loss-noise matrix of a loss model. */
+export function lossNoise(lossModel: LossModel, z: CMatrix, tPhys: number, b: number, radiationPerK: CMatrix): CMatrix {
+  const n = z.rows;
+  if (lossModel === 'lossless') return { rows: n, cols: n, data: new Float64Array(2 * n * n) };
+  if (lossModel === 'fromPatterns') return ohmicLossNoiseCorrelation(z, tPhys, b, { isotropicRadiationPerK: radiationPerK });
+  if (lossModel !== null && typeof lossModel === 'object' && 'lossResistanceOhm' in lossModel) return ohmicLossNoiseCorrelation(z, tPhys, b, { lossResistanceOhm: lossModel.lossResistanceOhm });
+  if (lossModel !== null && typeof lossModel === 'object') return ohmicLossNoiseCorrelation(z, tPhys, b, { radiationEfficiency: lossModel.radiationEfficiency });
+  throw new DomainError(`invalid argument "input.loss": expected 'fromPatterns', 'lossless', {radiationEfficiency} or {lossResistanceOhm}, received ${describeValue(lossModel)}.`);
+}
+
+/**
+ * @internal The budget with its brightness integrals (and pattern-derived loss) redone on
+ * another rule; receiver noise and Z are shared. Used for the refinement estimate.
+ */
+export function budgetOnRule(budget: NoiseBudget, src: PortPatternSource, q: QuadratureDirections, env: NoiseEnvironment, lossModel: LossModel): NoiseBudget {
+  const ext = externalNoise(src, q, env, budget.bandwidthHz, {});
+  const loss = lossModel === 'fromPatterns'
+    ? lossNoise(lossModel, budget.impedanceOhm, budget.physicalTemperatureK, budget.bandwidthHz, ext.radiationPerK)
+    : budget.loss;
+  const total = new Float64Array(budget.total.data.length);
+  for (let k = 0; k < total.length; k++) total[k] = ext.sky.data[k] + ext.ground.data[k] + loss.data[k] + budget.receiver.data[k];
+  return { ...budget, ...ext, loss, total: { rows: budget.portCount, cols: budget.portCount, data: total } };
 }

@@ -29,7 +29,7 @@ export interface ReceivingArrayCheckInput {
   readonly lossless: boolean;
   /** Passivity of Z (network module's impedancePassivity). */
   readonly passivity: ImpedancePassivity;
-  /** Relative integration error of the brightness integrals, from a refinement of the rule (linear). @defaultValue 0 (unknown: only rounding allowance) */
+  /** Relative integration error of the figures, from a refinement of the rule (linear); adds the check `integrationRefinement`. @defaultValue unknown (no refinement check) */
   readonly integrationError?: number;
   /** T_rec,min [K], NaN when it could not be computed. */
   readonly minimumReceiverTemperatureK?: number;
@@ -98,6 +98,7 @@ function outsideUnitInterval(values: Iterable<number | undefined>): number {
  * - `impedancePassivity`: (Z + Zᴴ)/2 positive definite (value: its smallest
  *   eigenvalue [Ω]; verdict from its Cholesky factorisation);
  * - `minimumReceiverTemperature`: T_rec,min exists (fails when Z is not passive);
+ * - `integrationRefinement` (when an integration error is given): the error ≤ tolerance;
  * - `twissResidual` (lossless arrays only): {@link twissResidual} ≤ tolerance;
  * - then the ports' own model-validity checks.
  * @param input - The pieces of the evaluation.
@@ -151,6 +152,11 @@ export function receivingArrayChecks(input: ReceivingArrayCheckInput): PhysicalC
         ? 'the minimum receiver temperature T_rec,min [K] over all weights exists and is ≥ 0'
         : `the minimum receiver temperature T_rec,min [K] could not be computed: ${input.minimumReceiverTemperatureFailure}`,
       ['minimumReceiverTemperatureK', 'noiseMatchingEfficiency']));
+  }
+  if (input.integrationError !== undefined) {
+    out.push(physicalCheck('integrationRefinement', err, 'atMost', tolTwiss,
+      'largest change of a beam figure between the evaluation\'s sphere rule and a refined adaptive rule (split at every brightness and pattern discontinuity), relative to T_sys for temperatures and to itself for A_e/T_sys, absolute for efficiencies (linear): the integration error',
+      ['systemTemperatureK', 'skyTemperatureK', 'spilloverTemperatureK', 'lossTemperatureK', 'sensitivityM2PerK', 'radiationEfficiency', 'spilloverEfficiency']));
   }
   if (input.lossless) {
     out.push(physicalCheck('twissResidual', twissResidual(input.budget), 'atMost', tolTwiss,

@@ -26,6 +26,8 @@ export interface EvaluationSize {
    * absent for the general path.
    */
   readonly displacementCount?: number;
+  /** Whether the brightness integrals are repeated on the 1.5× refined rule (ports with geometry). @defaultValue true */
+  readonly refinement?: boolean;
 }
 
 /**
@@ -76,7 +78,8 @@ const PEAK_MATRICES = 22;
  * development machine, so treat the times as ±50 %, not as a promise):
  * impedance ∝ N² (integrals reused per repeated geometry); brightness ∝ N·M
  * pattern samples + 2·N²·M rank-k work on the general path, or ∝ D·M + N² on
- * the displacement path (D distinct displacements); receiver noise ∝ N³ (one
+ * the displacement path (D distinct displacements), 3.25 times that with the
+ * refinement rule (2.25 times the directions); receiver noise ∝ N³ (one
  * rank-N update); beams ∝ N³/3 (one Cholesky) + N²K; array figures ∝ N³ (one
  * Cholesky each of Re Z and R_rec, Lanczos steps ∝ N², one LU inverse and
  * one product for the efficiencies). Peak memory ≈ 22 N×N complex matrices
@@ -101,9 +104,11 @@ export function evaluationCost(size: EvaluationSize): EvaluationCost {
   if (size.displacementCount !== undefined) assertInteger('size.displacementCount', size.displacementCount, 1, Number.MAX_SAFE_INTEGER);
   const n = size.portCount, m = size.directionCount, k = size.beamCount;
   const n2 = n * n, n3 = n2 * n;
-  const brightness = size.displacementCount === undefined
+  const once = size.displacementCount === undefined
     ? T_PATTERN * n * m + 2 * T_HERK * n2 * m
     : T_PATTERN * m + 4 * T_DISPLACEMENT * size.displacementCount * m + 8 * T_SQUARE * n2;
+  // the refinement rule has 1.5² times the directions
+  const brightness = (size.refinement ?? true) ? once * (1 + 2.25) : once;
   const arrayFigures = (size.arrayFigures ?? true)
     ? 2 * T_CUBE_CHOL * n3 + 200 * 3 * T_SQUARE * n2 + T_CUBE_INV * n3 + T_CUBE_GEMM * n3
     : 0;

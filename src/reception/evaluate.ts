@@ -9,14 +9,15 @@ import { complexParts } from '../linalg/cmatrix.js';
 import { assertPositive, describeValue } from '../internal/validate.js';
 import type { SphereQuadrature } from '../geometry/quadrature.js';
 import type { NoiseParametersInput } from '../network/noise.js';
-import { arrayNoiseBudget, type LossModel, type NoiseBudget, type NoiseEnvironment } from './budget.js';
+import { arrayNoiseBudget, budgetOnRule, type LossModel, type NoiseBudget, type NoiseEnvironment } from './budget.js';
 import {
-  embeddedElementEfficiencies, minimumReceiverTemperatureFrom, scanSweep, type BeamFigures,
+  embeddedElementEfficiencies, figuresOfColumns, minimumReceiverTemperatureFrom, scanSweep, type BeamFigures,
 } from './figures.js';
+import { adaptiveSphereRule } from './integration.js';
 import { receivingArrayChecks } from './checks.js';
 import type { PhysicalCheck } from '../checks.js';
 import { impedancePassivityWithFactor } from '../network/checks.js';
-import type { CholeskyResult } from '../linalg/cholesky.js';
+import type { PortGeometry } from './ports.js';
 import { K_BOLTZMANN_J_PER_K } from '../units/constants.js';
 import {
   assertPatternSource, quadratureDirections, samplePatterns, sampledPatternSource,
@@ -36,6 +37,8 @@ export interface ArrayPorts {
   readonly impedanceOhm: CMatrix;
   /** Model-validity checks of the ports (e.g. from dipoleArrayPorts), copied into the evaluation's checks. */
   readonly checks?: ReadonlyArray<PhysicalCheck>;
+  /** Where the elements are (dipoleArrayPorts fills it); needed by `quadrature: 'adaptive'` and the refinement check. */
+  readonly geometry?: PortGeometry;
 }
 
 /**
@@ -64,6 +67,8 @@ export interface EvaluationTimings {
   readonly arrayFigures: number;
   /** Physical checks [ms]. */
   readonly checks: number;
+  /** Brightness integrals on the refinement rule and the figures' differences [ms]. */
+  readonly refinement: number;
 }
 
 /**
@@ -73,8 +78,13 @@ export interface EvaluationTimings {
 export interface ReceivingArrayDescription {
   /** The array's ports. */
   readonly ports: ArrayPorts;
-  /** Sphere quadrature for the noise integrals: a geometry-module rule or explicit directions. */
-  readonly quadrature: SphereQuadrature | QuadratureDirections;
+  /**
+   * Sphere quadrature for the noise integrals: `'adaptive'` (adaptiveSphereRule from the ports'
+   * geometry and the environment's edges; recommended), a geometry-module rule or explicit directions.
+   * Whenever the ports carry their geometry, the result is also computed on a refined adaptive
+   * rule and the differences are reported as `integrationErrors` and the check `integrationRefinement`.
+   */
+  readonly quadrature: SphereQuadrature | QuadratureDirections | 'adaptive';
   /** Bandwidth B [Hz], > 0. */
   readonly bandwidthHz: number;
   /** External noise environment. */
@@ -125,6 +135,14 @@ export interface ReceivingArrayEvaluation {
   readonly embeddedElementEfficiency: Float64Array;
   /** Physical self-checks (receivingArrayChecks); a failed check marks the figures it names as untrustworthy. */
   readonly checks: PhysicalCheck[];
+  /**
+   * Integration error of every figure of every beam: |figure on the evaluation's rule − figure
+   * on the refined adaptive rule| with the same weights, in the figure's unit. Empty objects
+   * when the ports carry no geometry (no refinement possible).
+   */
+  readonly integrationErrors: Array<Partial<Record<keyof BeamFigures, number>>>;
+  /** The sphere rule used [rad, sr]. */
+  readonly quadrature: QuadratureDirections;
   /** Unit of every figure, by field name of {@link BeamFigures}. */
   readonly units: Readonly<Record<keyof BeamFigures, string>>;
   /** Wall-clock time of the stages [ms]. */
@@ -139,9 +157,34 @@ const FIGURE_UNITS: Readonly<Record<keyof BeamFigures, string>> = {
   noiseMatchingEfficiency: 'linear',
 };
 
-function toQuadrature(q: SphereQuadrature | QuadratureDirections): QuadratureDirections {
+function toQuadrature(q: SphereQuadrature | QuadratureDirections | 'adaptive', d: ReceivingArrayDescription, frequencyHz: number): QuadratureDirections {
+  if (q === 'adaptive') {
+    if (d.ports.geometry === undefined) {
+      throw new DomainError('invalid argument "description.quadrature": \'adaptive\' needs the element positions in "description.ports.geometry" (dipoleArrayPorts provides them); give them or pass an explicit rule.');
+    }
+    return adaptiveSphereRule(d.ports.geometry, frequencyHz, { edgeNormals: d.environment?.edgeNormals });
+  }
   if (q !== null && typeof q === 'object' && 'weights' in q && 'thetaCount' in q) return quadratureDirections(q);
   return q as QuadratureDirections;
+}
+
+/** Refinement factor of the node counts of the check rule (common practice: a clearly finer rule). */
+const REFINEMENT = 1.5;
+
+/** Figures compared by the refinement check, relative to T_sys (temperatures) or to themselves. */
+function refinementMeasure(fine: BeamFigures, coarse: BeamFigures): { errors: Partial<Record<keyof BeamFigures, number>>; worst: number } {
+  const errors: Partial<Record<keyof BeamFigures, number>> = {};
+  for (const key of Object.keys(fine) as Array<keyof BeamFigures>) {
+    const a = fine[key], b = coarse[key];
+    if (typeof a === 'number' && typeof b === 'number') errors[key] = Math.abs(a - b);
+  }
+  const t = Math.abs(coarse.systemTemperatureK);
+  const rel = (x: number | undefined, ref: number): number => (x === undefined ? 0 : ref > 0 ? x / ref : x);
+  const worst = Math.max(
+    rel(errors.systemTemperatureK, t), rel(errors.skyTemperatureK, t), rel(errors.spilloverTemperatureK, t), rel(errors.lossTemperatureK, t),
+    rel(errors.sensitivityM2PerK, Math.abs(coarse.sensitivityM2PerK)), errors.radiationEfficiency ?? 0, errors.spilloverEfficiency ?? 0,
+  );
+  return { errors, worst };
 }
 
 /**
@@ -194,7 +237,7 @@ export function evaluateReceivingArray(description: ReceivingArrayDescription): 
     throw new DomainError(`invalid argument "description.beams": expected {thetaRad, phiRad}, received ${describeValue(d.beams)}.`);
   }
   if (d.physicalAreaM2 !== undefined) assertPositive('description.physicalAreaM2', d.physicalAreaM2, 'm²');
-  const quadrature = toQuadrature(d.quadrature);
+  const quadrature = toQuadrature(d.quadrature, d, source.frequencyHz);
   const n = source.portCount;
   const terminations = terminationList(d.terminationOhm, n);
   const progress = d.onProgress;
@@ -224,7 +267,7 @@ export function evaluateReceivingArray(description: ReceivingArrayDescription): 
   let tMin = NaN, tMinFailure: string | undefined;
   if (arrayFigures) {
     try {
-      tMin = minimumReceiverTemperatureFrom(budget, scaledFactor(passivity.factor, 4 * K_BOLTZMANN_J_PER_K * budget.bandwidthHz));
+      tMin = minimumReceiverTemperatureFrom(budget, passivity.factor, 4 * K_BOLTZMANN_J_PER_K * budget.bandwidthHz);
     } catch (e) {
       if (!(e instanceof SingularMatrixError || e instanceof ConvergenceError)) throw e;
       tMinFailure = e.message;
@@ -251,9 +294,28 @@ export function evaluateReceivingArray(description: ReceivingArrayDescription): 
     }
   }
   const tArray = tArray0 + performance.now() - t;
+
+  // Refinement: the brightness integrals again on a finer adaptive rule, the figures with the same weights.
+  t = performance.now();
+  let integrationErrors: Array<Partial<Record<keyof BeamFigures, number>>> = sweep.beams.map(() => ({}));
+  let integrationError: number | undefined;
+  if (d.ports.geometry !== undefined) {
+    const fineRule = adaptiveSphereRule(d.ports.geometry, source.frequencyHz, { edgeNormals: d.environment.edgeNormals, refinement: REFINEMENT });
+    const fine = budgetOnRule(budget, source, fineRule, d.environment, d.loss ?? 'fromPatterns');
+    const fineBeams = figuresOfColumns(fine, sweep.weights, beamPatterns, {
+      physicalAreaM2: d.physicalAreaM2, fluxDensityWPerM2Hz: d.fluxDensityWPerM2Hz, minimumReceiverTemperatureK: Number.isFinite(tMin) ? tMin : undefined,
+    });
+    integrationError = 0;
+    integrationErrors = sweep.beams.map((b, k) => {
+      const m = refinementMeasure(fineBeams[k], b);
+      integrationError = Math.max(integrationError as number, m.worst);
+      return m.errors;
+    });
+  }
+  const tRefine = performance.now() - t;
   t = performance.now();
   const checks = receivingArrayChecks({
-    budget, beams: sweep.beams, lossless: d.loss === 'lossless', passivity,
+    budget, beams: sweep.beams, lossless: d.loss === 'lossless', passivity, integrationError,
     minimumReceiverTemperatureK: arrayFigures ? tMin : undefined, minimumReceiverTemperatureFailure: tMinFailure,
     embeddedElementEfficiency: eff, embeddedElementEfficiencyFailure: effFailure,
     portChecks: d.ports.checks, integrationTolerance: d.integrationTolerance,
@@ -261,16 +323,9 @@ export function evaluateReceivingArray(description: ReceivingArrayDescription): 
   const tChecks = performance.now() - t;
   return {
     budget, weights: sweep.weights, beams: sweep.beams, minimumReceiverTemperatureK: tMin,
-    embeddedElementEfficiency: eff, units: FIGURE_UNITS, checks,
-    timingsMs: { noiseBudget: tBudget, beamPatterns: tPatterns, weightsAndFigures: tFigures, arrayFigures: tArray, checks: tChecks },
+    embeddedElementEfficiency: eff, units: FIGURE_UNITS, checks, integrationErrors, quadrature,
+    timingsMs: { noiseBudget: tBudget, beamPatterns: tPatterns, weightsAndFigures: tFigures, arrayFigures: tArray, checks: tChecks, refinement: tRefine },
   };
-}
-
-/** L·√s for a Cholesky factor of A, i.e. the factor of s·A (s > 0). */
-function scaledFactor(f: CholeskyResult, s: number): CholeskyResult {
-  const r = Math.sqrt(s);
-  const l = f.l.data.map((v) => v * r), lh = f.lAdjoint.data.map((v) => v * r);
-  return { ...f, l: { rows: f.n, cols: f.n, data: l }, lAdjoint: { rows: f.n, cols: f.n, data: lh } };
 }
 
 function terminationList(z: ComplexLike | ReadonlyArray<ComplexLike> | undefined, n: number): { re: number; im: number }[] {

@@ -415,11 +415,14 @@ export function embeddedElementEfficiencies(budget: NoiseBudget, terminationOhm:
  * @category Reception
  */
 export function minimumReceiverTemperature(budget: NoiseBudget): number {
-  return minimumReceiverTemperatureFrom(budget, choleskyFactor(budget.isotropicPerK));
+  return minimumReceiverTemperatureFrom(budget, choleskyFactor(budget.isotropicPerK), 1);
 }
 
-/** @internal {@link minimumReceiverTemperature} with the Cholesky factorisation of R_iso,1K already done (shared with the passivity check). */
-export function minimumReceiverTemperatureFrom(budget: NoiseBudget, isoFactor: CholeskyResult): number {
+/**
+ * @internal {@link minimumReceiverTemperature} with a Cholesky factorisation of R_iso,1K / isoScale
+ * already done (the passivity check factors (Z + Zᴴ)/2, so isoScale = 4 k_B B).
+ */
+export function minimumReceiverTemperatureFrom(budget: NoiseBudget, isoFactor: CholeskyResult, isoScale: number): number {
   const n = budget.portCount;
   if (!isoFactor.positiveDefinite) {
     throw new NotPositiveDefiniteError(`the isotropic noise response 2k_B B (Z + Zᴴ) is not positive definite (Cholesky pivot ${isoFactor.failedPivot}): the impedance matrix is not passive, so no minimum receiver temperature exists; check the element model's validity or the imported impedance matrix.`, isoFactor.failedPivot);
@@ -444,7 +447,7 @@ export function minimumReceiverTemperatureFrom(budget: NoiseBudget, isoFactor: C
     solveLowerInPlace(n, 1, l, y, false);
   }, which, 1e-12);
   if (!e.converged) {
-    throw new ConvergenceError(`minimumReceiverTemperature: the Lanczos iteration did not converge in ${e.steps} steps (estimate ${which === 'max' ? 1 / e.max : e.min} K).`);
+    throw new ConvergenceError(`minimumReceiverTemperature: the Lanczos iteration did not converge in ${e.steps} steps (estimate ${which === 'max' ? 1 / e.max : e.min / isoScale} K).`);
   }
-  return Math.max(0, which === 'max' ? 1 / e.max : e.min);
+  return Math.max(0, which === 'max' ? 1 / e.max : e.min / isoScale);
 }

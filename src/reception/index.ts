@@ -24,7 +24,7 @@ export type { ArrayPorts, ReceivingArrayDescription, ReceivingArrayEvaluation, B
 export { evaluateReceivingArray } from './evaluate.js';
 export type { ReceivingArrayCheckInput } from './checks.js';
 export { receivingArrayChecks, twissResidual } from './checks.js';
-export type { ArrayPortSource, DipoleArrayPortsOptions, HertzianDipolePortsOptions } from './ports.js';
+export type { ArrayPortSource, DipoleArrayPortsOptions, HertzianDipolePortsOptions, PortGeometry } from './ports.js';
 export { dipoleArrayPorts, hertzianDipolePorts, patternSetPorts, dipoleModelChecks, DIPOLE_MODEL_MAX_LENGTH_WAVELENGTHS, DIPOLE_MODEL_MAX_RADIUS_WAVELENGTHS } from './ports.js';
 export type { EvaluationSize, EvaluationCost } from './cost.js';
 export { evaluationCost, assertEvaluationFits } from './cost.js';
@@ -33,3 +33,6 @@ export { matchedFieldWeightsUnpolarized, beamPowerPatterns } from './fixedBeams.
 export type { SkyPowerLaw } from './sky.js';
 export { skyTemperatureAt, CMB_TEMPERATURE_K, SYNCHROTRON_SPECTRAL_INDEX } from './sky.js';
 export { gainOverTemperatureDbPerK, systemEquivalentFluxDensityJy } from './merit.js';
+export type { AdaptiveSphereRuleOptions, AdaptiveSphereRule } from './integration.js';
+export { adaptiveSphereRule } from './integration.js';
+export type { ShiftedElementPattern } from './displacement.js';

@@ -8,6 +8,7 @@ import { DimensionError, DomainError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
 import { assertCMatrix, assertFiniteArray, assertPositive, describeValue } from '../internal/validate.js';
 import type { SphereQuadrature } from '../geometry/quadrature.js';
+import type { ShiftedElementPattern } from './displacement.js';
 
 /**
  * Embedded open-circuit patterns of N ports sampled at M directions.
@@ -53,6 +54,12 @@ export interface PortPatternSource {
   readonly driveCurrentA: number;
   /** Frequency [Hz]. */
   readonly frequencyHz: number;
+  /**
+   * Present when every port's pattern is one element pattern shifted by the
+   * phase of the port's position; the brightness integrals then take the
+   * displacement path (see {@link ShiftedElementPattern}).
+   */
+  readonly shifted?: ShiftedElementPattern;
   /**
    * Writes the patterns of every port at `count` directions starting at `start`.
    * @param thetaRad - Polar angles of all directions [rad].

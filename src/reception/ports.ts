@@ -12,8 +12,9 @@ import { accumulateElementFarField, hertzianGeometry, SINUSOIDAL_CURRENT } from 
 import { dipoleArrayImpedanceMatrix, type InducedEmfOptions } from '../element/mutualImpedance.js';
 import { convertPatternExcitation, embeddedPatternSet, type EmbeddedPatternSet } from '../element/patternSet.js';
 import { patternInterpolator } from '../element/patternInterpolation.js';
-import { assertAboveGround, dipoleGeometry, imageGeometry, type GroundPlane, type HertzianDipole, type WireDipole } from '../element/types.js';
+import { assertAboveGround, dipoleGeometry, imageGeometry, type DipoleGeometry, type GroundPlane, type HertzianDipole, type WireDipole } from '../element/types.js';
 import { hertzianMutualResistance } from '../element/radiation.js';
+import type { ShiftedElementPattern } from './displacement.js';
 import type { PortPatternSource } from './patterns.js';
 import { physicalCheck, type PhysicalCheck } from '../checks.js';
 
@@ -29,6 +30,22 @@ export interface ArrayPortSource {
   readonly impedanceOhm: CMatrix;
   /** Validity checks of the element model at this frequency (e.g. {@link dipoleModelChecks}); copied into every evaluation's checks. */
   readonly checks?: ReadonlyArray<PhysicalCheck>;
+  /** Where the elements are (for the adaptive sphere rule). */
+  readonly geometry?: PortGeometry;
+}
+
+/**
+ * Where the elements of an array are: what the adaptive sphere rule needs to
+ * size itself (electrical extent, element size, ground-plane images).
+ * @category Reception
+ */
+export interface PortGeometry {
+  /** Phase centre of every port [m], 3N values (x, y, z per port). */
+  readonly positionsM: Float64Array;
+  /** Largest dimension of one element [m] (its pattern varies on this scale), ≥ 0. */
+  readonly elementSizeM: number;
+  /** Height z of an infinite PEC ground plane [m]; the patterns vanish below it. @defaultValue no ground plane */
+  readonly groundPlaneZM?: number;
 }
 
 /** Longest dipole of the one-mode induced-EMF model, in wavelengths (common practice). */
@@ -121,11 +138,20 @@ export function dipoleArrayPorts(dipoles: ReadonlyArray<WireDipole>, frequencyHz
   });
   const impedanceOhm = dipoleArrayImpedanceMatrix(dipoles, frequencyHz, options);
   const n = geo.length;
+  const shifted = shiftedDipoles(geo, plane, (g, th, ph, start, count, outTheta, outPhi) => {
+    outTheta.fill(0, 0, 2 * count); outPhi.fill(0, 0, 2 * count);
+    accumulateElementFarField(outTheta, outPhi, 0, g, SINUSOIDAL_CURRENT, k, i0, th.subarray(start, start + count), ph.subarray(start, start + count), plane);
+  }, i0, frequencyHz);
   return {
     impedanceOhm,
     checks: dipoleModelChecks(dipoles, frequencyHz),
+    geometry: {
+      positionsM: Float64Array.from(geo.flatMap((g) => [g.cx, g.cy, g.cz])),
+      elementSizeM: Math.max(...geo.map((g) => 2 * g.halfLengthM)),
+      groundPlaneZM: plane?.zM,
+    },
     patterns: {
-      portCount: n, driveCurrentA: i0, frequencyHz,
+      portCount: n, driveCurrentA: i0, frequencyHz, shifted,
       fill(thetaRad, phiRad, start, count, outTheta, outPhi, ld) {
         const th = thetaRad.subarray(start, start + count), ph = phiRad.subarray(start, start + count);
         for (let p = 0; p < n; p++) {
@@ -134,6 +160,34 @@ export function dipoleArrayPorts(dipoles: ReadonlyArray<WireDipole>, frequencyHz
           accumulateElementFarField(outTheta, outPhi, p * ld, geo[p], SINUSOIDAL_CURRENT, k, i0, th, ph, plane);
         }
       },
+    },
+  };
+}
+
+/**
+ * The displacement description of identical dipoles (same length, radius and
+ * axis; with a ground plane also the same height), or undefined.
+ */
+function shiftedDipoles(
+  geo: ReadonlyArray<DipoleGeometry>, plane: GroundPlane | undefined,
+  fillOne: (g: DipoleGeometry, th: Float64Array, ph: Float64Array, start: number, count: number, outTheta: Float64Array, outPhi: Float64Array) => void,
+  driveCurrentA: number, frequencyHz: number,
+): ShiftedElementPattern | undefined {
+  const g0 = geo[0];
+  const same = (a: number, b: number): boolean => Math.abs(a - b) <= 1e-12 * Math.max(Math.abs(a), Math.abs(b), 1e-300);
+  for (const g of geo) {
+    if (!same(g.halfLengthM, g0.halfLengthM) || !same(g.radiusM, g0.radiusM)) return undefined;
+    if (Math.abs(g.ax - g0.ax) > 1e-12 || Math.abs(g.ay - g0.ay) > 1e-12 || Math.abs(g.az - g0.az) > 1e-12) return undefined;
+    if (plane && Math.abs(g.cz - g0.cz) > 1e-12 * Math.max(Math.abs(g0.cz), 1)) return undefined;
+  }
+  const ref: DipoleGeometry = { ...g0, cx: 0, cy: 0, cz: plane ? g0.cz : 0 };
+  const offsetsM = new Float64Array(3 * geo.length);
+  geo.forEach((g, i) => { offsetsM[3 * i] = g.cx; offsetsM[3 * i + 1] = g.cy; offsetsM[3 * i + 2] = plane ? 0 : g.cz; });
+  return {
+    offsetsM,
+    element: {
+      portCount: 1, driveCurrentA, frequencyHz,
+      fill(thetaRad, phiRad, start, count, outTheta, outPhi) { fillOne(ref, thetaRad, phiRad, start, count, outTheta, outPhi); },
     },
   };
 }
