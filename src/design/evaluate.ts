@@ -7,6 +7,7 @@
  */
 import { zeros } from '../linalg/cmatrix.js';
 import type { PhysicalCheck } from '../checks.js';
+import type { WireArrayPortSource } from '../wire/patterns.js';
 import { NumericError } from '../errors.js';
 import { layoutDiameterM, sphereQuadrature, sphereQuadratureForLayout, sphereQuadratureOrder, type SphereQuadrature } from '../geometry/index.js';
 import { gratingLobeCircles } from '../floquet/grating-lobes.js';
@@ -338,7 +339,8 @@ export function evaluateDesignFrequency(prepared: PreparedDesign, index: number)
     ev = evaluateReceivingArray({
       ports, quadrature, bandwidthHz: d.bandwidthHz, environment, amplifiers,
       physicalTemperatureK: d.environment.physicalTemperatureK ?? 290,
-      loss: d.elements.kind === 'dipole' ? 'lossless' : 'fromPatterns',
+      // wire elements are lossless unless they carry loads (whose dissipation the patterns then lack)
+      loss: d.elements.kind === 'dipole' || (d.elements.kind === 'wire' && (d.elements.loads ?? []).length === 0) ? 'lossless' : 'fromPatterns',
       beams, weights, physicalAreaM2: d.physicalAreaM2,
     });
   } catch (e) {
@@ -359,7 +361,8 @@ export function evaluateDesignFrequency(prepared: PreparedDesign, index: number)
     beams: beamRows,
     minimumReceiverTemperatureK: Number.isFinite(ev.minimumReceiverTemperatureK) ? ev.minimumReceiverTemperatureK : null,
     embeddedElementEfficiency: Array.from(ev.embeddedElementEfficiency),
-    checks: ev.checks,
+    // wire elements add their own solution checks (reciprocity, passivity, thin-wire validity)
+    checks: 'solution' in ports ? [...ev.checks, ...(ports as WireArrayPortSource).solution.checks] : ev.checks,
   };
   if (amplifiers) {
     const y = amplifiers.optimumSourceAdmittanceS;
@@ -403,17 +406,22 @@ function activeReflectionOverBeams(p: PreparedDesign, z: import('../linalg/cmatr
   }
   const elems = centre === edge ? [centre] : [centre, edge];
   const traces = elems.map((e) => ({ element: e, label: e === centre ? `element ${e} (centre)` : `element ${e} (edge)`, re: [] as number[], im: [] as number[] }));
-  const excitation = zeros(n, 1);
-  for (let k = 0; k < p.beams.thetaRad.length; k++) {
+  // All beams' phase-steered excitations in one call: one Z → S conversion, one product.
+  const kBeams = p.beams.thetaRad.length;
+  const excitation = zeros(n, kBeams);
+  for (let k = 0; k < kBeams; k++) {
     const th = p.beams.thetaRad[k], ph = p.beams.phiRad[k];
     const ux = Math.sin(th) * Math.cos(ph), uy = Math.sin(th) * Math.sin(ph), uz = Math.cos(th);
     for (let m = 0; m < n; m++) {
       // conj of the steering vector exp(+j k r̂·r): the transmit excitation equivalent to w = a(r̂).
       const phase = -k0 * (ux * pos[3 * m] + uy * pos[3 * m + 1] + uz * pos[3 * m + 2]);
-      excitation.data[2 * m] = Math.cos(phase); excitation.data[2 * m + 1] = Math.sin(phase);
+      const o = 2 * (m * kBeams + k);
+      excitation.data[o] = Math.cos(phase); excitation.data[o + 1] = Math.sin(phase);
     }
-    const gamma = activeReflection(net, excitation).data;
-    for (const t of traces) { t.re.push(gamma[2 * t.element]); t.im.push(gamma[2 * t.element + 1]); }
+  }
+  const gamma = activeReflection(net, excitation).data; // row k: beam k, column: port
+  for (let k = 0; k < kBeams; k++) {
+    for (const t of traces) { t.re.push(gamma[2 * (k * n + t.element)]); t.im.push(gamma[2 * (k * n + t.element) + 1]); }
   }
   return traces;
 }

@@ -2,11 +2,11 @@
  * Line plots: any figure against any abscissa, and pattern cuts in dB.
  * @module
  */
-import { line } from 'd3-shape';
 import { DimensionError, DomainError } from '../errors.js';
 import { assertFinite } from '../internal/validate.js';
 import {
-  type PlotFrameOptions, TRACE_COLORS, angleTicksDeg, checkSeries, clipId, drawAxes, drawLegend, esc, fmt, makeArea, openSvg, resolveFrame,
+  type LegendEntry, type PlotFrameOptions, TRACE_COLORS, angleTicksDeg, checkSeries, clipId, drawAxes, esc, fmt, makeArea, markerSvg, openSvg,
+  placeLegend, resolveFrame,
 } from './svg.js';
 
 /**
@@ -69,8 +69,12 @@ function checkRange(name: string, r: [number, number] | undefined): void {
  * @remarks
  * Linear axes with d3-scale "nice" ticks; each trace is one `<path class="trace">`
  * carrying `data-label` and `data-points` attributes (the number of plotted
- * points) so that tests and tools can read it back. Values outside a fixed
- * range are clipped to the plot area. Deterministic output.
+ * points) so that tests and tools can read it back. Points are drawn in x order.
+ * Sparse traces (≤ 15 points) and traces lying on the frame's edge get markers; a
+ * trace that coincides with an earlier one is dashed, marked with squares and named
+ * "(coincides with …)" in the legend. The legend goes where the data are not (the
+ * free corner or edge of the plot area, else a band below the plot). Values outside
+ * a fixed range are clipped to the plot area. Deterministic output.
  * @param options - Traces, axis labels (with units) and frame options.
  * @returns SVG markup.
  * @throws `DimensionError` on mismatched trace lengths; `DomainError` on ±Infinity data or invalid ranges.
@@ -90,22 +94,49 @@ export function linePlotSvg(options: LinePlotOptions): string {
   checkRange('yRange', options.yRange);
   const f = resolveFrame(options, { width: 640, height: 400 });
   const a = makeArea(f, options.xRange ?? dataRange(traces, 'x'), options.yRange ?? dataRange(traces, 'y'), options.xRange === undefined, options.yRange === undefined);
-  const parts = [openSvg(f, 'line plot'), drawAxes(f, a, xLabel, yLabel, 8, 6, options.xTicks)];
   const clip = clipId('plot-area', [a.left, a.top, a.right - a.left, a.bottom - a.top]);
-  parts.push(`<clipPath id="${clip}"><rect x="${fmt(a.left)}" y="${fmt(a.top)}" width="${fmt(a.right - a.left)}" height="${fmt(a.bottom - a.top)}"/></clipPath>`);
-  traces.forEach((t, i) => {
-    const idx = Array.from({ length: t.x.length }, (_, k) => k);
-    const gen = line<number>()
-      .defined((k) => Number.isFinite(t.y[k]))
-      .x((k) => Math.round(a.x(t.x[k]) * 100) / 100)
-      .y((k) => Math.round(a.y(t.y[k]) * 100) / 100);
-    let points = 0;
-    for (let k = 0; k < t.y.length; k++) if (Number.isFinite(t.y[k])) points++;
-    parts.push(`<path class="trace" data-label="${esc(t.label)}" data-points="${points}" d="${gen(idx) ?? ''}" fill="none" stroke="${TRACE_COLORS[i % TRACE_COLORS.length]}" stroke-width="1.6" clip-path="url(#${clip})"/>`);
+  const body: string[] = [`<clipPath id="${clip}"><rect x="${fmt(a.left)}" y="${fmt(a.top)}" width="${fmt(a.right - a.left)}" height="${fmt(a.bottom - a.top)}"/></clipPath>`];
+  // Points in x order (an unsorted angle list would draw zig-zags), in pixels.
+  const px = traces.map((t) => {
+    const idx = Array.from({ length: t.x.length }, (_, k) => k).filter((k) => Number.isFinite(t.x[k])).sort((p, q) => t.x[p] - t.x[q]);
+    return idx.map((k) => (Number.isFinite(t.y[k]) ? [Math.round(a.x(t.x[k]) * 100) / 100, Math.round(a.y(t.y[k]) * 100) / 100] : null));
   });
-  parts.push(drawLegend(f, a, traces.map((t) => t.label)));
-  parts.push('</svg>');
-  return parts.join('');
+  // A trace drawn exactly over an earlier one (within half a pixel everywhere) is dashed, marked and named in the legend.
+  const coincides = px.map((p, j) => px.slice(0, j).findIndex((q) => q.length === p.length && p.length > 0
+    && p.every((v, k) => (v === null) === (q[k] === null) && (v === null || (Math.abs(v[0] - (q[k] as number[])[0]) < 0.5 && Math.abs(v[1] - (q[k] as number[])[1]) < 0.5)))));
+  const entries: LegendEntry[] = [];
+  const dataPx: number[] = [];
+  traces.forEach((t, i) => {
+    const color = TRACE_COLORS[i % TRACE_COLORS.length];
+    const pts = px[i];
+    const finite = pts.filter((v): v is number[] => v !== null);
+    // Markers where a line alone could hide: sparse series, traces on the frame's edge, coincident traces.
+    const onEdge = finite.length > 0 && finite.every((v) => Math.abs(v[1] - a.bottom) < 1 || Math.abs(v[1] - a.top) < 1);
+    const twin = coincides[i] >= 0;
+    const marker: 'circle' | 'square' | undefined = twin ? 'square' : finite.length <= 15 || onEdge ? 'circle' : undefined;
+    const dash = twin ? '7 4' : undefined;
+    let d = '', pen = false;
+    for (const v of pts) {
+      if (v === null) { pen = false; continue; }
+      d += `${pen ? 'L' : 'M'}${fmt(v[0])},${fmt(v[1])}`;
+      pen = true;
+    }
+    body.push(`<path class="trace" data-label="${esc(t.label)}" data-points="${finite.length}" d="${d}" fill="none" stroke="${color}" stroke-width="1.6"${dash ? ` stroke-dasharray="${dash}"` : ''} clip-path="url(#${clip})"/>`);
+    if (marker) for (const v of finite) body.push(markerSvg(marker, v[0], v[1], color));
+    // Pixel samples along the trace (every ~4 px) for the legend placement.
+    for (let k = 0; k < pts.length; k++) {
+      const v = pts[k], w = pts[k + 1];
+      if (v === null) continue;
+      dataPx.push(v[0], v[1]);
+      if (w === undefined || w === null) continue;
+      const steps = Math.ceil(Math.hypot(w[0] - v[0], w[1] - v[1]) / 4);
+      for (let s = 1; s < steps; s++) dataPx.push(v[0] + ((w[0] - v[0]) * s) / steps, v[1] + ((w[1] - v[1]) * s) / steps);
+    }
+    entries.push({ label: twin ? `${t.label} (coincides with ${traces[coincides[i]].label})` : t.label, color, dash, marker });
+  });
+  const legend = placeLegend(f, a, entries, dataPx);
+  const frame = legend.extraHeight > 0 ? { ...f, height: f.height + legend.extraHeight } : f;
+  return [openSvg(frame, 'line plot'), drawAxes(f, a, xLabel, yLabel, 8, 6, options.xTicks), ...body, legend.svg, '</svg>'].join('');
 }
 
 /**

@@ -169,22 +169,64 @@ export function drawAxes(f: Frame, a: Area, xLabel: string, yLabel: string, xTic
   return parts.join('');
 }
 
-/** A legend box in the top-right corner of an area. @internal */
-export function drawLegend(f: Frame, a: Area, labels: readonly string[]): string {
-  if (labels.length < 2) return '';
+/** How a legend entry is drawn: its colour, an optional dash pattern and marker. @internal */
+export interface LegendEntry {
+  label: string;
+  color: string;
+  dash?: string;
+  marker?: 'circle' | 'square';
+}
+
+/** A marker glyph centred at (x, y). @internal */
+export function markerSvg(kind: 'circle' | 'square', x: number, y: number, color: string, cls = 'marker'): string {
+  return kind === 'circle'
+    ? `<circle class="${cls}" cx="${fmt(x)}" cy="${fmt(y)}" r="3" fill="#ffffff" stroke="${color}" stroke-width="1.5"/>`
+    : `<rect class="${cls}" x="${fmt(x - 3)}" y="${fmt(y - 3)}" width="6" height="6" fill="${color}" stroke="${color}"/>`;
+}
+
+/**
+ * Legend box placed where the data are not: the corner (or edge midpoint) of the plot area
+ * that covers the fewest data points (pixel samples along every trace); when every place
+ * inside covers data, below the plot, in a band the SVG is made taller for.
+ * @returns The markup and the extra height [px] the frame needs (0 when inside).
+ * @internal
+ */
+export function placeLegend(f: Frame, a: Area, entries: readonly LegendEntry[], dataPx: ArrayLike<number>): { svg: string; extraHeight: number } {
+  if (entries.length < 2) return { svg: '', extraHeight: 0 };
   const lh = f.fontSize * 1.4;
-  const w = Math.max(...labels.map((l) => l.length)) * f.fontSize * 0.6 + f.fontSize * 3;
-  const x0 = a.right - w - 6;
-  const y0 = a.top + 6;
-  const parts = [`<g class="legend"><rect x="${fmt(x0)}" y="${fmt(y0)}" width="${fmt(w)}" height="${fmt(lh * labels.length + 6)}" fill="#ffffff" fill-opacity="0.9" stroke="#c5cad1"/>`];
-  labels.forEach((l, i) => {
+  const w = Math.max(...entries.map((e) => e.label.length)) * f.fontSize * 0.6 + f.fontSize * 3;
+  const h = lh * entries.length + 6;
+  const pad = 6;
+  const xs = [a.right - w - pad, a.left + pad, (a.left + a.right - w) / 2];
+  const ys = [a.top + pad, a.bottom - h - pad, (a.top + a.bottom - h) / 2];
+  let best = { x: xs[0], y: ys[0], n: Infinity };
+  for (const y of ys) {
+    for (const x of xs) {
+      let n = 0;
+      for (let i = 0; i + 1 < dataPx.length; i += 2) {
+        const px = dataPx[i], py = dataPx[i + 1];
+        if (px >= x - 3 && px <= x + w + 3 && py >= y - 3 && py <= y + h + 3) n++;
+      }
+      if (n < best.n) best = { x, y, n };
+    }
+  }
+  let extraHeight = 0;
+  if (best.n > 0) {
+    // Nowhere free inside: a band under the x-axis title.
+    extraHeight = Math.ceil(h + pad);
+    best = { x: (a.left + a.right - w) / 2, y: f.height, n: 0 };
+  }
+  const { x: x0, y: y0 } = best;
+  const parts = [`<g class="legend"><rect class="legend-box" x="${fmt(x0)}" y="${fmt(y0)}" width="${fmt(w)}" height="${fmt(h)}" fill="#ffffff" fill-opacity="0.9" stroke="#c5cad1"/>`];
+  entries.forEach((e, i) => {
     const y = y0 + 3 + lh * (i + 0.5);
-    const c = TRACE_COLORS[i % TRACE_COLORS.length];
-    parts.push(`<line x1="${fmt(x0 + 6)}" x2="${fmt(x0 + 6 + f.fontSize * 1.6)}" y1="${fmt(y)}" y2="${fmt(y)}" stroke="${c}" stroke-width="2"/>`);
-    parts.push(`<text x="${fmt(x0 + 10 + f.fontSize * 1.6)}" y="${fmt(y + f.fontSize * 0.35)}" fill="#222">${esc(l)}</text>`);
+    const x1 = x0 + 6, x2 = x0 + 6 + f.fontSize * 1.6;
+    parts.push(`<line class="legend-mark" x1="${fmt(x1)}" x2="${fmt(x2)}" y1="${fmt(y)}" y2="${fmt(y)}" stroke="${e.color}" stroke-width="2"${e.dash ? ` stroke-dasharray="${e.dash}"` : ''}/>`);
+    if (e.marker) parts.push(markerSvg(e.marker, (x1 + x2) / 2, y, e.color, 'legend-marker'));
+    parts.push(`<text x="${fmt(x0 + 10 + f.fontSize * 1.6)}" y="${fmt(y + f.fontSize * 0.35)}" fill="#222">${esc(e.label)}</text>`);
   });
   parts.push('</g>');
-  return parts.join('');
+  return { svg: parts.join(''), extraHeight };
 }
 
 /** Base64 of bytes without Node's Buffer (browser-safe). @internal */
