@@ -133,3 +133,29 @@ describe('Cholesky', () => {
     expect(() => choleskyFactor(zeros(2, 1))).toThrow(DimensionError);
   });
 });
+
+describe('blocked Cholesky (order ≥ 257)', () => {
+  it('reproduces A = L Lᴴ to 1e-13 at N = 600 and 257 and flags the same failed pivot as the unblocked order would', async () => {
+    const { choleskyFactor } = await import('../../src/linalg/cholesky.js');
+    const { multiply, adjoint, hermitianPart } = await import('../../src/linalg/ops.js');
+    const { randomMatrix } = await import('../helpers/matchers.js');
+    for (const n of [600, 257]) {
+      const g = randomMatrix(n, n, n);
+      const a = hermitianPart(multiply(g, adjoint(g)));
+      for (let i = 0; i < n; i++) a.data[2 * (i * n + i)] += 1;
+      const f = choleskyFactor(a);
+      expect(f.positiveDefinite).toBe(true);
+      const r = multiply(f.l, adjoint(f.l));
+      let worst = 0, big = 0;
+      for (let k = 0; k < a.data.length; k++) { worst = Math.max(worst, Math.abs(r.data[k] - a.data[k])); big = Math.max(big, Math.abs(a.data[k])); }
+      expect(worst).toBeLessThan(1e-13 * big);
+      for (let i = 0; i < n; i++) for (let j = i + 1; j < n; j++) expect(f.l.data[2 * (i * n + j)]).toBe(0);
+      // indefinite: the leading 200×200 block is positive definite, entry 200 breaks it
+      const b = { rows: n, cols: n, data: a.data.slice() };
+      b.data[2 * (200 * n + 200)] = -1e6;
+      const fb = choleskyFactor(b);
+      expect(fb.positiveDefinite).toBe(false);
+      expect(fb.failedPivot).toBe(200);
+    }
+  });
+});
