@@ -26,6 +26,10 @@ import {
   dipoleArrayPorts, dipoleModelChecks, patternSetPorts, skyAndGroundEnvironment, skyTemperatureAt,
   type ArrayPortSource, type BeamDirections, type NoiseEnvironment,
 } from '../reception/index.js';
+import { placeWireElement } from '../wire/array.js';
+import { buildModel } from '../wire/model.js';
+import { wireArrayPorts } from '../wire/patterns.js';
+import type { WireStructure } from '../wire/types.js';
 import { circularTaylorTaper, cosineDistribution, sampleRadialDistribution, uniformTaper } from '../taper/index.js';
 import { fieldError, type Design } from './schema.js';
 import {
@@ -263,6 +267,18 @@ function interpolatePatternSets(a: EmbeddedPatternSet, b: EmbeddedPatternSet, f:
   return embeddedPatternSet({ ...a, frequencyHz: f, thetaComponentV: mix(a.thetaComponentV, b.thetaComponentV), phiComponentV: mix(a.phiComponentV, b.phiComponentV) });
 }
 
+type WireElementsField = Extract<Design['elements'], { kind: 'wire' }>;
+
+/** The design's wire element (template coordinates, raised by groundPlaneHeightM) at every layout position. */
+function wireArray(e: WireElementsField, layout: ArrayLayout): ReturnType<typeof placeWireElement> {
+  const element: WireStructure = { wires: e.wires, ports: [e.port], loads: e.loads };
+  return placeWireElement(element, layout, { heightM: e.groundPlaneHeightM ?? 0 });
+}
+
+function wireOptions(e: WireElementsField): { groundPlane?: { zM: number }; maxSegmentWavelengths?: number } {
+  return { ...(e.groundPlaneHeightM === undefined ? {} : { groundPlane: { zM: 0 } }), ...(e.maxSegmentWavelengths === undefined ? {} : { maxSegmentWavelengths: e.maxSegmentWavelengths }) };
+}
+
 /** Options of {@link prepareDesign}. @category Design */
 export interface PrepareDesignOptions {
   /** Name of the design file, used in messages. @defaultValue "design" */
@@ -289,6 +305,12 @@ export function prepareDesign(design: Design, options: PrepareDesignOptions = {}
   const taper = taperAmplitudes(d, layout, spacingM, file);
   const amplifiersAt = amplifierBand(d, file, frequenciesHz, options.readFile);
   const imported = importElements(d, file, frequenciesHz, layout, options.readFile);
+  if (d.elements.kind === 'wire') {
+    // the geometry checks (segment lengths depend on λ) at both ends of the band, before any solve
+    for (const f of [frequenciesHz[0], frequenciesHz[frequenciesHz.length - 1]]) {
+      wrapField(file, 'elements', () => buildModel(wireArray(d.elements as WireElementsField, layout), f, wireOptions(d.elements as WireElementsField)));
+    }
+  }
   checkElementModel(d, file, frequenciesHz);
   return { design: d, fileName: file, frequenciesHz, layout, lattice, beams, taper, amplifiersAt, imported, reportFrequencyIndices: reportFrequencies(d, frequenciesHz) };
 }
@@ -322,8 +344,10 @@ function reportFrequencies(d: Design, band: Float64Array): number[] {
 
 /**
  * The array's ports at one band frequency: analytic dipoles re-evaluated at f (one-mode
- * induced-EMF model, element module), or the imported network interpolated to f (network
- * module, real–imaginary rule) with the embedded patterns at f.
+ * induced-EMF model, element module), wire elements solved at f by the thin-wire method of
+ * moments (wire module: the template placed at every layout position, segmented for f, full
+ * coupling, open-circuit embedded patterns), or the imported network interpolated to f
+ * (network module, real–imaginary rule) with the embedded patterns at f.
  * @param prepared - The prepared design.
  * @param frequencyHz - A band frequency [Hz].
  * @returns Patterns and Z [Ω].
@@ -336,6 +360,9 @@ export function designPortsAt(prepared: PreparedDesign, frequencyHz: number): Ar
   if (e.kind === 'dipole') {
     const dipoles: WireDipole[] = wrapField(file, 'elements', () => dipolesFromLayout(layout, { lengthM: e.lengthM, radiusM: e.radiusM, axis: e.axis, heightM: e.groundPlaneHeightM ?? 0 }));
     return wrapField(file, 'elements', () => dipoleArrayPorts(dipoles, frequencyHz, e.groundPlaneHeightM === undefined ? {} : { groundPlane: { zM: 0 } }));
+  }
+  if (e.kind === 'wire') {
+    return wrapField(file, 'elements', () => wireArrayPorts(wireArray(e, layout), frequencyHz, wireOptions(e)));
   }
   const imp = prepared.imported as ImportedElements;
   const at = wrapField(file, 'elements.touchstoneFile', () => interpolateMultiport(imp.network, [frequencyHz]));

@@ -7,6 +7,7 @@
  */
 import { zeros } from '../linalg/cmatrix.js';
 import type { PhysicalCheck } from '../checks.js';
+import type { WireArrayPortSource } from '../wire/patterns.js';
 import { NumericError } from '../errors.js';
 import { layoutDiameterM, sphereQuadrature, sphereQuadratureForLayout, sphereQuadratureOrder, type SphereQuadrature } from '../geometry/index.js';
 import { gratingLobeCircles } from '../floquet/grating-lobes.js';
@@ -338,7 +339,8 @@ export function evaluateDesignFrequency(prepared: PreparedDesign, index: number)
     ev = evaluateReceivingArray({
       ports, quadrature, bandwidthHz: d.bandwidthHz, environment, amplifiers,
       physicalTemperatureK: d.environment.physicalTemperatureK ?? 290,
-      loss: d.elements.kind === 'dipole' ? 'lossless' : 'fromPatterns',
+      // wire elements are lossless unless they carry loads (whose dissipation the patterns then lack)
+      loss: d.elements.kind === 'dipole' || (d.elements.kind === 'wire' && (d.elements.loads ?? []).length === 0) ? 'lossless' : 'fromPatterns',
       beams, weights, physicalAreaM2: d.physicalAreaM2,
     });
   } catch (e) {
@@ -359,7 +361,8 @@ export function evaluateDesignFrequency(prepared: PreparedDesign, index: number)
     beams: beamRows,
     minimumReceiverTemperatureK: Number.isFinite(ev.minimumReceiverTemperatureK) ? ev.minimumReceiverTemperatureK : null,
     embeddedElementEfficiency: Array.from(ev.embeddedElementEfficiency),
-    checks: ev.checks,
+    // wire elements add their own solution checks (reciprocity, passivity, thin-wire validity)
+    checks: 'solution' in ports ? [...ev.checks, ...(ports as WireArrayPortSource).solution.checks] : ev.checks,
   };
   if (amplifiers) {
     const y = amplifiers.optimumSourceAdmittanceS;

@@ -72,7 +72,35 @@ const importedElements = z.strictObject({
   }),
   interpolatePatterns: z.boolean().optional(),
 });
-const elements = z.discriminatedUnion('kind', [dipoleElements, importedElements]);
+const wireSpec = z.strictObject({
+  pointsM: z.array(vector3).min(2).max(1000),
+  radiusM: positive('m'),
+  segments: z.number().int().min(1).max(10000).optional(),
+});
+const wireLoad = z.strictObject({
+  wire: z.number().int().min(0),
+  atFraction: z.number().min(0).max(1).optional(),
+  resistanceOhm: z.number().min(0).optional(),
+  inductanceH: z.number().min(0).optional(),
+  capacitanceF: positive('F').optional(),
+  connection: z.enum(['series', 'parallel']).optional(),
+  impedanceOhm: complexValue.optional(),
+});
+const wireElements = z.strictObject({
+  kind: z.literal('wire'),
+  wires: z.array(wireSpec).min(1).max(1000),
+  port: z.strictObject({ wire: z.number().int().min(0), atFraction: z.number().min(0).max(1).optional() }),
+  loads: z.array(wireLoad).max(1000).optional(),
+  groundPlaneHeightM: positive('m').optional(),
+  maxSegmentWavelengths: z.number().gt(0).max(0.25).optional(),
+}).superRefine((e, ctx) => {
+  const check = (path: PropertyKey[], w: number) => {
+    if (w >= e.wires.length) ctx.addIssue({ code: 'custom', path: [...path, 'wire'], input: w, message: `expected a wire index below ${e.wires.length} (the number of wires)` });
+  };
+  check(['port'], e.port.wire);
+  e.loads?.forEach((l, i) => check(['loads', i], l.wire));
+});
+const elements = z.discriminatedUnion('kind', [dipoleElements, importedElements, wireElements]);
 
 /** A physical two-port has T_min ≤ 4 T0 R_n Re Y_opt (M. W. Pospieszalski, IEEE Trans. MTT 37(9), 1989, from memory). */
 function checkRealisable(ctx: z.RefinementCtx, path: PropertyKey[], tMin: number, rn: number, y: number | { re: number; im: number }): void {

@@ -87,7 +87,8 @@ export type DesignLayout =
 
 /**
  * Elements: analytic thin-wire dipoles (one-mode induced-EMF model, re-evaluated per
- * frequency) or imported network + embedded-pattern data.
+ * frequency), one wire element solved by the thin-wire method of moments at every frequency
+ * (wire module, docs/wire.md), or imported network + embedded-pattern data.
  * @category Design
  */
 export type DesignElements =
@@ -102,6 +103,47 @@ export type DesignElements =
     readonly axis: readonly [number, number, number];
     /** Height of the feed points over a PEC ground plane at z = 0 [m]; no ground plane when absent. */
     readonly groundPlaneHeightM?: number;
+  }
+  | {
+    /** Discriminator: "wire". */
+    readonly kind: 'wire';
+    /** The element's wires in its own coordinates (as the wire module's WireSpec) [m]. */
+    readonly wires: ReadonlyArray<{
+      /** Points of the polyline [m], at least two. */
+      readonly pointsM: ReadonlyArray<readonly [number, number, number]>;
+      /** Wire radius [m]. */
+      readonly radiusM: number;
+      /** Segments of the whole wire. @defaultValue from maxSegmentWavelengths */
+      readonly segments?: number;
+    }>;
+    /** The element's one port: wire index and arc-length fraction. */
+    readonly port: {
+      /** Wire index. */
+      readonly wire: number;
+      /** Position along the wire, 0…1. @defaultValue 0.5 */
+      readonly atFraction?: number;
+    };
+    /** Lumped loads (as the wire module's WireLoad; impedanceOhm a number or {re, im} [Ω]). */
+    readonly loads?: ReadonlyArray<{
+      /** Wire index. */
+      readonly wire: number;
+      /** Position along the wire, 0…1. @defaultValue 0.5 */
+      readonly atFraction?: number;
+      /** Resistance [Ω]. */
+      readonly resistanceOhm?: number;
+      /** Inductance [H]. */
+      readonly inductanceH?: number;
+      /** Capacitance [F]. */
+      readonly capacitanceF?: number;
+      /** Series or parallel R, L, C. @defaultValue "series" */
+      readonly connection?: 'series' | 'parallel';
+      /** Complex impedance [Ω]. */
+      readonly impedanceOhm?: DesignComplex;
+    }>;
+    /** Height of the element's origin over a PEC ground plane at z = 0 [m]; no ground plane when absent. */
+    readonly groundPlaneHeightM?: number;
+    /** Longest segment [wavelengths]. @defaultValue 0.05 */
+    readonly maxSegmentWavelengths?: number;
   }
   | {
     /** Discriminator: "imported". */

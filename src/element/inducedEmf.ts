@@ -234,14 +234,12 @@ export function segmentDistance(a: DipoleGeometry, b: DipoleGeometry): number {
   t = clampB(dB + bdot * s);
   s = clampA(bdot * t - dA);
   t = clampB(dB + bdot * s);
-  let best = Infinity;
-  const cand: [number, number][] = [[s, t]];
   // parallel or clamped cases: also test the four endpoints against the other segment
-  for (const sa of [-a.halfLengthM, a.halfLengthM]) cand.push([sa, clampB(dB + bdot * sa)]);
-  for (const tb of [-b.halfLengthM, b.halfLengthM]) cand.push([clampA(bdot * tb - dA), tb]);
-  for (const [ss, tt] of cand) {
-    const dx = wx + ss * a.ax - tt * b.ax, dy = wy + ss * a.ay - tt * b.ay, dz = wz + ss * a.az - tt * b.az;
-    best = Math.min(best, Math.hypot(dx, dy, dz));
+  const dist = (ss: number, tt: number): number => Math.hypot(wx + ss * a.ax - tt * b.ax, wy + ss * a.ay - tt * b.ay, wz + ss * a.az - tt * b.az);
+  let best = dist(s, t);
+  for (let e = -1; e <= 1; e += 2) {
+    const sa = e * a.halfLengthM, tb = e * b.halfLengthM;
+    best = Math.min(best, dist(sa, clampB(dB + bdot * sa)), dist(clampA(bdot * tb - dA), tb));
   }
   return best;
 }

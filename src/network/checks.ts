@@ -144,13 +144,22 @@ export interface ImpedancePassivity {
 /** Largest order whose eigenvalues are computed densely (O(N³), a fraction of a second); above it Lanczos estimates. */
 const DENSE_EIGEN_MAX_ORDER = 500;
 
-/** @internal {@link impedancePassivity} that also returns the Cholesky factor of (Z + Zᴴ)/2 for reuse. */
-export function impedancePassivityWithFactor(impedanceOhm: CMatrix, maxSteps = 150): ImpedancePassivity & { factor: CholeskyResult } {
+/**
+ * @internal {@link impedancePassivity} that also returns the Cholesky factor of (Z + Zᴴ)/2 for
+ * reuse. With `factorise` false (large arrays whose figures need no factor) the verdict is the
+ * sign of the Lanczos estimate of the smallest eigenvalue (an upper bound: a negative estimate
+ * proves non-passivity, a positive one does not prove passivity) and `factor` is null.
+ */
+export function impedancePassivityWithFactor(impedanceOhm: CMatrix, maxSteps = 150, factorise = true): ImpedancePassivity & { factor: CholeskyResult | null } {
   assertSquare('impedanceOhm', impedanceOhm);
   assertFiniteCMatrix('impedanceOhm', impedanceOhm);
   const h = hermitianPart(impedanceOhm);
-  const factor = choleskyFactor(h);
   const n = h.rows;
+  if (!factorise && n > DENSE_EIGEN_MAX_ORDER) {
+    const e = lanczosExtremes(n, (x, y) => gemmKernel(n, 1, n, h.data, 0, n, x, 0, 1, y, 0, 1, false), 'both', 1e-10, Math.min(n, maxSteps));
+    return { positiveDefinite: e.min > 0, smallestEigenvalueOhm: e.min, largestEigenvalueOhm: e.max, converged: e.converged, factor: null };
+  }
+  const factor = choleskyFactor(h);
   if (n <= DENSE_EIGEN_MAX_ORDER) {
     const v = hermitianEigen(h, { valuesOnly: true }).values;
     return { positiveDefinite: factor.positiveDefinite, smallestEigenvalueOhm: v[0], largestEigenvalueOhm: v[n - 1], converged: true, factor };

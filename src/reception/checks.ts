@@ -141,7 +141,7 @@ export function receivingArrayChecks(input: ReceivingArrayCheckInput): PhysicalC
   const p = input.passivity;
   out.push({
     ...physicalCheck('impedancePassivity', p.smallestEigenvalueOhm, 'atLeast', 0,
-      `smallest eigenvalue of (Z + Zᴴ)/2 [Ω] (Lanczos${p.converged ? '' : ' estimate, an upper bound'}; verdict from its Cholesky factorisation); a negative value means the impedance matrix creates power — for analytic dipoles the one-mode model's limit, for imported data a non-passive network`,
+      `smallest eigenvalue of (Z + Zᴴ)/2 [Ω] (Lanczos${p.converged ? '' : ' estimate, an upper bound'}; verdict from its Cholesky factorisation, or from the sign of that estimate when array figures are off above 500 ports); a negative value means the impedance matrix creates power — for analytic dipoles the one-mode model's limit, for imported data a non-passive network`,
       ['minimumReceiverTemperatureK', 'embeddedElementEfficiency', 'systemTemperatureK']),
     passed: p.positiveDefinite,
   });

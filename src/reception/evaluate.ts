@@ -17,6 +17,7 @@ import { adaptiveSphereRule } from './integration.js';
 import { receivingArrayChecks } from './checks.js';
 import type { PhysicalCheck } from '../checks.js';
 import { impedancePassivityWithFactor } from '../network/checks.js';
+import type { CholeskyResult } from '../linalg/cholesky.js';
 import type { PortGeometry } from './ports.js';
 import { K_BOLTZMANN_J_PER_K } from '../units/constants.js';
 import {
@@ -109,7 +110,10 @@ export interface ReceivingArrayDescription {
    * Compute the array figures (minimum receiver temperature, embedded element
    * efficiencies). Each costs O(N³) (one factorisation and, for the
    * efficiencies, one inverse and one product); turn them off for quick looks
-   * at very large arrays. @defaultValue true
+   * at very large arrays. Off, and above 500 ports, the passivity check of Z
+   * uses a Lanczos estimate of the smallest eigenvalue of (Z + Zᴴ)/2 instead of
+   * its Cholesky factorisation (a negative estimate proves non-passivity; a
+   * positive one is strong evidence, not proof). @defaultValue true
    */
   readonly arrayFigures?: boolean;
   /** Accepted relative integration error: bound of the Twiss residual of a lossless array (see twissResidual) and allowance of η_rad ≤ 1. @defaultValue 1e-3 */
@@ -263,11 +267,11 @@ export function evaluateReceivingArray(description: ReceivingArrayDescription): 
 
   // Array figures: one Cholesky of (Z + Zᴴ)/2 serves the passivity check and T_rec,min.
   t = performance.now();
-  const passivity = impedancePassivityWithFactor(d.ports.impedanceOhm, 60);
+  const passivity = impedancePassivityWithFactor(d.ports.impedanceOhm, 30, arrayFigures);
   let tMin = NaN, tMinFailure: string | undefined;
   if (arrayFigures) {
     try {
-      tMin = minimumReceiverTemperatureFrom(budget, passivity.factor, 4 * K_BOLTZMANN_J_PER_K * budget.bandwidthHz);
+      tMin = minimumReceiverTemperatureFrom(budget, passivity.factor as CholeskyResult, 4 * K_BOLTZMANN_J_PER_K * budget.bandwidthHz);
     } catch (e) {
       if (!(e instanceof SingularMatrixError || e instanceof ConvergenceError)) throw e;
       tMinFailure = e.message;

@@ -445,7 +445,7 @@ export function minimumReceiverTemperatureFrom(budget: NoiseBudget, isoFactor: C
     solveUpperInPlace(n, 1, lh, t, false);
     gemmKernel(n, 1, n, other, 0, n, t, 0, 1, y, 0, 1, false);
     solveLowerInPlace(n, 1, l, y, false);
-  }, which, 1e-12);
+  }, which, 1e-10);
   if (!e.converged) {
     throw new ConvergenceError(`minimumReceiverTemperature: the Lanczos iteration did not converge in ${e.steps} steps (estimate ${which === 'max' ? 1 / e.max : e.min / isoScale} K).`);
   }

@@ -3,7 +3,7 @@ export { WireGeometryError } from './types.js';
 export type { WireElementArray, PlaceWireElementOptions } from './array.js';
 export { placeWireElement } from './array.js';
 export type { WireSolveOptions } from './model.js';
-export type { WireSegments, WireCheck, WireTimings, WireBlockCounts, WireSolution } from './solve.js';
+export type { WireSegments, WireTimings, WireBlockCounts, WireSolution } from './solve.js';
 export { solveWires } from './solve.js';
 export { wireLoadImpedance } from './loads.js';
 export type { WireArrayPortsOptions, WireArrayPortSource } from './patterns.js';

@@ -50,10 +50,10 @@ function rule01(n: number): { x: Float64Array; w: Float64Array } {
 }
 
 /** Values of the two half-modes and their derivatives /k at the nodes of a rule. */
-interface NodeValues { x: Float64Array; w: Float64Array; fr: Float64Array; ff: Float64Array; gr: Float64Array; gf: Float64Array }
+interface NodeValues { x: Float64Array; w: Float64Array; fr: Float64Array; ff: Float64Array; gr: Float64Array; gf: Float64Array; q: number; d: number; k: number }
 const MAX_NODES = 512;
 function nodeValues(): NodeValues {
-  return { x: new Float64Array(MAX_NODES), w: new Float64Array(MAX_NODES), fr: new Float64Array(MAX_NODES), ff: new Float64Array(MAX_NODES), gr: new Float64Array(MAX_NODES), gf: new Float64Array(MAX_NODES) };
+  return { x: new Float64Array(MAX_NODES), w: new Float64Array(MAX_NODES), fr: new Float64Array(MAX_NODES), ff: new Float64Array(MAX_NODES), gr: new Float64Array(MAX_NODES), gf: new Float64Array(MAX_NODES), q: -1, d: 0, k: 0 };
 }
 const nodesS = nodeValues(), nodesT = nodeValues();
 
@@ -67,6 +67,8 @@ function fillModes(v: NodeValues, n: number, k: number, d: number): void {
 }
 
 function gaussNodes(v: NodeValues, q: number, k: number, d: number): number {
+  if (v.q === q && v.d === d && v.k === k) return q; // same rule on a segment of the same length
+  v.q = q; v.d = d; v.k = k;
   const r = rule01(q);
   for (let i = 0; i < q; i++) { v.x[i] = r.x[i] * d; v.w[i] = r.w[i] * d; }
   fillModes(v, q, k, d);
@@ -94,15 +96,23 @@ function tensorPart(out: Float64Array, k: number, gs: Float64Array, i: number, g
       const r2 = dx * dx + dy * dy + dz * dz;
       const r = Math.sqrt(r2);
       const kr = k * r;
-      const gRe = kr < 1e-8 ? k : Math.sin(kr) / r;
+      const skr = Math.sin(kr);
+      const gRe = kr < 1e-8 ? k : skr / r;
       const w = wa * nodesT.w[b];
       const frb = nodesT.fr[b], ffb = nodesT.ff[b], grb = nodesT.gr[b], gfb = nodesT.gf[b];
       const arr = w * (c * fra * frb - gra * grb), arf = w * (c * fra * ffb - gra * gfb);
       const afr = w * (c * ffa * frb - gfa * grb), aff = w * (c * ffa * ffb - gfa * gfb);
       rrR += arr * gRe; rfR += arf * gRe; frR += afr * gRe; ffR += aff * gRe;
       if (withImag) {
-        const ra = Math.sqrt(r2 + a2);
-        const gIm = Math.cos(k * ra) / ra;
+        let gIm: number;
+        if (a2 < 1e-6 * r2 && k * a2 < 2e-6 * r) {
+          // R_a = r + a²/2r to O(a⁴/r³): cos(kR_a)/R_a by one Taylor step about r (error < 1e-12 relative)
+          const e = (0.5 * a2) / r2;
+          gIm = (Math.cos(kr) - skr * kr * e) * (1 - e) / r;
+        } else {
+          const ra = Math.sqrt(r2 + a2);
+          gIm = Math.cos(k * ra) / ra;
+        }
         rrI += arr * gIm; rfI += arf * gIm; frI += afr * gIm; ffI += aff * gIm;
       }
     }
@@ -113,7 +123,7 @@ function tensorPart(out: Float64Array, k: number, gs: Float64Array, i: number, g
 }
 
 const lint = new Float64Array(2);
-const breaksX = new Float64Array(8), breaksH = new Float64Array(8);
+const breaksX = new Float64Array(8), breaksH = new Float64Array(8), rightEdges = new Float64Array(64);
 
 /** Gauss nodes on [0, d] graded geometrically (ratio 2) towards each breakpoint, 6 nodes per cell. */
 function gradedNodes(v: NodeValues, d: number, nb: number): number {
@@ -128,10 +138,10 @@ function gradedNodes(v: NodeValues, d: number, nb: number): number {
     let a = x0, h = breaksH[b];
     while (a + h < mid) { cell(a, a + h); a += h; h *= 2; }
     let e = x1; h = breaksH[b + 1];
-    const right: number[] = [];
-    while (e - h > mid) { right.push(e); e -= h; h *= 2; }
+    let nr = 0;
+    while (e - h > mid && nr < rightEdges.length) { rightEdges[nr++] = e; e -= h; h *= 2; }
     cell(a, e);
-    for (let q = right.length - 1; q >= 0; q--) cell(q === right.length - 1 ? e : right[q + 1], right[q]);
+    for (let q = nr - 1; q >= 0; q--) cell(q === nr - 1 ? e : rightEdges[q + 1], rightEdges[q]);
   }
   return n;
 }
@@ -165,8 +175,14 @@ function nearImag(out: Float64Array, k: number, gs: Float64Array, i: number, gt:
     const x = ex * ux + ey * uy + ez * uz;
     if (x > tol && x < ds - tol) add(x);
   }
-  const xs = Array.from(breaksX.subarray(0, nb)).sort((u, v) => u - v);
-  for (let q = 0; q < nb; q++) { breaksX[q] = xs[q]; breaksH[q] = Math.max(a, distanceToEnds(gs, o, xs[q], gt, p)); }
+  for (let q = 1; q < nb; q++) { // insertion sort of at most four breakpoints
+    const v = breaksX[q];
+    let r = q - 1;
+    while (r >= 0 && breaksX[r] > v) { breaksX[r + 1] = breaksX[r]; r--; }
+    breaksX[r + 1] = v;
+  }
+  for (let q = 0; q < nb; q++) breaksH[q] = Math.max(a, distanceToEnds(gs, o, breaksX[q], gt, p));
+  nodesS.q = -1;
   const n = gradedNodes(nodesS, ds, nb);
   fillModes(nodesS, n, k, ds);
   const st = 1 / Math.sin(k * dt);

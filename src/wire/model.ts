@@ -208,7 +208,7 @@ function checkOverlaps(m: SegmentedStructure, geo: Float64Array, placements: num
       const d = segmentDistance(asGeometry(geo, a), asGeometry(geo, b));
       if (d < ra + geo[b * SEG + 7] && !(pa === pb && straightBetween(m, la, lb, d))) {
         const wa = m.segmentWire[la], wb = m.segmentWire[lb];
-        const where = placements > 1 ? ` (elements ${pa} and ${pb})` : '';
+        const where = placements === 1 ? '' : pa === pb ? ` (element ${pa})` : ` (elements ${pa} and ${pb})`;
         throw new WireGeometryError(
           `wire ${wa} segment ${m.segmentOnWire[la]} and wire ${wb} segment ${m.segmentOnWire[lb]}${where} overlap or cross without being joined (axis distance ${d.toPrecision(3)} m < sum of radii ${(ra + geo[b * SEG + 7]).toPrecision(3)} m); move them apart or join them end to end.`,
           { wire: wa, segment: m.segmentOnWire[la], otherWire: wb, otherSegment: m.segmentOnWire[lb], element: placements > 1 ? pa : -1 },

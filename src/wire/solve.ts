@@ -5,6 +5,7 @@
  * @module
  */
 import type { CMatrix } from '../linalg/cmatrix.js';
+import { physicalCheck, type PhysicalCheck } from '../checks.js';
 import { luFactor, luSolve, inverse } from '../linalg/lu.js';
 import { multiply } from '../linalg/ops.js';
 import { hermitianEigenKernel } from '../linalg/eigen.js';
@@ -34,21 +35,6 @@ export interface WireSegments {
   readonly wire: Int32Array;
   /** Element index of each segment (0 for a plain structure). */
   readonly element: Int32Array;
-}
-
-/**
- * One physical or validity check of a solution, as data.
- * @category Wire
- */
-export interface WireCheck {
-  /** What is checked. */
-  readonly name: string;
-  /** The measured value (dimensionless unless the name says otherwise). */
-  readonly value: number;
-  /** The limit it is held to. */
-  readonly limit: number;
-  /** Whether the value is within the limit. */
-  readonly passed: boolean;
 }
 
 /**
@@ -102,8 +88,8 @@ export interface WireSolution {
   readonly segmentCurrentsA: CMatrix;
   /** Warnings about the model's validity (also reported as failed checks). */
   readonly warnings: readonly string[];
-  /** Reciprocity, passivity and thin-wire validity checks. */
-  readonly checks: readonly WireCheck[];
+  /** Reciprocity, passivity and thin-wire validity checks (the shared check record). */
+  readonly checks: readonly PhysicalCheck[];
   /** Stage times [ms]. */
   readonly timings: WireTimings;
 }
@@ -142,9 +128,10 @@ export function solutionInternals(s: WireSolution): SolutionInternals | undefine
  * Theory*, 4th ed., 2016, §4.7, from memory). Conventions: docs/conventions.md
  * (e^{+jωt}, RMS, V = Z I).
  *
- * Checks returned as data: reciprocity of the port Z (relative max |Z − Zᵀ|,
- * ≤ 1e-9), passivity (smallest eigenvalue of Re Z relative to the largest,
- * ≥ −1e-9), and the thin-wire limits (segment length ≥ 4 radii; k·a ≤ 0.1).
+ * Checks returned as data (the shared `PhysicalCheck` record): reciprocity of
+ * the port Z (relative max |Z − Zᵀ|, ≤ 1e-9), passivity (smallest eigenvalue
+ * of Re Z relative to the largest, ≥ −1e-9), and the thin-wire limits
+ * (segment length ≥ 4 radii; k·a ≤ 0.1).
  *
  * @param structure - A wire structure, or an element array from {@link placeWireElement}.
  * @param frequencyHz - Frequency [Hz], > 0.
@@ -261,7 +248,7 @@ function segmentCurrents(m: PlacedModel, coeff: CMatrix, cols: number): CMatrix 
   return { rows: 2 * S * P, cols, data: out };
 }
 
-function checksOf(m: PlacedModel, z: CMatrix): WireCheck[] {
+function checksOf(m: PlacedModel, z: CMatrix): PhysicalCheck[] {
   const n = z.rows, d = z.data;
   let big = 0, asym = 0;
   for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {
@@ -274,9 +261,13 @@ function checksOf(m: PlacedModel, z: CMatrix): WireCheck[] {
   const minRel = top === 0 ? 0 : ev[0] / top;
   const lambda = (2 * Math.PI) / m.k;
   return [
-    { name: 'reciprocity: max |Z − Zᵀ| / max |Z| of the port impedance matrix', value: big === 0 ? 0 : asym / big, limit: 1e-9, passed: asym <= 1e-9 * big },
-    { name: 'passivity: smallest eigenvalue of Re Z / largest |eigenvalue|', value: minRel, limit: -1e-9, passed: minRel >= -1e-9 },
-    { name: 'thin wire: shortest segment / its radius', value: m.minLengthToRadius, limit: 4, passed: m.minLengthToRadius >= 4 },
-    { name: `thin wire: k·a of the thickest wire (a = ${m.maxRadiusM} m, λ = ${lambda.toPrecision(4)} m)`, value: m.k * m.maxRadiusM, limit: 0.1, passed: m.k * m.maxRadiusM <= 0.1 },
+    physicalCheck('wire.reciprocity', big === 0 ? 0 : asym / big, 'atMost', 1e-9,
+      'max |Z − Zᵀ| / max |Z| of the port impedance matrix (dimensionless); a failure means the moment matrix or its solve is wrong', ['impedanceOhm']),
+    physicalCheck('wire.passivity', minRel, 'atLeast', -1e-9,
+      'smallest eigenvalue of Re Z over the largest |eigenvalue| (dimensionless); negative means the structure would generate power', ['impedanceOhm']),
+    physicalCheck('elementModel.segmentLengthToRadius', m.minLengthToRadius, 'atLeast', 4,
+      'shortest segment over its wire radius (dimensionless); below 4 the reduced thin-wire kernel loses accuracy', ['impedanceOhm', 'patterns']),
+    physicalCheck('elementModel.wireRadius', m.k * m.maxRadiusM, 'atMost', 0.1,
+      `k·a of the thickest wire (a = ${m.maxRadiusM} m, λ = ${lambda.toPrecision(4)} m, dimensionless); above 0.1 circumferential currents matter`, ['impedanceOhm', 'patterns']),
   ];
 }

@@ -70,6 +70,18 @@ describe('LU', () => {
     expect(g.rcond).toBeLessThan(1e-9);
     expect(g.rcond).toBeGreaterThan(1e-11);
   });
+  it('blocked factorisation: a zero column past the first panel is found exactly; det matches the column-scaled product', () => {
+    // Column 100 of a 130×130 random matrix set to zero: rank-deficient, found as an exactly zero pivot
+    // after the trailing products of two panels. Scaling column j by cⱼ scales det by cⱼ (multilinearity).
+    const a = randomMatrix(130, 130, 77);
+    const z = { rows: 130, cols: 130, data: a.data.slice() };
+    for (let i = 0; i < 130; i++) { z.data[2 * (i * 130 + 100)] = 0; z.data[2 * (i * 130 + 100) + 1] = 0; }
+    expect(luFactor(z).singular).toBe(true);
+    const scaled = { rows: 130, cols: 130, data: a.data.slice() };
+    for (let i = 0; i < 130; i++) { scaled.data[2 * (i * 130 + 90)] *= 2; scaled.data[2 * (i * 130 + 90) + 1] *= 2; }
+    const l0 = logDeterminant(a), l1 = logDeterminant(scaled);
+    expect(Math.abs(l1.logAbs - l0.logAbs - Math.log(2))).toBeLessThan(1e-10);
+  });
   it('bad input: non-square, empty, NaN, wrong right-hand side', () => {
     expect(() => luFactor(zeros(2, 3))).toThrow(DimensionError);
     expect(() => luFactor(zeros(0, 0))).toThrow(DimensionError);
@@ -119,5 +131,31 @@ describe('Cholesky', () => {
     expect(() => choleskyFactor(fromRows([[2, 1], [0, 2]]))).toThrow(DomainError);
     expect(() => choleskyFactor({ rows: 1, cols: 1, data: Float64Array.of(NaN, 0) })).toThrow(DomainError);
     expect(() => choleskyFactor(zeros(2, 1))).toThrow(DimensionError);
+  });
+});
+
+describe('blocked Cholesky (order ≥ 257)', () => {
+  it('reproduces A = L Lᴴ to 1e-13 at N = 600 and 257 and flags the same failed pivot as the unblocked order would', async () => {
+    const { choleskyFactor } = await import('../../src/linalg/cholesky.js');
+    const { multiply, adjoint, hermitianPart } = await import('../../src/linalg/ops.js');
+    const { randomMatrix } = await import('../helpers/matchers.js');
+    for (const n of [600, 257]) {
+      const g = randomMatrix(n, n, n);
+      const a = hermitianPart(multiply(g, adjoint(g)));
+      for (let i = 0; i < n; i++) a.data[2 * (i * n + i)] += 1;
+      const f = choleskyFactor(a);
+      expect(f.positiveDefinite).toBe(true);
+      const r = multiply(f.l, adjoint(f.l));
+      let worst = 0, big = 0;
+      for (let k = 0; k < a.data.length; k++) { worst = Math.max(worst, Math.abs(r.data[k] - a.data[k])); big = Math.max(big, Math.abs(a.data[k])); }
+      expect(worst).toBeLessThan(1e-13 * big);
+      for (let i = 0; i < n; i++) for (let j = i + 1; j < n; j++) expect(f.l.data[2 * (i * n + j)]).toBe(0);
+      // indefinite: the leading 200×200 block is positive definite, entry 200 breaks it
+      const b = { rows: n, cols: n, data: a.data.slice() };
+      b.data[2 * (200 * n + 200)] = -1e6;
+      const fb = choleskyFactor(b);
+      expect(fb.positiveDefinite).toBe(false);
+      expect(fb.failedPivot).toBe(200);
+    }
   });
 });

@@ -63,6 +63,13 @@ describe('wire input validation', () => {
     expect(Math.abs(pr - (100 * xl * xl) / den)).toBeLessThan(1e-9);
     expect(Math.abs(px - (100 * 100 * xl) / den)).toBeLessThan(1e-9);
   });
+  it('thin-wire limits broken but not rejected: reported as failed checks and warnings', () => {
+    // segments 2 radii long (limit 4, common practice for the reduced kernel) and k·a = 0.19 (limit 0.1)
+    const s = solveWires({ wires: [wire([0, 0, -0.25], [0, 0, 0.25], 0.03, 8)], ports: [{ wire: 0 }] }, F);
+    const failed = s.checks.filter((c) => !c.passed).map((c) => c.name).sort();
+    expect(failed).toEqual(['elementModel.segmentLengthToRadius', 'elementModel.wireRadius']);
+    expect(s.warnings.length).toBe(2);
+  });
   it('bad frequency, segment option and port index', () => {
     const d: WireStructure = { wires: [wire([0, 0, -0.25], [0, 0, 0.25])], ports: [{ wire: 0 }] };
     expect(() => solveWires(d, 0)).toThrow(DomainError);
