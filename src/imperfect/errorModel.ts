@@ -45,6 +45,17 @@ export interface SubarrayErrors {
 }
 
 /**
+ * Random element-position errors, independent per axis and element.
+ * @category Imperfect
+ */
+export interface PositionErrors {
+  /** Distribution of each coordinate's error. */
+  readonly distribution: ErrorDistribution;
+  /** Standard deviation per axis [σx, σy, σz] [m], each ≥ 0. */
+  readonly rms: Vector3;
+}
+
+/**
  * Random errors of an array's channels and element positions. Every error is
  * zero-mean and independent of every other; a channel's complex gain is
  * g = (1 + δ)·e^{jφ} times, for position errors Δr, the extra path phase
@@ -57,7 +68,7 @@ export interface RandomErrorModel {
   /** Element-level phase error φ [rad]. @defaultValue none */
   readonly phaseRad?: RandomDeviation;
   /** Element position error, one standard deviation per axis x, y, z [m]. @defaultValue none */
-  readonly positionM?: { readonly distribution: ErrorDistribution; readonly rms: Vector3 };
+  readonly positionM?: PositionErrors;
   /** Errors correlated within subarrays. @defaultValue none */
   readonly subarray?: SubarrayErrors;
 }

@@ -24,9 +24,48 @@ import {
  * points u² + v² ≤ 1 are used, front hemisphere).
  * @category Imperfect
  */
-export type MonteCarloPatternPath =
-  | { readonly kind: 'directions'; readonly layout: ArrayLayout; readonly directions: Float64Array }
-  | { readonly kind: 'fftGrid'; readonly grid: RectangularGridSpec; readonly sizeU: number; readonly sizeV?: number };
+export type MonteCarloPatternPath = DirectionSetPath | FftGridPath;
+
+/**
+ * Pattern on an arbitrary direction set, any layout (direct sum, {@link arrayFactor}).
+ * @category Imperfect
+ */
+export interface DirectionSetPath {
+  /** Tag. */
+  readonly kind: 'directions';
+  /** Nominal element positions [m]. */
+  readonly layout: ArrayLayout;
+  /** M unit vectors, xyz-interleaved. */
+  readonly directions: Float64Array;
+}
+
+/**
+ * Pattern of a uniform rectangular grid on its natural u-v grid by FFT ({@link fftGridArrayFactor}).
+ * @category Imperfect
+ */
+export interface FftGridPath {
+  /** Tag. */
+  readonly kind: 'fftGrid';
+  /** Counts and spacings of the grid (element index iy·countX + ix). */
+  readonly grid: RectangularGridSpec;
+  /** FFT length P along u, a power of two ≥ countX. */
+  readonly sizeU: number;
+  /** FFT length Q along v, a power of two ≥ countY. @defaultValue sizeU */
+  readonly sizeV?: number;
+}
+
+/**
+ * Per-direction 5/50/95 % bands of the relative power.
+ * @category Imperfect
+ */
+export interface PercentileBands {
+  /** 5th percentile per direction. */
+  readonly p5: Float64Array;
+  /** Median per direction. */
+  readonly p50: Float64Array;
+  /** 95th percentile per direction. */
+  readonly p95: Float64Array;
+}
 
 /**
  * Options of {@link monteCarloErrorPatterns}.
@@ -85,7 +124,7 @@ export interface MonteCarloErrorResult {
   /** Per-trial directivity ratio D/D₀ with D ∝ |AF(r̂₀)|²/Σ|wₙgₙ|² (see {@link randomErrorFigures}). */
   readonly directivityRatio: TrialPercentiles;
   /** Per-direction percentile bands of the relative power (present when `bands` was requested). */
-  readonly bands?: { readonly p5: Float64Array; readonly p50: Float64Array; readonly p95: Float64Array };
+  readonly bands?: PercentileBands;
 }
 
 /** Percentile by linear interpolation between order statistics (numpy's default rule). */
@@ -255,7 +294,7 @@ export function monteCarloErrorPatterns(
     meanSide[t] = sum / sideCount;
   }
   for (let j = 0; j < m; j++) meanPower[j] /= trials;
-  let bands: MonteCarloErrorResult['bands'];
+  let bands: PercentileBands | undefined;
   if (store) {
     const p5 = new Float64Array(m), p50 = new Float64Array(m), p95 = new Float64Array(m);
     for (let j = 0; j < m; j++) {
