@@ -12,7 +12,7 @@ import {
   beamSnr, interferenceRejection, whiteNoiseGain,
   simulateSnapshots, sampleCorrelation, estimateSourceCount, musicSpectrum, caponSpectrum, findSpectrumPeaks, rootMusic,
   deterministicCramerRaoBound,
-} from '../src/index.js';
+} from 'phasewise';
 
 const frequencyHz = 1.5e9;
 const spacingM = wavelengthM(frequencyHz) / 2;

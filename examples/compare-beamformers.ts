@@ -12,7 +12,7 @@ import {
   rectangularGridLayout, unitVectorFromAngles, steeringVector, wavelengthM, add, multiply, adjoint, scale, identity,
   concatColumns, hadamard, fromParts, conjugateFieldWeights, maxSnrWeights, projectionWeights, beamSnr,
   interferenceRejection, whiteNoiseGain, dolphChebyshevTaper, separableTaper, powerToDb, degToRad,
-} from '../src/index.js';
+} from 'phasewise';
 
 const f = 2.25e9, d = wavelengthM(f) / 2;
 const layout = rectangularGridLayout({ countX: 4, countY: 4, spacingXM: d, spacingYM: d });

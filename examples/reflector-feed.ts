@@ -5,7 +5,7 @@
  * Scenario (our own): a 6 m, f/D = 0.45 dish for a 4.8 GHz radiometer.
  * Run: npx tsx examples/reflector-feed.ts
  */
-import { paraboloidReflector, cosinePowerFeed, feedEfficiencies, secondaryPatternsPhysicalOptics, analyticFeedSource, powerToDb } from '../src/index.js';
+import { paraboloidReflector, cosinePowerFeed, feedEfficiencies, secondaryPatternsPhysicalOptics, analyticFeedSource, powerToDb } from 'phasewise';
 
 const dish = paraboloidReflector({ diameterM: 6, focalLengthM: 2.7 });
 let best = { n: 0, aperture: 0 };

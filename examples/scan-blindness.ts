@@ -7,11 +7,7 @@
  * 0.19 λ slab of relative permittivity 2.55, square lattice of 0.5 λ, scanned in the E-plane.
  * Run: npx tsx examples/scan-blindness.ts
  */
-import { rectangularLattice } from '../src/floquet/lattice.js';
-import { infiniteDipoleArray } from '../src/floquet/infinite-dipole-array.js';
-import { findScanBlindness } from '../src/floquet/scan-blindness.js';
-import { groundedSlabSurfaceWaves } from '../src/floquet/surface-waves.js';
-import { wavelengthM, radToDeg, degToRad } from '../src/units/convert.js';
+import { rectangularLattice, infiniteDipoleArray, findScanBlindness, groundedSlabSurfaceWaves, wavelengthM, radToDeg, degToRad } from 'phasewise';
 
 const frequencyHz = 10e9;
 const lambda = wavelengthM(frequencyHz);

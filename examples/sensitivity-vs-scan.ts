@@ -10,8 +10,9 @@
 import {
   dipoleArrayPorts, evaluateReceivingArray, skyAndGroundEnvironment, sphereQuadrature, rectangularGridLayout,
   wavelengthM, degToRad, type WireDipole,
-} from '../src/index.js';
-import { linePlotSvg } from '../src/plot/index.js';
+} from 'phasewise';
+import { linePlotSvg } from 'phasewise/plot';
+import { mkdirSync, writeFileSync } from 'node:fs';
 
 const f = 1.7e9, lambda = wavelengthM(f), d = 0.55 * lambda;
 const layout = rectangularGridLayout({ countX: 3, countY: 3, spacingXM: d, spacingYM: d });
@@ -51,4 +52,6 @@ const svg = linePlotSvg({
     { label: 'H-plane', x: scanDeg, y: result.beams.slice(n).map((b) => b.sensitivityM2PerK) },
   ],
 });
-console.log(`figure: ${svg.length} bytes of SVG`);
+mkdirSync('examples-output', { recursive: true });
+writeFileSync('examples-output/sensitivity-vs-scan.svg', svg);
+console.log('figure written to examples-output/sensitivity-vs-scan.svg');

@@ -5,8 +5,9 @@
  * Scenario (our own): an L-band receiving line array, half-wave spacing at 1.42 GHz.
  * Run: npx tsx examples/taper-and-plot.ts
  */
-import { fromParts, uniformLineLayout, planeCut, evenlySpaced, arrayFactorMagnitude, taylorTaper, uniformTaper, taperEfficiency, linearArrayFigures, wavelengthM, radToDeg, amplitudeToDb } from '../src/index.js';
-import { patternCutSvg } from '../src/plot/index.js';
+import { fromParts, uniformLineLayout, planeCut, evenlySpaced, arrayFactorMagnitude, taylorTaper, uniformTaper, taperEfficiency, linearArrayFigures, wavelengthM, radToDeg, amplitudeToDb } from 'phasewise';
+import { patternCutSvg } from 'phasewise/plot';
+import { mkdirSync, writeFileSync } from 'node:fs';
 
 const frequencyHz = 1.42e9;
 const n = 24;
@@ -31,4 +32,6 @@ const traces = designs.map(({ label, weights }) => {
 });
 
 const svg = patternCutSvg({ traces, floorDb: -60, title: '24-element line array at 1.42 GHz' });
-console.log(`pattern cut SVG: ${svg.length} characters, ${traces.length} traces`);
+mkdirSync('examples-output', { recursive: true });
+writeFileSync('examples-output/taper-and-plot.svg', svg);
+console.log(`pattern cut of ${traces.length} tapers written to examples-output/taper-and-plot.svg`);

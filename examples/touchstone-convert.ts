@@ -7,7 +7,7 @@
  */
 import {
   parseTouchstone, formatTouchstone, convertMultiport, renormalizeMultiport, multiportMatrix, checkPassivity,
-} from '../src/index.js';
+} from 'phasewise';
 
 const text = `! demonstration two-port: a small-signal amplifier stage, 2.1–2.4 GHz
 # GHz S MA R 50

@@ -6,7 +6,7 @@
  * Scenario and numbers are our own invention (a demonstration table, not a real instrument).
  * Run: npx tsx examples/yfactor-reduction.ts
  */
-import { parseYFactorCsv, reduceYFactorTable, yFactorReceiverTemperature, onOffSensitivity, janskyToSi } from '../src/index.js';
+import { parseYFactorCsv, reduceYFactorTable, yFactorReceiverTemperature, onOffSensitivity, janskyToSi } from 'phasewise';
 
 const table = `# demo bench run: powers in dBm from a power meter
 channel,hot,cold

@@ -52,7 +52,8 @@ export function buildProgram(io: { out: (s: string) => void; err: (s: string) =>
     .description('Receiving phased-array calculators and design-file evaluation (phasewise).')
     .version(VERSION, '-V, --version', 'print the version')
     .exitOverride()
-    .configureOutput({ writeOut: io.out, writeErr: io.err })
+    // One error style for every message: "phasewise: error: …" (commander's own errors included).
+    .configureOutput({ writeOut: io.out, writeErr: io.err, outputError: (str, write) => write(`phasewise: ${str}`) })
     .showHelpAfterError(false)
     .addHelpText('after', [
       '',

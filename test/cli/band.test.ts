@@ -179,4 +179,12 @@ describe('phasewise evaluate on a band design', () => {
     expect(r.out).toMatch(/^estimate for a design of 6 elements, 13 beams and 5 frequencies: about .* s on one core, .*peak memory about \d+ MB/);
     expect(existsSync(join(dir, 'dry'))).toBe(false);
   });
+
+  it('every error, commander ones included, has one style: "phasewise: error: …"', async () => {
+    for (const args of [['evaluate', 'x.json'], ['evaluate', join(dir, 'band.json'), '--out', join(dir, 'y'), '--bogus'], ['nonsense'], ['evaluate', join(dir, 'missing.json'), '--out', join(dir, 'y')]]) {
+      const r = await run(args);
+      expect(r.code, args.join(' ')).toBe(2);
+      expect(r.err, args.join(' ')).toMatch(/^phasewise: error: /);
+    }
+  });
 });
