@@ -19,5 +19,6 @@ export * from './measure/index.js';
 export * from './reflector/index.js';
 export * from './floquet/index.js';
 export * from './wire/index.js';
+export * from './imperfect/index.js';
 export * from './design/index.js';
 export { VERSION } from './version.js';
