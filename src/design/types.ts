@@ -114,7 +114,7 @@ export type DesignElements =
     readonly port: Omit<WirePort, 'name'>;
     /** Lumped loads (the wire module's WireLoad, with impedanceOhm a number or {re, im} [Ω]). */
     readonly loads?: ReadonlyArray<Omit<WireLoad, 'impedanceOhm'> & {
-      /** Complex impedance [Ω]. */
+      /** Complex impedance [Ω] (fixed; excludes R, L, C). */
       readonly impedanceOhm?: DesignComplex;
     }>;
     /** Height of the element's origin over a PEC ground plane at z = 0 [m]; no ground plane when absent. */
