@@ -7,7 +7,6 @@
  * @module
  */
 import { gemmKernel } from '../internal/gemm.js';
-import { mirrorLowerToUpper } from '../internal/herk.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
 import type { PortPatternSource, QuadratureDirections } from './patterns.js';
 
@@ -119,7 +118,7 @@ export function displacementStructure(offsetsM: Float64Array): DisplacementStruc
 }
 
 /** Directions per block of the displacement sums. */
-const BLOCK = 256;
+const BLOCK = 1024;
 
 /**
  * Writes exp(+j k·s·vₚ) for p = 0…count−1 into out (interleaved), using a
@@ -172,9 +171,9 @@ export function shiftedBrightnessCorrelations(
   const rowsA = nt * nr;
   const h = new Float64Array(2 * rowsA * nc);
   const gt = new Float64Array(2 * BLOCK), gp = new Float64Array(2 * BLOCK);
-  const a = new Float64Array(2 * rowsA * BLOCK), b = new Float64Array(2 * BLOCK * nc);
+  const a = new Float64Array(2 * nr * BLOCK), b = new Float64Array(2 * BLOCK * nc), px = new Float64Array(2 * BLOCK * nr);
   const ph = new Float64Array(2 * nr);
-  const used = new Int32Array(BLOCK), amp = new Float64Array(nt * BLOCK);
+  const used = new Int32Array(BLOCK), amp = new Float64Array(nt * BLOCK), sig = new Int32Array(BLOCK);
   const stepX = progressionStep(dx);
   const dyOnly = new Float64Array(nc), dzOnly = new Float64Array(nc);
   for (let c = 0; c < nc; c++) { dyOnly[c] = dyz[2 * c]; dzOnly[c] = dyz[2 * c + 1]; }
@@ -183,24 +182,34 @@ export function shiftedBrightnessCorrelations(
   // summed first and each distinct u costs one pass over the rows.
   const lineOnly = nc === 1 && dyz[0] === 0 && dyz[1] === 0;
   const uSum = lineOnly ? new Map<number, Float64Array>() : null;
+  const groupMaps = nt <= 30;
   for (let start = 0; start < m; start += BLOCK) {
     const count = Math.min(BLOCK, m - start);
     let any = false;
     for (let t = 0; t < nt && !any; t++) for (let j = 0; j < count; j++) if (q.weightSr[start + j] * maps[t][start + j] > 0) { any = true; break; }
     if (!any) continue;
     shifted.element.fill(q.thetaRad, q.phiRad, start, count, gt, gp, BLOCK);
+    // used directions, ordered by which maps they feed (their signature), so that each map's
+    // directions form contiguous groups and no product is spent on zero amplitudes
+    const tmpAmp = new Float64Array(nt * count), tmpSig = new Int32Array(count);
     let nu = 0;
     for (let j = 0; j < count; j++) {
       const g2 = gt[2 * j] ** 2 + gt[2 * j + 1] ** 2 + gp[2 * j] ** 2 + gp[2 * j + 1] ** 2;
-      let keep = false;
+      let bits = 0;
       for (let t = 0; t < nt; t++) {
         const v = q.weightSr[start + j] * maps[t][start + j] * g2;
-        amp[t * BLOCK + nu] = v;
-        if (v > 0) keep = true;
+        tmpAmp[t * count + j] = v;
+        if (v > 0) bits |= groupMaps ? 1 << t : 1;
       }
-      if (keep) used[nu++] = j;
+      tmpSig[j] = bits;
+      if (bits !== 0) used[nu++] = j;
     }
     if (nu === 0) continue;
+    const order = Array.from(used.subarray(0, nu)).sort((x, y) => tmpSig[x] - tmpSig[y] || x - y);
+    for (let e = 0; e < nu; e++) {
+      used[e] = order[e]; sig[e] = tmpSig[order[e]];
+      for (let t = 0; t < nt; t++) amp[t * BLOCK + e] = tmpAmp[t * count + order[e]];
+    }
     if (uSum !== null) {
       for (let e = 0; e < nu; e++) {
         const j = start + used[e];
@@ -216,20 +225,29 @@ export function shiftedBrightnessCorrelations(
       const j = start + used[e];
       const st = Math.sin(q.thetaRad[j]);
       const u = st * Math.cos(q.phiRad[j]), v = st * Math.sin(q.phiRad[j]), w = Math.cos(q.thetaRad[j]);
-      phases(ph, 0, 2, k * u, dx, stepX);
-      for (let t = 0; t < nt; t++) {
-        const av = amp[t * BLOCK + e];
-        for (let r = 0; r < nr; r++) {
-          const d = 2 * ((t * nr + r) * nu + e);
-          a[d] = av * ph[2 * r]; a[d + 1] = av * ph[2 * r + 1];
-        }
-      }
+      phases(px, 2 * e * nr, 2, k * u, dx, stepX);
       for (let c = 0; c < nc; c++) {
         const arg = k * (v * dyOnly[c] + w * dzOnly[c]);
         b[2 * (e * nc + c)] = Math.cos(arg); b[2 * (e * nc + c) + 1] = Math.sin(arg);
       }
     }
-    gemmKernel(rowsA, nc, nu, a, 0, nu, b, 0, nc, h, 0, nc, true);
+    // one product per (signature group, map of that group): H_t += A_t,g · B_g
+    for (let g0 = 0; g0 < nu;) {
+      let g1 = g0 + 1;
+      while (g1 < nu && sig[g1] === sig[g0]) g1++;
+      const width = g1 - g0;
+      for (let t = 0; t < nt; t++) {
+        if (groupMaps && (sig[g0] & (1 << t)) === 0) continue;
+        for (let r = 0; r < nr; r++) {
+          for (let e = 0; e < width; e++) {
+            const av = amp[t * BLOCK + g0 + e], src = 2 * ((g0 + e) * nr + r), d = 2 * (r * width + e);
+            a[d] = av * px[src]; a[d + 1] = av * px[src + 1];
+          }
+        }
+        gemmKernel(nr, nc, width, a, 0, width, b, g0 * nc, nc, h, t * nr * nc, nc, true);
+      }
+      g0 = g1;
+    }
   }
   if (uSum !== null) {
     for (const acc of uSum.values()) {
@@ -242,19 +260,20 @@ export function shiftedBrightnessCorrelations(
       }
     }
   }
-  // fill the lower triangles from the displacement table, then mirror
-  return maps.map((_, t) => {
-    const out = new Float64Array(2 * n * n);
-    const base = t * nr;
-    for (let i = 0; i < n; i++) {
-      const rx = s.ix[i] * s.ux, ry = s.iyz[i] * s.uyz;
-      for (let j = 0; j <= i; j++) {
-        const cell = 2 * ((base + s.rowOf[rx + s.ix[j]]) * nc + s.colOf[ry + s.iyz[j]]);
-        out[2 * (i * n + j)] = scale * h[cell];
-        out[2 * (i * n + j) + 1] = scale * h[cell + 1];
+  // fill both triangles of every map from the displacement table in one pass over the pairs
+  const outs = maps.map(() => new Float64Array(2 * n * n));
+  const ix = s.ix, iyz = s.iyz, rowOf = s.rowOf, colOf = s.colOf, ux = s.ux, uyz = s.uyz;
+  for (let i = 0; i < n; i++) {
+    const rx = ix[i] * ux, ry = iyz[i] * uyz;
+    for (let j = 0; j <= i; j++) {
+      const cell = rowOf[rx + ix[j]] * nc + colOf[ry + iyz[j]];
+      const lo = 2 * (i * n + j), up = 2 * (j * n + i);
+      for (let t = 0; t < nt; t++) {
+        const c = 2 * (t * nr * nc + cell), re = scale * h[c], im = i === j ? 0 : scale * h[c + 1];
+        const o = outs[t];
+        o[lo] = re; o[lo + 1] = im; o[up] = re; o[up + 1] = -im;
       }
     }
-    mirrorLowerToUpper(n, out);
-    return { rows: n, cols: n, data: out };
-  });
+  }
+  return outs.map((data) => ({ rows: n, cols: n, data }));
 }
