@@ -4,6 +4,7 @@
  * Units are in the field names; docs/design.md describes every field.
  * @module
  */
+import type { WireLoad, WirePort, WireSpec } from '../wire/types.js';
 
 /**
  * A complex value in a design file: a real number or `{re, im}`.
@@ -107,37 +108,13 @@ export type DesignElements =
   | {
     /** Discriminator: "wire". */
     readonly kind: 'wire';
-    /** The element's wires in its own coordinates (as the wire module's WireSpec) [m]. */
-    readonly wires: ReadonlyArray<{
-      /** Points of the polyline [m], at least two. */
-      readonly pointsM: ReadonlyArray<readonly [number, number, number]>;
-      /** Wire radius [m]. */
-      readonly radiusM: number;
-      /** Segments of the whole wire. @defaultValue from maxSegmentWavelengths */
-      readonly segments?: number;
-    }>;
-    /** The element's one port: wire index and arc-length fraction. */
-    readonly port: {
-      /** Wire index. */
-      readonly wire: number;
-      /** Position along the wire, 0…1. @defaultValue 0.5 */
-      readonly atFraction?: number;
-    };
-    /** Lumped loads (as the wire module's WireLoad; impedanceOhm a number or {re, im} [Ω]). */
-    readonly loads?: ReadonlyArray<{
-      /** Wire index. */
-      readonly wire: number;
-      /** Position along the wire, 0…1. @defaultValue 0.5 */
-      readonly atFraction?: number;
-      /** Resistance [Ω]. */
-      readonly resistanceOhm?: number;
-      /** Inductance [H]. */
-      readonly inductanceH?: number;
-      /** Capacitance [F]. */
-      readonly capacitanceF?: number;
-      /** Series or parallel R, L, C. @defaultValue "series" */
-      readonly connection?: 'series' | 'parallel';
-      /** Complex impedance [Ω]. */
+    /** The element's wires in its own coordinates (the wire module's WireSpec) [m]. */
+    readonly wires: ReadonlyArray<WireSpec>;
+    /** The element's one port: wire index and arc-length fraction (the wire module's WirePort, unnamed). */
+    readonly port: Omit<WirePort, 'name'>;
+    /** Lumped loads (the wire module's WireLoad, with impedanceOhm a number or {re, im} [Ω]). */
+    readonly loads?: ReadonlyArray<Omit<WireLoad, 'impedanceOhm'> & {
+      /** Complex impedance [Ω] (fixed; excludes R, L, C). */
       readonly impedanceOhm?: DesignComplex;
     }>;
     /** Height of the element's origin over a PEC ground plane at z = 0 [m]; no ground plane when absent. */
