@@ -22,10 +22,38 @@ import type { PortPatternSource, SampledPortPatterns } from '../reception/patter
  * termination), or in the input impedance of its (dead) amplifier.
  * @category Imperfect
  */
-export type FailedPortTermination =
-  | { readonly kind: 'open' }
-  | { readonly kind: 'matched'; /** Reference resistance [Ω], > 0. @defaultValue 50 */ readonly referenceOhm?: number }
-  | { readonly kind: 'amplifierInput'; /** Input impedance of the failed amplifier [Ω]. */ readonly impedanceOhm: ComplexLike };
+export type FailedPortTermination = OpenTermination | MatchedTermination | AmplifierInputTermination;
+
+/**
+ * A failed port left open (no current flows).
+ * @category Imperfect
+ */
+export interface OpenTermination {
+  /** Tag. */
+  readonly kind: 'open';
+}
+
+/**
+ * A failed port closed in a matched (reference) resistance.
+ * @category Imperfect
+ */
+export interface MatchedTermination {
+  /** Tag. */
+  readonly kind: 'matched';
+  /** Reference resistance [Ω], > 0. @defaultValue 50 */
+  readonly referenceOhm?: number;
+}
+
+/**
+ * A failed port closed in the input impedance of its dead amplifier.
+ * @category Imperfect
+ */
+export interface AmplifierInputTermination {
+  /** Tag. */
+  readonly kind: 'amplifierInput';
+  /** Input impedance of the failed amplifier [Ω]. */
+  readonly impedanceOhm: ComplexLike;
+}
 
 /**
  * The remaining array after failures (an {@link ArrayPorts} of the working

@@ -6,7 +6,7 @@ export type { RoundingRule, QuantizeWeightsOptions, QuantizationLobe, DigitalWei
 export { quantizeWeights, phaseQuantizationLobes, digitalWeightFigures, roundDigitalWeights } from './quantization.js';
 export type { SubarrayLayout, SteeringHardware, SquintPoint } from './subarrays.js';
 export { gridSubarrays, bandSteeringWeights, beamSquint } from './subarrays.js';
-export type { FailedPortTermination, FailedArrayPorts } from './failures.js';
+export type { FailedPortTermination, OpenTermination, MatchedTermination, AmplifierInputTermination, FailedArrayPorts } from './failures.js';
 export { randomFailures, failedArrayPorts } from './failures.js';
-export type { BeamJones } from './polarization.js';
+export type { BeamJones, CrossPolarRatios } from './polarization.js';
 export { beamJonesMatrices, intrinsicCrossPolarizationRatio, jonesCrossPolarRatios } from './polarization.js';

@@ -156,6 +156,17 @@ export function intrinsicCrossPolarizationRatio(jones: Float64Array, reference?:
 }
 
 /**
+ * Cross- over co-polar power ratios of the two beams of a Jones field (linear), per direction.
+ * @category Imperfect
+ */
+export interface CrossPolarRatios {
+  /** Beam X: |J₀₁|²/|J₀₀|². */
+  readonly x: Float64Array;
+  /** Beam Y: |J₁₀|²/|J₁₁|². */
+  readonly y: Float64Array;
+}
+
+/**
  * Ludwig-3 cross-polar ratio of each beam of a Jones field: |J₀₁|²/|J₀₀|² for beam X and
  * |J₁₀|²/|J₁₁|² for beam Y (cross over co power, linear; Ludwig 1973 definition 3, from memory).
  * @param jones - 8 values per direction (see {@link BeamJones}).
@@ -163,7 +174,7 @@ export function intrinsicCrossPolarizationRatio(jones: Float64Array, reference?:
  * @throws {@link DimensionError} / {@link DomainError} for malformed input.
  * @category Imperfect
  */
-export function jonesCrossPolarRatios(jones: Float64Array): { readonly x: Float64Array; readonly y: Float64Array } {
+export function jonesCrossPolarRatios(jones: Float64Array): CrossPolarRatios {
   const m = assertJones(jones), x = new Float64Array(m), y = new Float64Array(m);
   for (let k = 0; k < m; k++) {
     const o = 8 * k;
