@@ -32,7 +32,7 @@ for (let i = 0; i < prepared.frequenciesHz.length; i++) {
     amplifiers: prepared.amplifiersAt?.(f), loss: 'lossless', physicalTemperatureK: d.environment.physicalTemperatureK ?? 290,
     beams: { thetaRad: prepared.beams.thetaRad, phiRad: prepared.beams.phiRad }, physicalAreaM2: d.physicalAreaM2,
   });
-  for (const [k, v] of Object.entries(ev.timingsMs)) sum[k] += v;
+  for (const [k, v] of Object.entries(ev.timingsMs)) sum[k] = (sum[k] ?? 0) + v;
   t = performance.now();
   evaluateDesignFrequency(prepared, i);
   const whole = performance.now() - t;

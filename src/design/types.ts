@@ -4,6 +4,7 @@
  * Units are in the field names; docs/design.md describes every field.
  * @module
  */
+import type { WireLoad } from '../wire/types.js';
 
 /**
  * A complex value in a design file: a real number or `{re, im}`.
@@ -124,20 +125,8 @@ export type DesignElements =
       readonly atFraction?: number;
     };
     /** Lumped loads (as the wire module's WireLoad; impedanceOhm a number or {re, im} [Ω]). */
-    readonly loads?: ReadonlyArray<{
-      /** Wire index. */
-      readonly wire: number;
-      /** Position along the wire, 0…1. @defaultValue 0.5 */
-      readonly atFraction?: number;
-      /** Resistance [Ω]. */
-      readonly resistanceOhm?: number;
-      /** Inductance [H]. */
-      readonly inductanceH?: number;
-      /** Capacitance [F]. */
-      readonly capacitanceF?: number;
-      /** Series or parallel R, L, C. @defaultValue "series" */
-      readonly connection?: 'series' | 'parallel';
-      /** Complex impedance [Ω]. */
+    readonly loads?: ReadonlyArray<Omit<WireLoad, 'impedanceOhm'> & {
+      /** Complex impedance [Ω] (fixed; excludes R, L, C). */
       readonly impedanceOhm?: DesignComplex;
     }>;
     /** Height of the element's origin over a PEC ground plane at z = 0 [m]; no ground plane when absent. */

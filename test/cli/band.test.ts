@@ -6,18 +6,9 @@ import { describe, it, expect, beforeAll } from 'vitest';
 import { mkdtempSync, readFileSync, writeFileSync, existsSync, readdirSync, mkdirSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { runCli } from '../../src/cli/main.js';
+import { runCapture } from '../helpers/cli.js';
 
-async function run(args: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '', err = '';
-  const code = await runCli(args, { out: (s) => { out += s; }, err: (s) => { err += s; } });
-  // Exit 0 means trustworthy: a written report of a successful run has no failed physical check.
-  const o = args.indexOf('--out');
-  if (code === 0 && o >= 0 && !args.includes('--accept-failed-checks') && existsSync(join(args[o + 1], 'figures.json'))) {
-    expect(JSON.parse(readFileSync(join(args[o + 1], 'figures.json'), 'utf8')).failedChecks, `exit 0 with failed checks: ${args.join(' ')}`).toEqual([]);
-  }
-  return { code, out, err };
-}
+const run = runCapture;
 
 const F0 = 1.4e9, L0 = 299792458 / F0;
 function bandDesign(title = 'band line'): Record<string, unknown> {

@@ -3,7 +3,7 @@ import { mkdtempSync, readFileSync, writeFileSync, existsSync, readdirSync } fro
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { XMLValidator } from 'fast-xml-parser';
-import { runCli } from '../../src/cli/main.js';
+import { runCapture } from '../helpers/cli.js';
 import { parseDesign } from '../../src/design/schema.js';
 import {
   dipoleArrayPorts, evaluateReceivingArray, patternSetPorts, skyAndGroundEnvironment,
@@ -19,16 +19,7 @@ import { identity } from '../../src/linalg/cmatrix.js';
 import { add, scale, subtract } from '../../src/linalg/ops.js';
 import { solve } from '../../src/linalg/lu.js';
 
-async function run(args: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '', err = '';
-  const code = await runCli(args, { out: (s) => { out += s; }, err: (s) => { err += s; } });
-  // Exit 0 means trustworthy: a written report of a successful run has no failed physical check.
-  const o = args.indexOf('--out');
-  if (code === 0 && o >= 0 && !args.includes('--accept-failed-checks') && existsSync(join(args[o + 1], 'figures.json'))) {
-    expect(JSON.parse(readFileSync(join(args[o + 1], 'figures.json'), 'utf8')).failedChecks, `exit 0 with failed checks: ${args.join(' ')}`).toEqual([]);
-  }
-  return { code, out, err };
-}
+const run = runCapture;
 
 const F = 1.5e9, LAMBDA = 299792458 / F;
 const D = 0.5 * LAMBDA, L = 0.47 * LAMBDA, A = LAMBDA / 300, H = LAMBDA / 4;
