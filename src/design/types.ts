@@ -4,7 +4,7 @@
  * Units are in the field names; docs/design.md describes every field.
  * @module
  */
-import type { WireLoad } from '../wire/types.js';
+import type { WireLoad, WirePort, WireSpec } from '../wire/types.js';
 
 /**
  * A complex value in a design file: a real number or `{re, im}`.
@@ -108,23 +108,11 @@ export type DesignElements =
   | {
     /** Discriminator: "wire". */
     readonly kind: 'wire';
-    /** The element's wires in its own coordinates (as the wire module's WireSpec) [m]. */
-    readonly wires: ReadonlyArray<{
-      /** Points of the polyline [m], at least two. */
-      readonly pointsM: ReadonlyArray<readonly [number, number, number]>;
-      /** Wire radius [m]. */
-      readonly radiusM: number;
-      /** Segments of the whole wire. @defaultValue from maxSegmentWavelengths */
-      readonly segments?: number;
-    }>;
-    /** The element's one port: wire index and arc-length fraction. */
-    readonly port: {
-      /** Wire index. */
-      readonly wire: number;
-      /** Position along the wire, 0…1. @defaultValue 0.5 */
-      readonly atFraction?: number;
-    };
-    /** Lumped loads (as the wire module's WireLoad; impedanceOhm a number or {re, im} [Ω]). */
+    /** The element's wires in its own coordinates (the wire module's WireSpec) [m]. */
+    readonly wires: ReadonlyArray<WireSpec>;
+    /** The element's one port: wire index and arc-length fraction (the wire module's WirePort, unnamed). */
+    readonly port: Omit<WirePort, 'name'>;
+    /** Lumped loads (the wire module's WireLoad, with impedanceOhm a number or {re, im} [Ω]). */
     readonly loads?: ReadonlyArray<Omit<WireLoad, 'impedanceOhm'> & {
       /** Complex impedance [Ω] (fixed; excludes R, L, C). */
       readonly impedanceOhm?: DesignComplex;

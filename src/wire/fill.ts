@@ -18,10 +18,9 @@ const pair = new Float64Array(8);
  * segment's half-mode). For p = q the block is built from the upper triangle
  * of segment pairs and mirrored, so it is exactly symmetric.
  */
-function placementBlock(m: PlacedModel, p: number, q: number): Float64Array {
+function placementBlock(m: PlacedModel, p: number, q: number, blk: Float64Array = new Float64Array(2 * m.basis.count * m.basis.count)): Float64Array {
   const S = m.template.segmentCount, L = m.basis.count;
   const { halfStart, halfBasis, halfSign } = m.basis;
-  const blk = new Float64Array(2 * L * L);
   for (let s = 0; s < S; s++) {
     for (let t = p === q ? s : 0; t < S; t++) {
       pair.fill(0);
@@ -72,6 +71,12 @@ export interface FillStats {
 export function fillImpedanceMatrix(m: PlacedModel, stats?: FillStats): CMatrix {
   const P = m.placements, L = m.basis.count, n = P * L;
   const z = new Float64Array(2 * n * n);
+  if (P === 1) {
+    // one placement: the block is the matrix, filled in place
+    placementBlock(m, 0, 0, z);
+    if (stats) { stats.blocksComputed = 1; stats.blocksUsed = 1; }
+    return { rows: n, cols: n, data: z };
+  }
   const cache = new Map<string, Float64Array>();
   const quantum = 1e-9 * (2 * Math.PI / m.k);
   let computed = 0;
