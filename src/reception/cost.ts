@@ -56,16 +56,16 @@ export interface EvaluationCost {
 
 // Measured on the development machine (2-core x86-64, Node 20, WebAssembly SIMD), one core:
 // seconds per unit of work. Recorded in docs/reception.md ("What it costs"); re-measure with
-// bench/reception/scale.bench.ts when the kernels change.
+// bench/reception/scale.bench.ts when the kernels change. Busy machines are slower in proportion to the load.
 const T_PATTERN = 1.8e-7; // one dipole far-field sample (with ground image), per port·direction
 const T_HERK = 3.6e-10; // one complex multiply–add of the blocked rank-k update, per N²·M and map
-const T_CUBE_CHOL = 4.5e-10; // Cholesky, per N³
+const T_CUBE_CHOL = 1.7e-10; // blocked Cholesky, per N³
 const T_CUBE_HERK = 4.0e-10; // Z Σ Zᴴ rank-N update, per N³
 const T_CUBE_INV = 1.45e-9; // LU and inverse, per N³
 const T_CUBE_GEMM = 5.6e-10; // complex product, per N³
 const T_SQUARE = 3e-9; // one scalar pass over an N×N matrix (Lanczos step, fills), per N²
 const T_IMPEDANCE = 2.7e-7; // induced-EMF table fill (reused integrals), per N²
-const T_DISPLACEMENT = 1.2e-8; // one plane-wave term of the displacement sums, per displacement·direction
+const T_DISPLACEMENT = 1e-9; // one multiply–add of the displacement sums (SIMD product), per displacement cell·direction·map
 
 /** Number of N×N complex matrices alive at the peak of an evaluation (budget, factors, inverse, kernel buffers). */
 const PEAK_MATRICES = 22;
