@@ -315,6 +315,19 @@ export interface DesignSphereRule {
 }
 
 /**
+ * Estimated cost of band frequencies of a design.
+ * @category Design
+ */
+export interface DesignCostEstimate {
+  /** Time on one core summed over the frequencies [s] (model constants from the development machine, ±50 %). */
+  readonly totalS: number;
+  /** Peak memory of the largest frequency [bytes]. */
+  readonly peakBytes: number;
+  /** Per-frequency estimates, in the order of the indices. */
+  readonly perFrequency: EvaluationCost[];
+}
+
+/**
  * Estimated cost of evaluating band frequencies of a design (reception module's
  * evaluationCost per frequency, from the port, direction and beam counts).
  * @param prepared - The prepared design.
@@ -322,7 +335,7 @@ export interface DesignSphereRule {
  * @returns Time on one core [s] summed over the frequencies, the peak memory of one frequency [bytes], and the per-frequency estimates.
  * @category Design
  */
-export function estimateDesignCost(prepared: PreparedDesign, indices?: readonly number[]): { totalS: number; peakBytes: number; perFrequency: EvaluationCost[] } {
+export function estimateDesignCost(prepared: PreparedDesign, indices?: readonly number[]): DesignCostEstimate {
   const idx = indices ?? Array.from(prepared.frequenciesHz, (_, i) => i);
   const perFrequency = idx.map((i) => {
     // Node counts only: the rule itself is not built (it may be what does not fit).
