@@ -21,6 +21,7 @@ import {
 } from '../reception/index.js';
 import type { Design } from './schema.js';
 import { fieldError } from './schema.js';
+import { designImperfectionFigures, type DesignImperfectionFigures } from './imperfections.js';
 import {
   designEnvironmentAt, designPortsAt, prepareDesign, scanPlaneDirections,
   type PrepareDesignOptions, type PreparedDesign,
@@ -230,6 +231,8 @@ export interface DesignEvaluation {
     /** The circles of the lattice's grating lobes. */
     readonly circles: GratingCircle[];
   };
+  /** Figures of the design's imperfections block (present when the design has one). */
+  readonly imperfections?: DesignImperfectionFigures;
   /** Per-frequency results, in band order. */
   readonly frequencies: FrequencyEvaluation[];
   /** Band summary per beam. */
@@ -526,6 +529,8 @@ export function assembleDesignEvaluation(prepared: PreparedDesign, frequencies: 
     bandSummary,
     failedChecks: frequencies.flatMap((r) => r.checks.filter((c) => !c.passed).map((c) => ({ ...c, frequencyHz: r.frequencyHz }))),
   };
+  const imperfections = designImperfectionFigures(p);
+  if (imperfections) out.imperfections = imperfections;
   if (p.lattice) {
     const fMax = band[band.length - 1];
     const maxScan = Math.max(...Array.from(b.thetaRad, (t) => Math.sin(t)));

@@ -1,6 +1,6 @@
 export type {
   Design, DesignComplex, DesignFrequencies, DesignLayout, DesignElements, DesignBackEnd, DesignAmplifiers,
-  DesignEnvironment, DesignTaper, DesignBeamsSpec,
+  DesignEnvironment, DesignTaper, DesignBeamsSpec, DesignRandomErrors, DesignImperfections,
 } from './types.js';
 export { parseDesign, validateDesign } from './schema.js';
 export type { DesignFileReader } from './bandData.js';
@@ -10,3 +10,5 @@ export type {
   DesignBeamFigures, DesignPatternCut, UsedNoiseParameters, ActiveReflectionTrace, FailedCheck, DesignSphereRule, DesignCostEstimate, DesignEvaluationBeams, GratingCircle, FrequencyEvaluation, BeamBandSummary, DesignEvaluation, EvaluateDesignOptions,
 } from './evaluate.js';
 export { evaluateDesign, evaluateDesignFrequency, assembleDesignEvaluation, frequencyBlock, designQuadratureAt, estimateDesignCost } from './evaluate.js';
+export type { DesignImperfectionFigures, DesignImperfectionBeam } from './imperfections.js';
+export { designImperfectionFigures } from './imperfections.js';

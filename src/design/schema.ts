@@ -217,6 +217,18 @@ const report = z.strictObject({
   frequenciesHz: z.array(positive('Hz')).min(1).max(20).optional(),
 });
 
+const imperfections = z.strictObject({
+  errors: z.strictObject({
+    distribution: z.enum(['gaussian', 'uniform']).optional(),
+    amplitudeDb: z.number().min(0).max(10).optional(),
+    phaseDeg: z.number().min(0).max(180).optional(),
+    positionM: z.number().min(0).max(10).optional(),
+  }).optional(),
+  phaseBits: z.number().int().min(1).max(16).optional(),
+  weightBits: z.number().int().min(2).max(32).optional(),
+  steering: z.enum(['phase', 'elementDelay']).optional(),
+});
+
 const quadrature = z.strictObject({
   thetaCount: z.number().int().min(2).max(2000),
   phiCount: z.number().int().min(2).max(4000),
@@ -234,6 +246,7 @@ export const designSchema = z.strictObject({
   beams,
   physicalAreaM2: positive('m²').optional(),
   quadrature: quadrature.optional(),
+  imperfections: imperfections.optional(),
   report: report.optional(),
 });
 

@@ -263,6 +263,37 @@ export interface DesignBeamsSpec {
 }
 
 /**
+ * Random errors of a design's channels (zero-mean, independent per element).
+ * @category Design
+ */
+export interface DesignRandomErrors {
+  /** Distribution of every error. @defaultValue 'gaussian' */
+  readonly distribution?: 'gaussian' | 'uniform';
+  /** RMS amplitude error [dB] (relative amplitude error δ = 10^(dB/20) − 1). */
+  readonly amplitudeDb?: number;
+  /** RMS phase error [deg]. */
+  readonly phaseDeg?: number;
+  /** RMS position error per axis [m]. */
+  readonly positionM?: number;
+}
+
+/**
+ * Hardware imperfections of a design: random errors, phase-shifter and digital-weight bits,
+ * and how the beams are steered across the band (docs/imperfect.md).
+ * @category Design
+ */
+export interface DesignImperfections {
+  /** Random amplitude, phase and position errors. */
+  readonly errors?: DesignRandomErrors;
+  /** Phase-shifter bits k, 1 … 16. */
+  readonly phaseBits?: number;
+  /** Digital weight word length per real component, 2 … 32. */
+  readonly weightBits?: number;
+  /** Steering hardware across the band: phase shifters set at the band centre, or true time delay per element. @defaultValue 'phase' */
+  readonly steering?: 'phase' | 'elementDelay';
+}
+
+/**
  * A validated design file.
  * @category Design
  */
@@ -292,6 +323,8 @@ export interface Design {
     /** Uniform nodes in φ. */
     readonly phiCount: number;
   };
+  /** Hardware imperfections: random errors, bits, steering hardware. */
+  readonly imperfections?: DesignImperfections;
   /** Frequencies [Hz] the report draws cuts, maps and Smith charts at (nearest band points). */
   readonly report?: {
     /** Frequencies [Hz]. @defaultValue the lowest, centre and highest band points */

@@ -162,5 +162,27 @@ export function reportFigureList(ev: DesignEvaluation): ReportFigure[] {
       svg: gratingLobeDiagramSvg({ title: 'Grating-lobe diagram (u-v plane)', scanRadius: ev.gratingLobes.maxScanSinTheta, gratingCircles: ev.gratingLobes.circles.map((c) => ({ u: c.u, v: c.v, radius: c.radius })) }),
     });
   }
+  const imp = ev.imperfections;
+  if (imp && band) {
+    const traces = shown.map((k) => ({ label: beamLabel(ev, k), x: fx, y: imp.beams[k].pointingErrorDeg.map((v) => (v === null ? NaN : v)) }));
+    out.push({
+      file: 'beam-squint.svg',
+      caption: `Beam pointing error across the band (deg), ${imp.steering === 'phase' ? `phase shifters set at ${Number((imp.designFrequencyHz * scale).toPrecision(7))} ${unit}` : 'true time delay per element'}.`,
+      svg: linePlotSvg({ title: 'Beam squint across the band', xLabel: `frequency [${unit}]`, yLabel: 'pointing error [deg]', traces }),
+    });
+  }
+  if (imp && imp.beams.some((b) => b.sidelobeFloorDb !== undefined || b.weightSidelobeFloorDb !== undefined)) {
+    const x = imp.beams.map((_, k) => (ev.beams.kind === 'plane' && ev.beams.scanAngleDeg ? ev.beams.scanAngleDeg[k] : k));
+    const traces = [
+      ...(imp.beams[0].sidelobeFloorDb !== undefined ? [{ label: 'random-error floor', x, y: imp.beams.map((b) => b.sidelobeFloorDb as number) }] : []),
+      ...(imp.beams[0].weightSidelobeFloorDb !== undefined ? [{ label: 'digital-weight floor', x, y: imp.beams.map((b) => b.weightSidelobeFloorDb as number) }] : []),
+      ...(imp.phaseQuantizationLobeDb !== undefined ? [{ label: 'phase-quantisation lobe', x, y: imp.beams.map(() => imp.phaseQuantizationLobeDb as number) }] : []),
+    ];
+    out.push({
+      file: 'imperfection-floors.svg',
+      caption: `Expected sidelobe floors and the largest phase-quantisation lobe relative to the beam peak (dB), closed forms at ${Number((imp.designFrequencyHz * scale).toPrecision(7))} ${unit} for phase-steered equal-amplitude weights.`,
+      svg: linePlotSvg({ title: 'Imperfection floors', xLabel: ev.beams.kind === 'plane' ? 'scan angle [deg]' : 'beam index', yLabel: 'level re beam peak [dB]', traces }),
+    });
+  }
   return out;
 }
