@@ -2,3 +2,11 @@ export type { ErrorDistribution, RandomDeviation, SubarrayErrors, RandomErrorMod
 export { expectedErrorPattern, randomErrorFigures } from './errorModel.js';
 export type { MonteCarloPatternPath, DirectionSetPath, FftGridPath, PercentileBands, MonteCarloOptions, TrialPercentiles, MonteCarloErrorResult } from './monteCarlo.js';
 export { monteCarloErrorPatterns } from './monteCarlo.js';
+export type { RoundingRule, QuantizeWeightsOptions, QuantizationLobe, DigitalWeightFigures } from './quantization.js';
+export { quantizeWeights, phaseQuantizationLobes, digitalWeightFigures, roundDigitalWeights } from './quantization.js';
+export type { SubarrayLayout, SteeringHardware, SquintPoint } from './subarrays.js';
+export { gridSubarrays, bandSteeringWeights, beamSquint } from './subarrays.js';
+export type { FailedPortTermination, OpenTermination, MatchedTermination, AmplifierInputTermination, FailedArrayPorts } from './failures.js';
+export { randomFailures, failedArrayPorts } from './failures.js';
+export type { BeamJones, CrossPolarRatios } from './polarization.js';
+export { beamJonesMatrices, intrinsicCrossPolarizationRatio, jonesCrossPolarRatios } from './polarization.js';
