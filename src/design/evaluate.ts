@@ -16,7 +16,8 @@ import { activeReflection } from '../network/sources.js';
 import { powerToDb, radToDeg, wavenumberRadPerM } from '../units/convert.js';
 import {
   beamPowerPatterns, evaluateReceivingArray, gainOverTemperatureDbPerK, matchedFieldWeightsUnpolarized, samplePatterns,
-  systemEquivalentFluxDensityJy, evaluationCost, type BeamFigures, type EvaluationCost,
+  systemEquivalentFluxDensityJy, evaluationCost, adaptiveSphereRule, type AdaptiveSphereRule, type ArrayPortSource, type BeamFigures,
+  type EvaluationCost, type NoiseEnvironment,
 } from '../reception/index.js';
 import type { Design } from './schema.js';
 import { fieldError } from './schema.js';
@@ -133,13 +134,26 @@ export interface FrequencyEvaluation {
   readonly skyK: number;
   /** Amplifier noise parameters used (back end folded in), absent for noiseless receivers. */
   readonly amplifiers?: UsedNoiseParameters;
-  /** Sphere rule of the noise integrals (θ × φ nodes). */
+  /** Sphere rule of the noise integrals. */
   readonly quadrature: {
-    /** Gauss–Legendre nodes in θ. */
+    /**
+     * `'design'`: the design's own θ × φ rule; `'adaptive'`: the reception module's adaptive rule
+     * (split at the horizon, tilted horizon and ground plane, sized from the elements and their
+     * images); `'layout'`: a product rule sized for the layout (elements without geometry).
+     */
+    readonly kind: 'design' | 'adaptive' | 'layout';
+    /** Gauss–Legendre nodes in θ (before any split). */
     readonly thetaCount: number;
-    /** Uniform nodes in φ. */
+    /** Nodes in φ (before any split). */
     readonly phiCount: number;
+    /** Directions of the rule. */
+    readonly directionCount: number;
   };
+  /**
+   * Integration error of every figure of every beam: |figure on this rule − figure on a refined
+   * adaptive rule|, in the figure's unit (empty objects when the elements carry no geometry).
+   */
+  readonly integrationErrors: Array<Partial<Record<keyof BeamFigures, number>>>;
   /** Figures per beam, in beam order. */
   readonly beams: DesignBeamFigures[];
   /** The array's minimum receiver temperature T_rec,min [K]; null when its check failed (see `checks`). */
@@ -272,16 +286,32 @@ export function shownBeams(p: PreparedDesign): number[] {
 
 /**
  * The sphere rule of the noise integrals at one band frequency: the design's own
- * `quadrature`, or one sized for the layout at f (geometry's sphereQuadratureForLayout,
- * tolerance 1e-6).
+ * `quadrature`; else the reception module's adaptive rule (`'adaptive'`) when the ports carry
+ * their geometry (dipoles, wire elements); else a product rule sized for the layout at f
+ * (geometry's sphereQuadratureForLayout, tolerance 1e-6) for imported data.
  * @param prepared - The prepared design.
  * @param frequencyHz - Frequency [Hz].
- * @returns The rule.
+ * @param ports - The ports at f (their geometry, when present, sizes the adaptive rule).
+ * @param environment - The environment at f (its edges split the adaptive rule).
+ * @returns The rule and its kind.
  * @category Design
  */
-export function designQuadratureAt(prepared: PreparedDesign, frequencyHz: number): SphereQuadrature {
+export function designQuadratureAt(prepared: PreparedDesign, frequencyHz: number, ports: ArrayPortSource, environment: NoiseEnvironment): DesignSphereRule {
   const q = prepared.design.quadrature;
-  return q ? sphereQuadrature(q.thetaCount, q.phiCount) : sphereQuadratureForLayout(prepared.layout, frequencyHz, { tolerance: 1e-6 });
+  if (q) return { kind: 'design', rule: sphereQuadrature(q.thetaCount, q.phiCount) };
+  if (ports.geometry) return { kind: 'adaptive', rule: adaptiveSphereRule(ports.geometry, frequencyHz, { edgeNormals: environment.edgeNormals }) };
+  return { kind: 'layout', rule: sphereQuadratureForLayout(prepared.layout, frequencyHz, { tolerance: 1e-6 }) };
+}
+
+/**
+ * The sphere rule a design uses at one frequency, and which kind it is.
+ * @category Design
+ */
+export interface DesignSphereRule {
+  /** Where the rule comes from (see FrequencyEvaluation.quadrature). */
+  readonly kind: 'design' | 'adaptive' | 'layout';
+  /** The rule: directions [rad], weights [sr] and its node counts. */
+  readonly rule: SphereQuadrature | AdaptiveSphereRule;
 }
 
 /**
@@ -329,7 +359,8 @@ export function evaluateDesignFrequency(prepared: PreparedDesign, index: number)
   const f = p.frequenciesHz[index];
   const ports = designPortsAt(p, f);
   const { environment, skyK } = designEnvironmentAt(p, f);
-  const quadrature = designQuadratureAt(p, f);
+  const sphere = designQuadratureAt(p, f, ports, environment);
+  const quadrature = sphere.rule;
   const amplifiers = p.amplifiersAt?.(f);
   const kind = d.beams.beamformer ?? 'max-snr';
   const beams = { thetaRad: p.beams.thetaRad, phiRad: p.beams.phiRad };
@@ -357,7 +388,8 @@ export function evaluateDesignFrequency(prepared: PreparedDesign, index: number)
   }));
   const out: { -readonly [K in keyof FrequencyEvaluation]: FrequencyEvaluation[K] } = {
     frequencyHz: f, skyK,
-    quadrature: { thetaCount: quadrature.thetaCount, phiCount: quadrature.phiCount },
+    quadrature: { kind: sphere.kind, thetaCount: quadrature.thetaCount, phiCount: quadrature.phiCount, directionCount: ev.quadrature.thetaRad.length },
+    integrationErrors: ev.integrationErrors,
     beams: beamRows,
     minimumReceiverTemperatureK: Number.isFinite(ev.minimumReceiverTemperatureK) ? ev.minimumReceiverTemperatureK : null,
     embeddedElementEfficiency: Array.from(ev.embeddedElementEfficiency),

@@ -7,6 +7,6 @@ export type { DesignFileReader } from './bandData.js';
 export type { DesignBeams, PreparedDesign, PrepareDesignOptions, DesignEnvironmentAt } from './build.js';
 export { prepareDesign, designPortsAt, designEnvironmentAt, scanPlaneDirections } from './build.js';
 export type {
-  DesignBeamFigures, DesignPatternCut, UsedNoiseParameters, ActiveReflectionTrace, FailedCheck, DesignEvaluationBeams, GratingCircle, FrequencyEvaluation, BeamBandSummary, DesignEvaluation, EvaluateDesignOptions,
+  DesignBeamFigures, DesignPatternCut, UsedNoiseParameters, ActiveReflectionTrace, FailedCheck, DesignSphereRule, DesignEvaluationBeams, GratingCircle, FrequencyEvaluation, BeamBandSummary, DesignEvaluation, EvaluateDesignOptions,
 } from './evaluate.js';
 export { evaluateDesign, evaluateDesignFrequency, assembleDesignEvaluation, frequencyBlock, designQuadratureAt, estimateDesignCost } from './evaluate.js';

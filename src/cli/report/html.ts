@@ -34,6 +34,13 @@ function tableHtml(header: readonly string[], rows: ReadonlyArray<readonly strin
     rows.map((r) => `<tr>${r.map((c) => `<td>${esc(c)}</td>`).join('')}</tr>`).join('')}</tbody></table>`;
 }
 
+/** The largest integration error of T_sys over the beams (refinement on a finer adaptive rule), as text. */
+function worstIntegrationError(r: DesignEvaluation['frequencies'][number]): string {
+  let worst = -1;
+  r.integrationErrors.forEach((e, k) => { if (e.systemTemperatureK !== undefined) worst = Math.max(worst, e.systemTemperatureK / r.beams[k].systemTemperatureK); });
+  return worst < 0 ? '' : ` (integration error of T_sys ≤ ${worst.toExponential(1)} relative)`;
+}
+
 /** A banner listing every failed physical check: the figures they name are not trustworthy. */
 function failedBanner(ev: DesignEvaluation): string {
   const f = ev.failedChecks;
@@ -70,7 +77,7 @@ export function reportHtml(ev: DesignEvaluation, figures: readonly ReportFigure[
       num(b.radiationEfficiency, 4), num(b.spilloverEfficiency, 4), ...(hasAp ? [num(b.apertureEfficiency as number, 4)] : []), num(b.noiseMatchingEfficiency ?? NaN, 4),
     ]);
     const header = ['beam', 'T_sys [K]', 'T_rec [K]', 'T_sky [K]', 'T_spill [K]', 'A_e [m²]', 'A_e/T_sys [m²/K]', 'G/T [dB/K]', 'SEFD [Jy]', 'gain [dBi]', 'η_rad', 'η_sp', ...(hasAp ? ['η_ap'] : []), 'η_nm'];
-    return `<h3>${num(r.frequencyHz * scale, 7)} ${unit} · sky ${num(r.skyK, 4)} K · T_rec,min ${r.minimumReceiverTemperatureK === null ? 'not computed (failed check)' : `${num(r.minimumReceiverTemperatureK, 5)} K`} · sphere rule ${r.quadrature.thetaCount} × ${r.quadrature.phiCount}</h3>\n${tableHtml(header, rows)}`;
+    return `<h3>${num(r.frequencyHz * scale, 7)} ${unit} · sky ${num(r.skyK, 4)} K · T_rec,min ${r.minimumReceiverTemperatureK === null ? 'not computed (failed check)' : `${num(r.minimumReceiverTemperatureK, 5)} K`} · sphere rule: ${r.quadrature.kind}, ${r.quadrature.directionCount} directions${worstIntegrationError(r)}</h3>\n${tableHtml(header, rows)}`;
   }).join('\n');
   const figs = figures.map((f) => `<figure>${f.svg}<figcaption>${esc(f.caption)}</figcaption></figure>`).join('\n');
   return `<!DOCTYPE html>
