@@ -4,7 +4,9 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { XMLValidator } from 'fast-xml-parser';
 import { runCapture } from '../helpers/cli.js';
-import { parseDesign } from '../../src/design/schema.js';
+import { parseDesign, validateDesign } from '../../src/design/schema.js';
+import { designPortsAt, prepareDesign } from '../../src/design/build.js';
+import { demoDesign } from '../../src/cli/commands/demo.js';
 import {
   dipoleArrayPorts, evaluateReceivingArray, patternSetPorts, skyAndGroundEnvironment,
 } from '../../src/reception/index.js';
@@ -371,8 +373,38 @@ describe('phasewise demo', () => {
     // Grating-lobe diagram: 0.6 λ triangular lattice, the nearest grating circle centre lies 1/(0.6·sin 60°) from the origin.
     const c = j.gratingLobes.circles[0];
     expect(Math.hypot(c.u, c.v)).toBeCloseTo(1 / (0.6 * Math.sin(Math.PI / 3)), 3);
+    // The amplifiers are noise-matched to the broadside active admittance, so broadside has the best
+    // noise match and the best A_e/T_sys (Warnick & Jensen 2007, from memory), and the report says why.
+    const nm = b.map((x: { noiseMatchingEfficiency: number }) => x.noiseMatchingEfficiency);
+    const s = b.map((x: { sensitivityM2PerK: number }) => x.sensitivityM2PerK);
+    const mid = j.beams.scanAngleDeg.indexOf(0);
+    expect(nm[mid]).toBe(Math.max(...nm));
+    expect(nm[mid]).toBeGreaterThan(0.95);
+    expect(s[mid]).toBe(Math.max(...s));
+    const html = readFileSync(join(out, 'report.html'), 'utf8');
+    expect(b[mid].apertureEfficiency).toBeGreaterThan(1);
+    expect(html).toContain('Why η_ap exceeds 1');
+    expect(html).toContain('noise-matching efficiency is highest at beam at 0°');
     // The README's figure is this run's pattern cut, byte for byte (regenerate with `npm run docs:figures`).
     expect(readFileSync(join(out, 'pattern-cut.svg'), 'utf8')).toBe(readFileSync(join(__dirname, '../../docs/figures/demo-pattern.svg'), 'utf8'));
+  });
+
+  it('the showcase designs take Y_opt from the broadside active admittance, mean of 1/Σ_j Z_ij (to the 2 digits given)', () => {
+    const file = join(__dirname, '../../examples/designs/l-band-feed.json');
+    const designs = [validateDesign(demoDesign(), 'demo-design.json'), parseDesign(readFileSync(file, 'utf8'), file)];
+    for (const d of designs) {
+      const p = prepareDesign(d);
+      const z = designPortsAt(p, p.frequenciesHz[0]).impedanceOhm, n = z.rows;
+      let g = 0, bb = 0;
+      for (let i = 0; i < n; i++) {
+        let re = 0, im = 0;
+        for (let k = 0; k < n; k++) { re += z.data[2 * (i * n + k)]; im += z.data[2 * (i * n + k) + 1]; }
+        g += re / (re * re + im * im) / n; bb += -im / (re * re + im * im) / n;
+      }
+      const y = (d.amplifiers as { optimumSourceAdmittanceS: { re: number; im: number } }).optimumSourceAdmittanceS;
+      expect(Math.abs(y.re - g)).toBeLessThan(0.00006);
+      expect(Math.abs(y.im - bb)).toBeLessThan(0.00006);
+    }
   });
 
   it('the sample design file shipped in examples/designs is valid', () => {

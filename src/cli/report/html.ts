@@ -52,6 +52,35 @@ function failedBanner(ev: DesignEvaluation): string {
 ${tableHtml([`frequency [${unit}]`, 'check', 'value', 'limit', 'figures affected', 'meaning'], rows)}${f.length > 40 ? `<p>… and ${f.length - 40} more (figures.json lists all).</p>` : ''}</section>`;
 }
 
+/**
+ * Notes that explain figures a reader may take for an error, each written only
+ * when the evaluation's data show the effect: aperture efficiency above one,
+ * and where the noise match (and with it A_e/T_sys) is best across the beams.
+ * @internal
+ */
+function explanationNotes(ev: DesignEvaluation): string {
+  const { scale, unit } = frequencyUnit(ev);
+  const notes: string[] = [];
+  let apMax = -Infinity, apAt = '';
+  for (const r of ev.frequencies) {
+    r.beams.forEach((b, k) => {
+      if (b.apertureEfficiency !== undefined && b.apertureEfficiency > apMax) { apMax = b.apertureEfficiency; apAt = beamLabel(ev, k); }
+    });
+  }
+  if (apMax > 1) {
+    notes.push(`<p class="note"><strong>Why η_ap exceeds 1</strong> (up to ${num(apMax, 4)}, ${esc(apAt)}): the aperture efficiency is A_e divided by the stated physical area (N cells of the lattice). The edge elements of a finite array over an infinite ground plane collect power from beyond the edge of the N cells (their effective areas reach past the array's outline), so against N cells the efficiency exceeds one, by about 0.24/n for uniform weights and n elements across, and tends to one as the array grows (docs/reception.md, notes under the worked example). ${ev.failedChecks.length === 0 ? 'It is not an energy error: the energy, Twiss and passivity checks of this evaluation passed.' : 'Check the failed checks listed above before relying on it.'}</p>`);
+  }
+  const r0 = ev.frequencies[ev.reportFrequencyIndices[0] ?? 0];
+  const nm = r0.beams.map((b) => b.noiseMatchingEfficiency);
+  if (r0.amplifiers && nm.every((x): x is number => x !== undefined) && nm.length > 1) {
+    let best = 0, worst = 0;
+    nm.forEach((x, k) => { if (x > nm[best]) best = k; if (x < nm[worst]) worst = k; });
+    const y = r0.amplifiers.optimumSourceAdmittanceS;
+    notes.push(`<p class="note"><strong>Noise match across the beams</strong> (${num(r0.frequencyHz * scale, 6)} ${unit}): each amplifier sees its element's active impedance, which changes with the beam direction, so the amplifiers are noise-matched for one beam only. With Y_opt = ${num(y.re, 4)} ${y.im < 0 ? '−' : '+'} j${num(Math.abs(y.im), 4)} S the noise-matching efficiency is highest at ${esc(beamLabel(ev, best))} (η_nm ${num(nm[best], 4)}) and lowest at ${esc(beamLabel(ev, worst))} (η_nm ${num(nm[worst], 4)}); T_rec and A_e/T_sys follow it. Choose Y_opt equal to the array's active admittance where the beam is used most (for broadside, 1/Σ_j Z_ij averaged over the elements; Warnick and Jensen, IEEE Trans. Antennas Propag. 55(6), 2007).</p>`);
+  }
+  return notes.join('\n');
+}
+
 /** Renders the report page. @internal */
 export function reportHtml(ev: DesignEvaluation, figures: readonly ReportFigure[], designText: string): string {
   const { scale, unit } = frequencyUnit(ev);
@@ -97,6 +126,7 @@ ${bandTable}
 <h2>Figures of merit per beam${fl.length > 1 ? ' at the report frequencies' : ''}</h2>
 ${fl.length > 1 ? `<p class="note">Tables at ${ev.reportFrequencyIndices.length} of the ${fl.length} band frequencies; figures.json holds every frequency.</p>` : ''}
 ${perFrequency}
+${explanationNotes(ev)}
 <p class="note">These are engineering estimates from the models named in the design; check them against measurements before relying on them.</p>
 <h2>Design file</h2>
 <pre>${esc(designText)}</pre>
