@@ -82,7 +82,7 @@ export function viewNetwork(text: string, portsHint?: number): Multiport | undef
     const diag = pairs.map((pr, p) => [pr, p] as const).filter(([[i, j]]) => i === j).slice(0, 4);
     const z0 = s.referenceOhm[0];
     byId('network-smith').innerHTML = smithChartSvg({
-      traces: diag.map(([pr, p]) => ({ label: label(pr), gammaRe: re[p], gammaIm: im[p] })),
+      traces: diag.map(([pr, p]) => ({ label: label(pr), gammaRe: re[p], gammaIm: im[p], startLabel: `${Number(fGHz[0].toPrecision(4))} GHz`, endLabel: `${Number(fGHz[fCount - 1].toPrecision(4))} GHz` })),
       z0Ohm: z0, widthPx: 330, heightPx: 330,
     });
     const magDb = pairs.map((_, p) => Array.from(re[p], (x, k) => Math.max(20 * Math.log10(Math.hypot(x, im[p][k])), -80)));

@@ -5,7 +5,7 @@
  */
 import { DimensionError, DomainError } from '../errors.js';
 import { assertFinite, assertNonNegative, assertPositive } from '../internal/validate.js';
-import { type PlotFrameOptions, checkSeries, clipId, fmt, makeArea, openSvg, resolveFrame, drawAxes } from './svg.js';
+import { type PlotFrameOptions, checkSeries, clipId, fmt, makeArea, openSvg, resolveFrame, drawAxes, legendBoxSvg, legendSize, type LegendEntry } from './svg.js';
 
 /**
  * A circle in the u-v plane (direction-cosine space).
@@ -41,9 +41,10 @@ export interface GratingLobeDiagramOptions extends PlotFrameOptions {
  * circles of a lattice and the required scan region; a grating lobe enters
  * visible space for any scan inside the region that also lies inside a
  * grating circle (Mailloux, *Phased Array Antenna Handbook*, 2nd ed., 2005,
- * §2.1, from memory). Overlaps are drawn, not computed here.
+ * §2.1, from memory). Overlaps are drawn, not computed here. A legend under
+ * the axes (the SVG is made taller for it) names the three kinds of circle.
  * @param options - Circles, scan region and frame options.
- * @returns SVG markup with `<circle class="visible">`, `<circle class="grating">` (one per entry) and `<circle class="scan-region">`.
+ * @returns SVG markup with `<ellipse class="visible">`, `<ellipse class="grating">` (one per entry), `<ellipse class="scan-region">` and a `<g class="legend">`.
  * @throws `DomainError` on negative radii or a scan radius above 1.
  * @category Plots
  */
@@ -55,7 +56,13 @@ export function gratingLobeDiagramSvg(options: GratingLobeDiagramOptions): strin
   if (!Array.isArray(options.gratingCircles)) throw new DimensionError('invalid argument "gratingCircles": expected an array of {u, v, radius}.');
   const f = resolveFrame(options, { width: 480, height: 480 });
   const a = makeArea({ ...f, width: Math.min(f.width, f.height + f.fontSize * 3) }, [-ext, ext], [-ext, ext], false);
-  const parts = [openSvg(f, 'grating-lobe diagram'), drawAxes(f, a, 'u', 'v', 5, 5)];
+  const legend: LegendEntry[] = [
+    { label: 'visible region (sin θ = 1)', color: '#1f5f8b' },
+    { label: `scan region (sin θ ≤ ${Number(options.scanRadius.toPrecision(3))})`, color: '#3f8f5a', area: 0.18 },
+    { label: 'grating-lobe circles (lattice images)', color: '#c2423f', area: 0.06, dash: '5 3' },
+  ];
+  const extra = Math.ceil(legendSize(f, legend).h + 6);
+  const parts = [openSvg({ ...f, height: f.height + extra }, 'grating-lobe diagram'), drawAxes(f, a, 'u', 'v', 5, 5)];
   const sx = (x: number) => a.x(x), sy = (y: number) => a.y(y);
   const rx = (r: number) => Math.abs(a.x(r) - a.x(0)), ry = (r: number) => Math.abs(a.y(r) - a.y(0));
   const clip = clipId('gl-area', [a.left, a.top, a.right - a.left, a.bottom - a.top]);
@@ -68,7 +75,9 @@ export function gratingLobeDiagramSvg(options: GratingLobeDiagramOptions): strin
   });
   parts.push(`<ellipse class="visible" cx="${fmt(sx(0))}" cy="${fmt(sy(0))}" rx="${fmt(rx(1))}" ry="${fmt(ry(1))}" fill="none" stroke="#1f5f8b" stroke-width="1.8"/>`);
   parts.push(`<ellipse class="scan-region" data-radius="${options.scanRadius}" cx="${fmt(sx(0))}" cy="${fmt(sy(0))}" rx="${fmt(rx(options.scanRadius))}" ry="${fmt(ry(options.scanRadius))}" fill="#3f8f5a" fill-opacity="0.18" stroke="#3f8f5a"/>`);
-  parts.push('</g></svg>');
+  parts.push('</g>');
+  parts.push(legendBoxSvg(f, a.left, f.height, legend));
+  parts.push('</svg>');
   return parts.join('');
 }
 

@@ -169,12 +169,17 @@ export function drawAxes(f: Frame, a: Area, xLabel: string, yLabel: string, xTic
   return parts.join('');
 }
 
-/** How a legend entry is drawn: its colour, an optional dash pattern and marker. @internal */
+/**
+ * How a legend entry is drawn: its colour, an optional dash pattern and marker, or (`area`) a
+ * filled swatch for a region. @internal
+ */
 export interface LegendEntry {
   label: string;
   color: string;
   dash?: string;
   marker?: 'circle' | 'square';
+  /** Fill opacity of a region swatch (a filled rectangle instead of a line). */
+  area?: number;
 }
 
 /** A marker glyph centred at (x, y). @internal */
@@ -182,6 +187,40 @@ export function markerSvg(kind: 'circle' | 'square', x: number, y: number, color
   return kind === 'circle'
     ? `<circle class="${cls}" cx="${fmt(x)}" cy="${fmt(y)}" r="3" fill="#ffffff" stroke="${color}" stroke-width="1.5"/>`
     : `<rect class="${cls}" x="${fmt(x - 3)}" y="${fmt(y - 3)}" width="6" height="6" fill="${color}" stroke="${color}"/>`;
+}
+
+/** Width and height [px] of a legend box for the entries. @internal */
+export function legendSize(f: Frame, entries: readonly LegendEntry[]): { w: number; h: number } {
+  return { w: Math.max(...entries.map((e) => e.label.length)) * f.fontSize * 0.6 + f.fontSize * 3, h: f.fontSize * 1.4 * entries.length + 6 };
+}
+
+/** A legend box with its top-left corner at (x0, y0): one mark and label per entry. @internal */
+export function legendBoxSvg(f: Frame, x0: number, y0: number, entries: readonly LegendEntry[]): string {
+  const { w, h } = legendSize(f, entries);
+  const lh = f.fontSize * 1.4;
+  const parts = [`<g class="legend"><rect class="legend-box" x="${fmt(x0)}" y="${fmt(y0)}" width="${fmt(w)}" height="${fmt(h)}" fill="#ffffff" fill-opacity="0.9" stroke="#c5cad1"/>`];
+  entries.forEach((e, i) => {
+    const y = y0 + 3 + lh * (i + 0.5);
+    const x1 = x0 + 6, x2 = x0 + 6 + f.fontSize * 1.6;
+    if (e.area !== undefined) {
+      parts.push(`<rect class="legend-mark" x="${fmt(x1)}" y="${fmt(y - f.fontSize * 0.4)}" width="${fmt(x2 - x1)}" height="${fmt(f.fontSize * 0.8)}" fill="${e.color}" fill-opacity="${e.area}" stroke="${e.color}"${e.dash ? ` stroke-dasharray="${e.dash}"` : ''}/>`);
+    } else {
+      parts.push(`<line class="legend-mark" x1="${fmt(x1)}" x2="${fmt(x2)}" y1="${fmt(y)}" y2="${fmt(y)}" stroke="${e.color}" stroke-width="2"${e.dash ? ` stroke-dasharray="${e.dash}"` : ''}/>`);
+    }
+    if (e.marker) parts.push(markerSvg(e.marker, (x1 + x2) / 2, y, e.color, 'legend-marker'));
+    parts.push(`<text x="${fmt(x0 + 10 + f.fontSize * 1.6)}" y="${fmt(y + f.fontSize * 0.35)}" fill="#222">${esc(e.label)}</text>`);
+  });
+  parts.push('</g>');
+  return parts.join('');
+}
+
+/** How many of the points (x, y pairs [px]) lie in the box, with a 3 px margin. @internal */
+export function pointsInBox(px: ArrayLike<number>, x: number, y: number, w: number, h: number): number {
+  let n = 0;
+  for (let i = 0; i + 1 < px.length; i += 2) {
+    if (px[i] >= x - 3 && px[i] <= x + w + 3 && px[i + 1] >= y - 3 && px[i + 1] <= y + h + 3) n++;
+  }
+  return n;
 }
 
 /**
@@ -193,20 +232,14 @@ export function markerSvg(kind: 'circle' | 'square', x: number, y: number, color
  */
 export function placeLegend(f: Frame, a: Area, entries: readonly LegendEntry[], dataPx: ArrayLike<number>): { svg: string; extraHeight: number } {
   if (entries.length < 2) return { svg: '', extraHeight: 0 };
-  const lh = f.fontSize * 1.4;
-  const w = Math.max(...entries.map((e) => e.label.length)) * f.fontSize * 0.6 + f.fontSize * 3;
-  const h = lh * entries.length + 6;
+  const { w, h } = legendSize(f, entries);
   const pad = 6;
   const xs = [a.right - w - pad, a.left + pad, (a.left + a.right - w) / 2];
   const ys = [a.top + pad, a.bottom - h - pad, (a.top + a.bottom - h) / 2];
   let best = { x: xs[0], y: ys[0], n: Infinity };
   for (const y of ys) {
     for (const x of xs) {
-      let n = 0;
-      for (let i = 0; i + 1 < dataPx.length; i += 2) {
-        const px = dataPx[i], py = dataPx[i + 1];
-        if (px >= x - 3 && px <= x + w + 3 && py >= y - 3 && py <= y + h + 3) n++;
-      }
+      const n = pointsInBox(dataPx, x, y, w, h);
       if (n < best.n) best = { x, y, n };
     }
   }
@@ -216,17 +249,7 @@ export function placeLegend(f: Frame, a: Area, entries: readonly LegendEntry[], 
     extraHeight = Math.ceil(h + pad);
     best = { x: (a.left + a.right - w) / 2, y: f.height, n: 0 };
   }
-  const { x: x0, y: y0 } = best;
-  const parts = [`<g class="legend"><rect class="legend-box" x="${fmt(x0)}" y="${fmt(y0)}" width="${fmt(w)}" height="${fmt(h)}" fill="#ffffff" fill-opacity="0.9" stroke="#c5cad1"/>`];
-  entries.forEach((e, i) => {
-    const y = y0 + 3 + lh * (i + 0.5);
-    const x1 = x0 + 6, x2 = x0 + 6 + f.fontSize * 1.6;
-    parts.push(`<line class="legend-mark" x1="${fmt(x1)}" x2="${fmt(x2)}" y1="${fmt(y)}" y2="${fmt(y)}" stroke="${e.color}" stroke-width="2"${e.dash ? ` stroke-dasharray="${e.dash}"` : ''}/>`);
-    if (e.marker) parts.push(markerSvg(e.marker, (x1 + x2) / 2, y, e.color, 'legend-marker'));
-    parts.push(`<text x="${fmt(x0 + 10 + f.fontSize * 1.6)}" y="${fmt(y + f.fontSize * 0.35)}" fill="#222">${esc(e.label)}</text>`);
-  });
-  parts.push('</g>');
-  return { svg: parts.join(''), extraHeight };
+  return { svg: legendBoxSvg(f, best.x, best.y, entries), extraHeight };
 }
 
 /** Base64 of bytes without Node's Buffer (browser-safe). @internal */

@@ -148,14 +148,17 @@ export function reportFigureList(ev: DesignEvaluation): ReportFigure[] {
   const ar = ev.frequencies[centre].activeReflection;
   if (ar) {
     const at = band ? ` at ${fText(ev, centre)}` : '';
+    const nb = ev.beams.thetaDeg.length;
+    const first = beamLabel(ev, 0).replace(/^beam at /, ''), last = beamLabel(ev, nb - 1).replace(/^beam at /, '');
     out.push({
-      file: 'active-reflection.svg', caption: `Active reflection coefficient over the beams${at}, phase-steered transmit excitation, 50 Ω reference.`,
-      svg: smithChartSvg({ title: `Active reflection coefficient over the scan (50 Ω)${at}`, z0Ohm: 50, traces: ar.map((t) => ({ label: t.label, gammaRe: t.re, gammaIm: t.im })) }),
+      file: 'active-reflection.svg',
+      caption: `Active reflection coefficient of ${ar.map((t) => t.label).join(' and ')} over the beams${at} (phase-steered transmit excitation, 50 Ω reference); each locus runs from the filled dot (${first}) to the open ring (${last}).`,
+      svg: smithChartSvg({ title: `Active reflection coefficient over the scan (50 Ω)${at}`, z0Ohm: 50, traces: ar.map((t) => ({ label: t.label, gammaRe: t.re, gammaIm: t.im, startLabel: first, endLabel: last })) }),
     });
   }
   if (ev.gratingLobes) {
     out.push({
-      file: 'grating-lobes.svg', caption: `Grating-lobe diagram at the highest frequency (${fText(ev, ev.frequenciesHz.length - 1)}): scan region and lattice images (direction cosines).`,
+      file: 'grating-lobes.svg', caption: `Grating-lobe diagram at the highest frequency (${fText(ev, ev.frequenciesHz.length - 1)}) in direction cosines u, v: a grating lobe appears for a scan inside the green scan region (sin θ ≤ ${Number(ev.gratingLobes.maxScanSinTheta.toPrecision(3))}) wherever a red lattice-image circle overlaps it; none overlapping means grating-lobe free.`,
       svg: gratingLobeDiagramSvg({ title: 'Grating-lobe diagram (u-v plane)', scanRadius: ev.gratingLobes.maxScanSinTheta, gratingCircles: ev.gratingLobes.circles.map((c) => ({ u: c.u, v: c.v, radius: c.radius })) }),
     });
   }
