@@ -36,6 +36,9 @@ export interface OnOffRow {
 
 function parseCsv(text: string, required: readonly string[]): { rows: Record<string, string>[]; lines: number[] } {
   if (typeof text !== 'string') throw new ParseError(`expected CSV text, received ${typeof text}`);
+  if (!text.split(/\r\n|\n|\r/).some((l) => l.trim() !== '' && !l.trim().startsWith('#'))) {
+    throw new ParseError(`the CSV is empty: expected a header line with the columns ${required.join(', ')} and one data line per row`, 1);
+  }
   const res = Papa.parse<Record<string, string>>(text, { header: true, skipEmptyLines: 'greedy', comments: '#', transformHeader: (h) => h.trim().toLowerCase() });
   if (res.errors.length > 0) {
     const e = res.errors[0];
@@ -142,7 +145,7 @@ export function reduceYFactorTable(rows: readonly YFactorRow[], options: YFactor
     try {
       return { channel: r.channel, ...yFactorReceiverTemperature({ hotPower: r.hot, coldPower: r.cold, hotTemperatureK: options.hotTemperatureK, coldTemperatureK: options.coldTemperatureK, powerScale: options.powerScale }) };
     } catch (e) {
-      if (e instanceof DomainError) throw new DomainError(`row ${i} (channel "${r.channel}"): ${e.message}`);
+      if (e instanceof DomainError) throw new DomainError(`data row ${i + 1} (channel "${r.channel}"): ${e.message}`);
       throw e;
     }
   });
@@ -163,7 +166,7 @@ export function reduceOnOffTable(rows: readonly OnOffRow[], fluxDensityWPerM2Hz:
     try {
       return { beam: r.beam, ...onOffSensitivity({ onPower: r.on, offPower: r.off, fluxDensityWPerM2Hz, corrections }) };
     } catch (e) {
-      if (e instanceof DomainError) throw new DomainError(`row ${i} (beam "${r.beam}"): ${e.message}`);
+      if (e instanceof DomainError) throw new DomainError(`data row ${i + 1} (beam "${r.beam}"): ${e.message}`);
       throw e;
     }
   });

@@ -71,6 +71,12 @@ describe('phasewise yfactor', () => {
     expect(b.err).toContain('line 3');
     const y = await run(['yfactor', join(dir, 'ok.csv'), '--hot-k', '77', '--cold-k', '290']);
     expect(y.code).toBe(2);
+    // An empty file: a plain message on line 1, not the CSV parser's delimiter guess (issue 21).
+    writeFileSync(join(dir, 'empty.csv'), '');
+    const e = await run(['yfactor', join(dir, 'empty.csv'), '--hot-k', '290', '--cold-k', '77']);
+    expect(e.code).toBe(2);
+    expect(e.err).toMatch(/^phasewise: error: line 1: the CSV is empty/);
+    expect(e.err).not.toMatch(/delimit/i);
   });
   it('noise-source form prints the on temperature T0(1 + ENR) it used', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'pw-cli-'));

@@ -155,6 +155,18 @@ describe('measurement tables', () => {
       expect((e as ParseError).line).toBe(4);
     }
     expect(() => reduceYFactorTable([{ channel: 'Q', hot: 1, cold: 2 }], { hotTemperatureK: 295, coldTemperatureK: 77 })).toThrow(/channel "Q"/);
+    // Rows are counted from 1, like lines (issue 21: no "row 0").
+    expect(() => reduceYFactorTable([{ channel: 'P', hot: 2, cold: 1 }, { channel: 'Q', hot: 1, cold: 2 }], { hotTemperatureK: 295, coldTemperatureK: 77 })).toThrow(/^data row 2 \(channel "Q"\)/);
+    expect(() => reduceOnOffTable([{ beam: 'b', on: -1, off: 1 }], janskyToSi(100))).toThrow(/^data row 1 \(beam "b"\)/);
+    // An empty file (or only comments) says so, on line 1, instead of the CSV parser's delimiter message.
+    for (const text of ['', '\n\n', '# only a comment\n']) {
+      try { parseYFactorCsv(text); expect.unreachable(); } catch (e) {
+        expect(e).toBeInstanceOf(ParseError);
+        expect((e as ParseError).message).toMatch(/the CSV is empty: expected a header line with the columns channel, hot, cold/);
+        expect((e as ParseError).message).not.toMatch(/delimit/);
+        expect((e as ParseError).line).toBe(1);
+      }
+    }
     expect(() => reduceYFactorTable([{ channel: 'Q', hot: -1, cold: 2 }], { hotTemperatureK: 295, coldTemperatureK: 77 })).toThrow(DomainError);
   });
   it('reads files in the Node entry', () => {
