@@ -77,6 +77,12 @@ describe('phasewise yfactor', () => {
     expect(e.code).toBe(2);
     expect(e.err).toMatch(/^phasewise: error: line 1: the CSV is empty/);
     expect(e.err).not.toMatch(/delimit/i);
+    // Non-positive linear powers point a CLI user to --db, not to the library option.
+    writeFileSync(join(dir, 'neg.csv'), 'channel,hot,cold\nA,-2,-5\n');
+    const n = await run(['yfactor', join(dir, 'neg.csv'), '--hot-k', '290', '--cold-k', '77']);
+    expect(n.code).toBe(2);
+    expect(n.err).toContain('pass --db for decibel readings');
+    expect(n.err).not.toContain('powerScale');
   });
   it('noise-source form prints the on temperature T0(1 + ENR) it used', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'pw-cli-'));

@@ -6,10 +6,17 @@
 import { noiseSourceOnTemperature, reduceYFactorTable, type YFactorTableResult } from '../../measure/index.js';
 import { readYFactorCsv } from '../../measure/node.js';
 import { num, table } from '../format.js';
+import { DomainError } from '../../errors.js';
 
 /** Reduces a table file. @internal */
 export function runYFactor(path: string, hotTemperatureK: number, coldTemperatureK: number, db: boolean): YFactorTableResult[] {
-  return reduceYFactorTable(readYFactorCsv(path), { hotTemperatureK, coldTemperatureK, powerScale: db ? 'dB' : 'linear' });
+  try {
+    return reduceYFactorTable(readYFactorCsv(path), { hotTemperatureK, coldTemperatureK, powerScale: db ? 'dB' : 'linear' });
+  } catch (e) {
+    // Command-line users set the power scale with --db, not the library's option name.
+    if (e instanceof DomainError) throw new DomainError(e.message.replace(/powerScale: 'dB'/g, '--db'));
+    throw e;
+  }
 }
 
 /** A noise source's setting as the reduction used it. @internal */
