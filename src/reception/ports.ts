@@ -263,7 +263,8 @@ export interface HertzianDipolePortsOptions {
  * @param dipoles - The N elements (position [m], axis, length L [m]).
  * @param frequencyHz - Frequency [Hz], > 0.
  * @param options - Ground plane, drive current, reactance.
- * @returns Pattern source and Z [Ω].
+ * @returns Pattern source (with the displacement description when the elements are identical,
+ *   and one height over ground), Z [Ω] and the element positions.
  * @throws {@link DomainError} for bad elements, an element at or below the ground plane or bad options;
  *   {@link DimensionError} for a reactance matrix of the wrong size.
  * @example
@@ -308,39 +309,47 @@ export function hertzianDipolePorts(dipoles: ReadonlyArray<HertzianDipole>, freq
       z.data[2 * q + 1] = x.data[2 * q];
     }
   }
-  const sources = geo.flatMap((g) => (plane ? [g, imageGeometry(g, plane)] : [g]));
-  const per = plane ? 2 : 1;
+  const fillFor = (list: ReadonlyArray<DipoleGeometry>): PortPatternSource['fill'] => hertzianFill(list.flatMap((g) => (plane ? [g, imageGeometry(g, plane)] : [g])), plane ? 2 : 1, plane !== undefined, k, i0);
+  const shifted = shiftedDipoles(geo, plane, (g, th, ph, start, count, outTheta, outPhi) => fillFor([g])(th, ph, start, count, outTheta, outPhi, count), i0, frequencyHz);
   return {
     impedanceOhm: z,
-    patterns: {
-      portCount: n, driveCurrentA: i0, frequencyHz,
-      fill(thetaRad, phiRad, start, count, outTheta, outPhi, ld) {
-        for (let c = 0; c < count; c++) {
-          const t = thetaRad[start + c], p = phiRad[start + c];
-          const st = Math.sin(t), ct = Math.cos(t), sp = Math.sin(p), cp = Math.cos(p);
-          const ux = st * cp, uy = st * sp, uz = ct;
-          const below = plane !== undefined && uz < 0;
-          for (let m = 0; m < n; m++) {
-            let tr = 0, ti = 0, pr = 0, pi = 0;
-            if (!below) {
-              for (let q = 0; q < per; q++) {
-                const g = sources[m * per + q];
-                const amp = (ETA0_OHM * k * i0 * 2 * g.halfLengthM) / (4 * Math.PI);
-                const at = g.ax * ct * cp + g.ay * ct * sp - g.az * st; // â·θ̂
-                const ap = -g.ax * sp + g.ay * cp; // â·φ̂
-                const psi = k * (ux * g.cx + uy * g.cy + uz * g.cz);
-                const cr = Math.cos(psi), ci = Math.sin(psi);
-                // −j·amp·(â·ê)·e^{jψ} = amp·(â·ê)·(sin ψ − j cos ψ)
-                tr += amp * at * ci; ti -= amp * at * cr;
-                pr += amp * ap * ci; pi -= amp * ap * cr;
-              }
-            }
-            const o = 2 * (m * ld + c);
-            outTheta[o] = tr; outTheta[o + 1] = ti;
-            outPhi[o] = pr; outPhi[o + 1] = pi;
+    geometry: {
+      positionsM: Float64Array.from(geo.flatMap((g) => [g.cx, g.cy, g.cz])),
+      elementSizeM: Math.max(...geo.map((g) => 2 * g.halfLengthM)),
+      groundPlaneZM: plane?.zM,
+    },
+    patterns: { portCount: n, driveCurrentA: i0, frequencyHz, shifted, fill: fillFor(geo) },
+  };
+}
+
+/** The pattern fill of point elements (`per` sources per port: the element and, over ground, its image). */
+function hertzianFill(sources: ReadonlyArray<DipoleGeometry>, per: number, ground: boolean, k: number, i0: number): PortPatternSource['fill'] {
+  const n = sources.length / per;
+  return (thetaRad, phiRad, start, count, outTheta, outPhi, ld) => {
+    for (let c = 0; c < count; c++) {
+      const t = thetaRad[start + c], p = phiRad[start + c];
+      const st = Math.sin(t), ct = Math.cos(t), sp = Math.sin(p), cp = Math.cos(p);
+      const ux = st * cp, uy = st * sp, uz = ct;
+      const below = ground && uz < 0;
+      for (let m = 0; m < n; m++) {
+        let tr = 0, ti = 0, pr = 0, pi = 0;
+        if (!below) {
+          for (let q = 0; q < per; q++) {
+            const g = sources[m * per + q];
+            const amp = (ETA0_OHM * k * i0 * 2 * g.halfLengthM) / (4 * Math.PI);
+            const at = g.ax * ct * cp + g.ay * ct * sp - g.az * st; // â·θ̂
+            const ap = -g.ax * sp + g.ay * cp; // â·φ̂
+            const psi = k * (ux * g.cx + uy * g.cy + uz * g.cz);
+            const cr = Math.cos(psi), ci = Math.sin(psi);
+            // −j·amp·(â·ê)·e^{jψ} = amp·(â·ê)·(sin ψ − j cos ψ)
+            tr += amp * at * ci; ti -= amp * at * cr;
+            pr += amp * ap * ci; pi -= amp * ap * cr;
           }
         }
-      },
-    },
+        const o = 2 * (m * ld + c);
+        outTheta[o] = tr; outTheta[o + 1] = ti;
+        outPhi[o] = pr; outPhi[o + 1] = pi;
+      }
+    }
   };
 }
