@@ -23,6 +23,16 @@ function hexagon(rings: number): [number, number][] {
 describe('displacement path of the brightness integral', () => {
   const q = quadratureDirections(sphereQuadrature(30, 60, { splitAtHorizon: true }));
   const maps = [skyAndGroundBrightness({ skyK: 10, groundK: 290, tiltRad: 0.35, tiltAzimuthRad: 0.4 }), () => 1];
+  /** The displacement path equals the general path to 1e-10 of the largest entry, for every map. */
+  function expectPathsAgree(patterns: Parameters<typeof brightnessCorrelations>[0]): void {
+    const fast = brightnessCorrelations(patterns, q, maps, 1e6);
+    const slow = brightnessCorrelations(patterns, q, maps, 1e6, { path: 'general' });
+    for (let t = 0; t < maps.length; t++) {
+      let big = 0, diff = 0;
+      for (let k = 0; k < slow[t].data.length; k++) { big = Math.max(big, Math.abs(slow[t].data[k])); diff = Math.max(diff, Math.abs(fast[t].data[k] - slow[t].data[k])); }
+      expect(diff).toBeLessThan(1e-10 * big);
+    }
+  }
   const cases: Array<[string, [number, number][], boolean]> = [
     ['16 (4×4 square), free space', squareGrid(4), false],
     ['16 (4×4 square), over ground', squareGrid(4), true],
@@ -38,26 +48,14 @@ describe('displacement path of the brightness integral', () => {
       const ports = dipoleArrayPorts(dip, f, ground ? { groundPlane: { zM: 0 } } : {});
       expect(ports.patterns.shifted).toBeDefined();
       expect(displacementStructure(ports.patterns.shifted!.offsetsM)).not.toBeNull();
-      const fast = brightnessCorrelations(ports.patterns, q, maps, 1e6);
-      const slow = brightnessCorrelations(ports.patterns, q, maps, 1e6, { path: 'general' });
-      for (let t = 0; t < maps.length; t++) {
-        let big = 0, diff = 0;
-        for (let k = 0; k < slow[t].data.length; k++) { big = Math.max(big, Math.abs(slow[t].data[k])); diff = Math.max(diff, Math.abs(fast[t].data[k] - slow[t].data[k])); }
-        expect(diff).toBeLessThan(1e-10 * big);
-      }
+      expectPathsAgree(ports.patterns);
     });
   }
   it('point (Hertzian) elements, isolated patterns: equals the general path to 1e-10 (61 triangular over ground, 16 square in free space)', () => {
     for (const [xy, ground] of [[hexagon(4), true], [squareGrid(4), false]] as const) {
       const ports = hertzianDipolePorts(xy.map(([x, y]) => ({ centerM: [x, y, lambda / 4] as [number, number, number], axis: [1, 0.2, 0] as [number, number, number], lengthM: lambda / 20 })), f, ground ? { groundPlane: { zM: 0 } } : {});
       expect(ports.patterns.shifted).toBeDefined();
-      const fast = brightnessCorrelations(ports.patterns, q, maps, 1e6);
-      const slow = brightnessCorrelations(ports.patterns, q, maps, 1e6, { path: 'general' });
-      for (let t = 0; t < maps.length; t++) {
-        let big = 0, diff = 0;
-        for (let k = 0; k < slow[t].data.length; k++) { big = Math.max(big, Math.abs(slow[t].data[k])); diff = Math.max(diff, Math.abs(fast[t].data[k] - slow[t].data[k])); }
-        expect(diff).toBeLessThan(1e-10 * big);
-      }
+      expectPathsAgree(ports.patterns);
     }
   });
   it('is not taken for differing elements or heights over ground; random layouts fall back to the general path', () => {
