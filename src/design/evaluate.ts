@@ -10,6 +10,7 @@ import type { PhysicalCheck } from '../checks.js';
 import type { WireArrayPortSource } from '../wire/patterns.js';
 import { NumericError } from '../errors.js';
 import { layoutDiameterM, sphereQuadrature, sphereQuadratureForLayout, sphereQuadratureOrder, type SphereQuadrature } from '../geometry/index.js';
+import { displayable } from '../display/attach.js';
 import { gratingLobeCircles } from '../floquet/grating-lobes.js';
 import { createMultiport } from '../network/multiport.js';
 import { activeReflection } from '../network/sources.js';
@@ -438,7 +439,7 @@ export function evaluateDesignFrequency(prepared: PreparedDesign, index: number)
     out.cutAngleDeg = angleDeg;
     out.activeReflection = activeReflectionOverBeams(p, ports.impedanceOhm, f);
   }
-  return out;
+  return displayable<FrequencyEvaluation>(out, 'FrequencyEvaluation');
 }
 
 /** Γ of the centre and the outermost element for the phase-steered excitation of every beam (50 Ω). */
@@ -539,7 +540,7 @@ export function assembleDesignEvaluation(prepared: PreparedDesign, frequencies: 
       circles: gratingLobeCircles(p.lattice, fMax, 2).filter((c) => c.m !== 0 || c.n !== 0).map((c) => ({ m: c.m, n: c.n, u: c.centerU, v: c.centerV, radius: c.radius })),
     };
   }
-  return out;
+  return displayable<DesignEvaluation>(out, 'DesignEvaluation');
 }
 
 /**

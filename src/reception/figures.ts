@@ -16,6 +16,7 @@ import { ETA0_OHM, K_BOLTZMANN_J_PER_K } from '../units/constants.js';
 import { wavelengthM } from '../units/convert.js';
 import type { NoiseBudget } from './budget.js';
 import { assertSampledPatterns, type SampledPortPatterns } from './patterns.js';
+import { displayable } from '../display/attach.js';
 
 /**
  * Figures of merit of one beam. Temperatures are referred to the isotropic
@@ -207,7 +208,7 @@ function figuresFromForms(
     fig.snr = (s * sig) / (pIso * tSys);
   }
   if (o.minimumReceiverTemperatureK !== undefined && tRec > 0) fig.noiseMatchingEfficiency = o.minimumReceiverTemperatureK / tRec;
-  return fig;
+  return displayable(fig, 'BeamFigures');
 }
 
 /**
@@ -338,7 +339,7 @@ export function scanSweep(budget: NoiseBudget, beamPatterns: SampledPortPatterns
     throw new DomainError(`invalid argument "options.onProgress": expected a function (done, total) → void, received ${describeValue(options.onProgress)}.`);
   }
   const beams = figuresOfColumns(budget, weights, beamPatterns, options, options.onProgress);
-  return { weights, beams };
+  return displayable<ScanSweepResult>({ weights, beams }, 'ScanSweepResult');
 }
 
 /**
