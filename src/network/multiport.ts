@@ -3,7 +3,7 @@
  * @module
  */
 import { DimensionError, DomainError } from '../errors.js';
-import { type CMatrix, type ComplexLike, complexParts } from '../linalg/cmatrix.js';
+import { type CMatrix, type ComplexLike, complexParts, matrixView } from '../linalg/cmatrix.js';
 import { assertCMatrix, assertInteger, describeValue } from '../internal/validate.js';
 import { displayable } from '../display/attach.js';
 
@@ -242,7 +242,7 @@ export function multiportMatrix(net: Multiport, k: number): CMatrix {
   assertMultiport('net', net);
   assertInteger('k', k, 0, net.frequencyHz.length - 1);
   const nn = net.ports * net.ports;
-  return { rows: net.ports, cols: net.ports, data: net.data.slice(2 * k * nn, 2 * (k + 1) * nn) };
+  return matrixView(net.ports, net.ports, net.data.slice(2 * k * nn, 2 * (k + 1) * nn));
 }
 
 /** Structural check of a Multiport argument. @internal */

@@ -15,7 +15,7 @@
  */
 import { Complex } from 'complex.js';
 import { DimensionError, DomainError, SingularMatrixError } from '../errors.js';
-import { type CMatrix, type ComplexLike, complexParts, identity } from '../linalg/cmatrix.js';
+import { type CMatrix, type ComplexLike, complexParts, identity, matrixView } from '../linalg/cmatrix.js';
 import { add, adjoint, multiply, scale, subtract } from '../linalg/ops.js';
 import { inverse } from '../linalg/lu.js';
 import { K_BOLTZMANN_J_PER_K, T0_K } from '../units/constants.js';
@@ -321,7 +321,7 @@ export function thermalNoiseWaves(scattering: CMatrix, temperatureK: number, ban
 }
 
 function stackMatrix(stack: Float64Array, n: number, k: number): CMatrix {
-  return { rows: n, cols: n, data: stack.slice(2 * k * n * n, 2 * (k + 1) * n * n) };
+  return matrixView(n, n, stack.slice(2 * k * n * n, 2 * (k + 1) * n * n));
 }
 
 /** (I − S)·F per frequency (power waves, the network's references). */

@@ -82,7 +82,7 @@ function attribute(tag: string, name: string): string | undefined {
  * @param svg - SVG markup starting with an `<svg` element that states `width` and `height` [px].
  * @param title - Title; default the SVG's `aria-label`.
  * @returns The figure (plain data on the figure prototype).
- * @throws {@link DomainError} if `svg` is not an SVG element with a numeric width and height.
+ * @throws `DomainError` if `svg` is not an SVG element with a numeric width and height.
  * @example
  * ```ts
  * const fig = figure(linePlotSvg({ traces: [{ label: 'a', x: [0, 1], y: [0, 1] }], xLabel: 'x [m]', yLabel: 'y [m]', title: 'demo' }));

@@ -12,7 +12,7 @@ import type { Figure } from './figure.js';
  * @param fig - A figure from `figure` of `phasewise/plot`, or SVG markup.
  * @param path - File path, ending in `.svg`.
  * @returns `path`.
- * @throws {@link DomainError} if `path` does not end in `.svg` or `fig` holds no SVG; Node file-system errors.
+ * @throws `DomainError` (from the main entry) if `path` does not end in `.svg` or `fig` holds no SVG; Node file-system errors.
  * @category Plots
  */
 export function writeFigure(fig: Figure | string, path: string): string {

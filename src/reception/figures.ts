@@ -17,6 +17,7 @@ import { wavelengthM } from '../units/convert.js';
 import type { NoiseBudget } from './budget.js';
 import { assertSampledPatterns, type SampledPortPatterns } from './patterns.js';
 import { displayable } from '../display/attach.js';
+import { matrixView } from '../linalg/cmatrix.js';
 
 /**
  * Figures of merit of one beam. Temperatures are referred to the isotropic
@@ -292,7 +293,7 @@ export function maxSnrWeightsUnpolarized(first: SampledPortPatterns | CMatrix, s
     if (!(norm > 0)) throw new DomainError(`beam ${k}: the array has no response in this direction (all patterns are zero); choose another beam direction.`);
     for (let i = 0; i < n; i++) { out[2 * (i * kb + k)] /= norm; out[2 * (i * kb + k) + 1] /= norm; }
   }
-  return { rows: n, cols: kb, data: out };
+  return matrixView(n, kb, out);
 }
 
 /**
