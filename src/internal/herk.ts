@@ -3,7 +3,7 @@
  * @internal
  * @module
  */
-import { ensureMemory } from './wasm-assembler.js';
+import { ensureMemory } from './wasm/runtime.js';
 import { loadZtile } from './ztile-wasm.js';
 
 /** Order and rank from which the SIMD path is used. */

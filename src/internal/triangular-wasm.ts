@@ -7,7 +7,7 @@
  * @internal
  * @module
  */
-import { ensureMemory } from './wasm-assembler.js';
+import { ensureMemory } from './wasm/runtime.js';
 import { loadZtile } from './ztile-wasm.js';
 
 /** Columns of X per pass (a multiple of 4), so the panel (n·W·16 bytes) stays in L2 for n ≲ 250. */

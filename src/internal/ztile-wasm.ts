@@ -1,94 +1,88 @@
 /**
- * A register-tiled WebAssembly SIMD kernel for the complex matrix product:
- * a 1-row × 4-column tile of C stays in four f64x2 register pairs while the
- * inner dimension runs, so each step loads four vectors of B and two scalars
- * of A for four complex multiply–adds, and C is loaded and stored once per
- * tile (the streaming kernel of zgemm-wasm.ts loads and stores C every few
- * steps). Measured about 20 % faster than that kernel on 100×100×258. No checks.
+ * The one complex matrix-product kernel on WebAssembly SIMD: the
+ * register-tiled `ztile` of `wasm/ztile.wat` (a 1-row × 4-column tile of C in
+ * registers while the inner dimension runs; B packed in four-column panels).
+ * Used by the general product (`simdGemm` below, behind `gemmKernel`), the
+ * Hermitian rank-k updates (`herk.ts`) and the triangular solves
+ * (`triangular-wasm.ts`). No checks.
  * @internal
  * @module
  */
-import { I32, OP, SIMD, V128, c32, functionBody, get, set, simd, lazyModule, vload, vsplat, vstore, vzero } from './wasm-assembler.js';
+import { ensureMemory, kernelModule } from './wasm/runtime.js';
 
-/**
- * ztile(m, n, k, pa, lda, pb, ldbq, pcr, pci, ldc, ldcq): for i < m, j < n
- * (n a multiple of 4), p < k: Cre/Cim[i, j] += A[i, p]·B[p, j]. A interleaved
- * complex, row stride `lda` bytes. B packed in panels of four columns: panel q
- * at pb + q·ldbq, and within it for each p the 64 bytes [re j0..j3 | im j0..j3].
- * C: the real parts of columns 4q…4q+3 of row i at pcr + i·ldc + q·ldcq
- * (four f64), the imaginary parts likewise from pci; so C may be planes
- * (ldcq = 32) or a row of the same panel layout as B (pci = pcr + 32,
- * ldcq = the panel stride).
- */
-function ztileBody(): number[] {
-  const M = 0, N = 1, K = 2, PA = 3, LDA = 4, PB = 5, LDBQ = 6, PCR = 7, PCI = 8, LDC = 9, LDCQ = 10;
-  const I = 11, Q = 12, P = 13, A0 = 14, BP = 15, CQ = 16, CR = 17, CI = 18, QN = 19, K16 = 20;
-  const nI32 = 10;
-  // v128 locals: accumulators (vector v of the tile, part h), B vectors, the two A splats
-  const V0 = 11 + nI32;
-  const ACC = (v: number, h: number): number => V0 + 2 * v + h;
-  const BV = (v: number, h: number): number => V0 + 4 + 2 * v + h;
-  const AR = V0 + 8, AI = V0 + 9;
-  const mul = simd(SIMD.f64x2Mul), add = simd(SIMD.f64x2Add), sub = simd(SIMD.f64x2Sub);
-  // acc += a1·b1 ± a2·b2 (the two products summed first: one dependent add per accumulator and step)
-  const mac2 = (acc: number, a1: number, b1: number, a2: number, b2: number, minus: boolean): number[] => [
-    ...get(acc), ...get(a1), ...get(b1), ...mul, ...get(a2), ...get(b2), ...mul, ...(minus ? sub : add), ...add, ...set(acc),
-  ];
-  const step: number[] = [
-    ...get(BP), ...vload(0), ...set(BV(0, 0)),
-    ...get(BP), ...vload(16), ...set(BV(1, 0)),
-    ...get(BP), ...vload(32), ...set(BV(0, 1)),
-    ...get(BP), ...vload(48), ...set(BV(1, 1)),
-    ...get(A0), ...get(P), OP.i32Add, ...vsplat(0), ...set(AR),
-    ...get(A0), ...get(P), OP.i32Add, ...vsplat(8), ...set(AI),
-    // cr += ar·br − ai·bi, ci += ar·bi + ai·br
-    ...[0, 1].flatMap((v) => [...mac2(ACC(v, 0), AR, BV(v, 0), AI, BV(v, 1), true), ...mac2(ACC(v, 1), AR, BV(v, 1), AI, BV(v, 0), false)]),
-  ];
-  // C[i, 4q + 2v …] (+)= tile, at CR/CI + q·ldcq (CQ) + 16v
-  const storeTile = [0, 1].flatMap((h) => [0, 1].flatMap((v) => {
-    const at = [...get(h === 0 ? CR : CI), ...get(CQ), OP.i32Add, ...(v === 0 ? [] : [...c32(16 * v), OP.i32Add])];
-    return [...at, ...at, ...vload(), ...get(ACC(v, h)), ...add, ...vstore()];
-  }));
-  const code: number[] = [
-    ...get(K), ...c32(4), OP.i32Shl, ...set(K16), // bytes per A row
-    ...get(N), ...c32(2), OP.i32ShrU, ...set(QN),
-    ...c32(0), ...set(I),
-    OP.block, 0x40, OP.loop, 0x40,
-    ...get(I), ...get(M), OP.i32GeU, OP.brIf, 1,
-    ...get(PA), ...get(I), ...get(LDA), OP.i32Mul, OP.i32Add, ...set(A0),
-    ...get(PCR), ...get(I), ...get(LDC), OP.i32Mul, OP.i32Add, ...set(CR),
-    ...get(PCI), ...get(I), ...get(LDC), OP.i32Mul, OP.i32Add, ...set(CI),
-    ...c32(0), ...set(Q),
-    OP.block, 0x40, OP.loop, 0x40,
-    ...get(Q), ...get(QN), OP.i32GeU, OP.brIf, 1,
-    ...[0, 1].flatMap((v) => [0, 1].flatMap((h) => [...vzero(), ...set(ACC(v, h))])),
-    ...get(PB), ...get(Q), ...get(LDBQ), OP.i32Mul, OP.i32Add, ...set(BP),
-    ...get(Q), ...get(LDCQ), OP.i32Mul, ...set(CQ),
-    // P runs over A byte offsets 0, 16, …, 16(k−1); BP advances 64 per step
-    ...c32(0), ...set(P),
-    OP.block, 0x40, OP.loop, 0x40,
-    ...get(P), ...get(K16), OP.i32GeU, OP.brIf, 1,
-    ...step,
-    ...get(BP), ...c32(64), OP.i32Add, ...set(BP),
-    ...get(P), ...c32(16), OP.i32Add, ...set(P),
-    OP.br, 0,
-    OP.end, OP.end,
-    ...storeTile,
-    ...get(Q), ...c32(1), OP.i32Add, ...set(Q),
-    OP.br, 0,
-    OP.end, OP.end,
-    ...get(I), ...c32(1), OP.i32Add, ...set(I),
-    OP.br, 0,
-    OP.end, OP.end,
-  ];
-  return functionBody([[nI32, I32], [10, V128]], code);
-}
-
-/** Raw exports of the tiled product module (byte addresses into `memory`). */
-export interface ZtileModule {
-  memory: WebAssembly.Memory;
+/** Raw exports of the tiled product module (byte addresses into `memory`); arguments as in wasm/ztile.wat. */
+export interface ZtileFunctions {
   ztile: (m: number, n: number, k: number, pa: number, lda: number, pb: number, ldbq: number, pcr: number, pci: number, ldc: number, ldcq: number) => void;
 }
 
-/** The tiled product module, or null when WebAssembly SIMD is unavailable or switched off. */
-export const loadZtile = lazyModule<ZtileModule>(() => [{ name: 'ztile', params: 11, body: ztileBody() }]);
+/** The tiled product module, or null on the scalar path. */
+export const loadZtile = kernelModule<ZtileFunctions>('ztile');
+
+/** Whether the SIMD product kernel runs in this runtime (false also when switched off for tests). */
+export function simdGemmAvailable(): boolean {
+  return loadZtile() !== null;
+}
+
+/** Inner-dimension steps per pass, so that the packed B block (n4·kb·16 bytes) stays within ~256 KiB of L2. */
+function panelDepth(n4: number): number {
+  return Math.max(4, Math.floor((256 * 1024) / (16 * n4)));
+}
+
+/**
+ * C[m×n] (+)= alpha·A[m×k]·B[k×n] (alpha real) on interleaved row-major
+ * storage with leading dimensions and offsets in complex elements (the
+ * signature of the scalar `gemmKernel`), computed by the tiled kernel.
+ * Returns false (doing nothing) on the scalar path.
+ * A and B are copied into the module memory before C is written, so C may
+ * share a buffer with A or B as long as the regions do not overlap.
+ */
+export function simdGemm(
+  m: number, n: number, k: number,
+  a: Float64Array, offA: number, lda: number,
+  b: Float64Array, offB: number, ldb: number,
+  c: Float64Array, offC: number, ldc: number,
+  accumulate: boolean, alpha: number,
+): boolean {
+  const mod = loadZtile();
+  if (mod === null) return false;
+  const n4 = (n + 3) & ~3;
+  // layout (bytes): A (m·k·16, interleaved) | B panels (n4/4 panels of k·64) | Cre (m·n4·8) | Cim
+  const aBytes = m * k * 16, bBytes = n4 * k * 16, cBytes = m * n4 * 8;
+  const f = ensureMemory(mod.memory, aBytes + bBytes + 2 * cBytes);
+  const pa = 0, pb = aBytes, pcr = pb + bBytes, pci = pcr + cBytes;
+  for (let i = 0; i < m; i++) {
+    const s = 2 * (offA + i * lda);
+    f.set(a.subarray(s, s + 2 * k), 2 * i * k);
+  }
+  // B: column j in panel j>>2, lane j&3; for step p the real parts at +8p, imaginary at +8p+4 (doubles)
+  const b0 = pb >> 3;
+  for (let p = 0; p < k; p++) {
+    const s = 2 * (offB + p * ldb);
+    for (let j = 0; j < n; j++) {
+      const d = b0 + (j >> 2) * k * 8 + 8 * p + (j & 3);
+      f[d] = b[s + 2 * j]; f[d + 4] = b[s + 2 * j + 1];
+    }
+    for (let j = n; j < n4; j++) {
+      const d = b0 + (j >> 2) * k * 8 + 8 * p + (j & 3);
+      f[d] = 0; f[d + 4] = 0;
+    }
+  }
+  const cr = pcr >> 3, ci = pci >> 3;
+  f.fill(0, cr, ci + m * n4);
+  const depth = panelDepth(n4);
+  for (let p0 = 0; p0 < k; p0 += depth) {
+    const kb = Math.min(depth, k - p0);
+    mod.ztile(m, n4, kb, pa + p0 * 16, k * 16, pb + p0 * 64, k * 64, pcr, pci, n4 * 8, 32);
+  }
+  for (let i = 0; i < m; i++) {
+    const s = i * n4, d = 2 * (offC + i * ldc);
+    if (accumulate) {
+      for (let j = 0; j < n; j++) { c[d + 2 * j] += alpha * f[cr + s + j]; c[d + 2 * j + 1] += alpha * f[ci + s + j]; }
+    } else if (alpha === 1) {
+      for (let j = 0; j < n; j++) { c[d + 2 * j] = f[cr + s + j]; c[d + 2 * j + 1] = f[ci + s + j]; }
+    } else {
+      for (let j = 0; j < n; j++) { c[d + 2 * j] = alpha * f[cr + s + j]; c[d + 2 * j + 1] = alpha * f[ci + s + j]; }
+    }
+  }
+  return true;
+}

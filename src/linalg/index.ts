@@ -18,3 +18,5 @@ export type { SvdResult, RankOptions } from './svd.js';
 export { svd, conditionNumber, pseudoInverse, matrixRank } from './svd.js';
 export type { PolynomialRootsOptions } from './roots.js';
 export { polynomialRoots, polynomialFromRoots } from './roots.js';
+export type { SimdStatus } from './simd.js';
+export { simdStatus } from './simd.js';

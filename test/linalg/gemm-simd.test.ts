@@ -1,7 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import fc from 'fast-check';
 import { gemmKernel, gemmScalarKernel, SIMD_MIN_WORK } from '../../src/internal/gemm.js';
-import { simdGemm, simdGemmAvailable } from '../../src/internal/zgemm-wasm.js';
+import { simdGemm, simdGemmAvailable } from '../../src/internal/ztile-wasm.js';
 import { multiply, multiplyInto } from '../../src/linalg/ops.js';
 import { zeros } from '../../src/linalg/cmatrix.js';
 import { DimensionError } from '../../src/errors.js';
@@ -83,7 +83,7 @@ describe('complex product kernels (SIMD and scalar)', () => {
 
 describe('scalar fallbacks (WebAssembly SIMD switched off) agree with the SIMD paths', () => {
   it('product, Cholesky solve with many right-hand sides, Hermitian eigen', async () => {
-    const { wasmSettings } = await import('../../src/internal/wasm-assembler.js');
+    const { wasmSettings } = await import('../../src/internal/wasm/runtime.js');
     const { hermitianEigen } = await import('../../src/linalg/eigen.js');
     const { choleskyFactor, choleskySolve } = await import('../../src/linalg/cholesky.js');
     const { hermitianPart } = await import('../../src/linalg/ops.js');
@@ -111,7 +111,7 @@ describe('SIMD triangular substitution', () => {
   it('solves lower/upper, unit/non-unit systems with complex diagonals: T·X reproduces B, and equals the scalar path (property)', async () => {
     const { simdSolveTriangular } = await import('../../src/internal/triangular-wasm.js');
     const { solveLowerInPlace, solveUpperInPlace } = await import('../../src/internal/triangular.js');
-    const { wasmSettings } = await import('../../src/internal/wasm-assembler.js');
+    const { wasmSettings } = await import('../../src/internal/wasm/runtime.js');
     fc.assert(fc.property(
       fc.integer({ min: 1, max: 40 }), fc.integer({ min: 1, max: 150 }), fc.boolean(), fc.boolean(), fc.integer(),
       (n, nrhs, lower, unit, seed) => {
@@ -183,7 +183,7 @@ describe('SIMD Hermitian rank-k update', () => {
 describe('fused lower-then-upper substitution', () => {
   it('equals the two scalar substitutions in sequence (unit and non-unit, complex diagonals, odd widths)', async () => {
     const { solveLowerThenUpperInPlace, solveLowerInPlace, solveUpperInPlace } = await import('../../src/internal/triangular.js');
-    const { wasmSettings } = await import('../../src/internal/wasm-assembler.js');
+    const { wasmSettings } = await import('../../src/internal/wasm/runtime.js');
     for (const [n, nrhs, lUnit, uUnit] of [[37, 131, true, false], [20, 5, false, true], [64, 70, false, false]] as const) {
       const l = randomMatrix(n, n, n).data, u = randomMatrix(n, n, n + 1).data;
       for (let i = 0; i < n; i++) {

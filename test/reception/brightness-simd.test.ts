@@ -1,6 +1,6 @@
 import { describe, it } from 'vitest';
 import { brightnessCorrelations } from '../../src/reception/brightness.js';
-import { wasmSettings } from '../../src/internal/wasm-assembler.js';
+import { wasmSettings } from '../../src/internal/wasm/runtime.js';
 import type { QuadratureDirections, SampledPortPatterns } from '../../src/reception/patterns.js';
 import { expectCMatrixClose, randomMatrix, seededRandom } from '../helpers/matchers.js';
 
