@@ -460,11 +460,11 @@ export function evaluateDesignFrequency(prepared: PreparedDesign, index: number)
   const amplifiers = p.amplifiersAt?.(f);
   const { ev, sphere } = receiveAt(p, f, ports, env.environment, amplifiers);
   const quadrature = sphere.rule;
-  const beamRows: DesignBeamFigures[] = ev.beams.map((b) => ({
+  const beamRows: DesignBeamFigures[] = ev.beams.map((b) => displayable({
     ...b,
     gainOverTemperatureDbPerK: gainOverTemperatureDbPerK(b.sensitivityM2PerK, f),
     sefdJy: systemEquivalentFluxDensityJy(b.sensitivityM2PerK),
-  }));
+  }, 'BeamFigures'));
   const out: { -readonly [K in keyof FrequencyEvaluation]: FrequencyEvaluation[K] } = {
     frequencyHz: f, skyK,
     quadrature: { kind: sphere.kind, thetaCount: quadrature.thetaCount, phiCount: quadrature.phiCount, directionCount: ev.quadrature.thetaRad.length },
