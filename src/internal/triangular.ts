@@ -80,25 +80,35 @@ export function solveUpperInPlace(n: number, nrhs: number, t: Float64Array, x: F
  * upper-triangular U (n×n, leading dimension n), X n×nrhs: the pair of
  * substitutions of a Cholesky or LU solve. With WebAssembly SIMD both sweeps
  * run on each column panel while it stays in cache; otherwise
- * {@link solveLowerInPlace} then {@link solveUpperInPlace}.
+ * {@link solveLowerInPlace} then {@link solveUpperInPlace}. B is read from
+ * `src` when given (then X's entry values are ignored and `src` is not
+ * written), which spares the caller a copy.
  */
 export function solveLowerThenUpperInPlace(
   n: number, nrhs: number, l: Float64Array, lUnitDiagonal: boolean, u: Float64Array, uUnitDiagonal: boolean, x: Float64Array,
+  src: Float64Array = x,
 ): void {
   if (nrhs >= SIMD_MIN_RHS && n >= SIMD_MIN_ORDER &&
-    simdSolveTriangular(n, nrhs, [{ t: l, lower: true, unitDiagonal: lUnitDiagonal }, { t: u, lower: false, unitDiagonal: uUnitDiagonal }], x)) return;
+    simdSolveTriangular(n, nrhs, [{ t: l, lower: true, unitDiagonal: lUnitDiagonal }, { t: u, lower: false, unitDiagonal: uUnitDiagonal }], x, src)) return;
+  if (src !== x) x.set(src);
   solveLowerInPlace(n, nrhs, l, x, lUnitDiagonal);
   solveUpperInPlace(n, nrhs, u, x, uUnitDiagonal);
 }
 
-/** Conjugate transpose of an n×n interleaved matrix into a new buffer. */
+/** Conjugate transpose of an n×n interleaved matrix into a new buffer (in 16×16 tiles, so both sides stay in cache). */
 export function adjointSquare(n: number, a: Float64Array): Float64Array {
   const out = new Float64Array(2 * n * n);
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j < n; j++) {
-      const s = 2 * (i * n + j), d = 2 * (j * n + i);
-      out[d] = a[s];
-      out[d + 1] = -a[s + 1];
+  for (let i0 = 0; i0 < n; i0 += 16) {
+    const i1 = Math.min(n, i0 + 16);
+    for (let j0 = 0; j0 < n; j0 += 16) {
+      const j1 = Math.min(n, j0 + 16);
+      for (let i = i0; i < i1; i++) {
+        for (let j = j0; j < j1; j++) {
+          const s = 2 * (i * n + j), d = 2 * (j * n + i);
+          out[d] = a[s];
+          out[d + 1] = -a[s + 1];
+        }
+      }
     }
   }
   return out;

@@ -214,8 +214,8 @@ function checkCholesky(f: CholeskyResult, b: CMatrix): void {
  */
 export function choleskySolve(factor: CholeskyResult, b: CMatrix): CMatrix {
   checkCholesky(factor, b);
-  const x = b.data.slice();
-  solveLowerThenUpperInPlace(factor.n, b.cols, factor.l.data, false, factor.lAdjoint.data, false, x);
+  const x = new Float64Array(b.data.length);
+  solveLowerThenUpperInPlace(factor.n, b.cols, factor.l.data, false, factor.lAdjoint.data, false, x, b.data);
   return { rows: b.rows, cols: b.cols, data: x };
 }
 
