@@ -32,6 +32,7 @@ import { wireArrayPorts } from '../wire/patterns.js';
 import type { WireStructure } from '../wire/types.js';
 import { circularTaylorTaper, cosineDistribution, sampleRadialDistribution, uniformTaper } from '../taper/index.js';
 import { fieldError, type Design } from './schema.js';
+import { designFailedElements } from './failures.js';
 import {
   amplifierBand, assertCovered, designFrequencies, hzText, touchstoneOptions, wrapField,
   type AmplifierBand, type DesignFileReader,
@@ -87,6 +88,8 @@ export interface PreparedDesign {
   readonly imported?: ImportedElements;
   /** Indices into frequenciesHz of the frequencies the report draws cuts and maps at. */
   readonly reportFrequencyIndices: readonly number[];
+  /** Failed element indices, ascending (design `imperfections.failures`), else undefined. */
+  readonly failedElements?: Int32Array;
 }
 
 /** @internal Imported element data, parsed once. */
@@ -312,7 +315,11 @@ export function prepareDesign(design: Design, options: PrepareDesignOptions = {}
     }
   }
   checkElementModel(d, file, frequenciesHz);
-  return { design: d, fileName: file, frequenciesHz, layout, lattice, beams, taper, amplifiersAt, imported, reportFrequencyIndices: reportFrequencies(d, frequenciesHz) };
+  const failedElements = designFailedElements(d.imperfections?.failures, layout.count, file);
+  return {
+    design: d, fileName: file, frequenciesHz, layout, lattice, beams, taper, amplifiersAt, imported, reportFrequencyIndices: reportFrequencies(d, frequenciesHz),
+    ...(failedElements ? { failedElements } : {}),
+  };
 }
 
 /**

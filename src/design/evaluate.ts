@@ -17,8 +17,9 @@ import { powerToDb, radToDeg, wavenumberRadPerM } from '../units/convert.js';
 import {
   beamPowerPatterns, evaluateReceivingArray, gainOverTemperatureDbPerK, matchedFieldWeightsUnpolarized, samplePatterns,
   systemEquivalentFluxDensityJy, evaluationCost, adaptiveSphereRule, type AdaptiveSphereRule, type ArrayPortSource, type BeamFigures,
-  type EvaluationCost, type NoiseEnvironment,
+  type EvaluationCost, type NoiseEnvironment, type ReceivingArrayEvaluation,
 } from '../reception/index.js';
+import { designLivePorts, type DesignLivePorts } from './failures.js';
 import type { Design } from './schema.js';
 import { fieldError } from './schema.js';
 import { designImperfectionFigures, type DesignImperfectionFigures } from './imperfections.js';
@@ -125,6 +126,28 @@ export interface GratingCircle {
 }
 
 /**
+ * What the failed elements cost one beam at one frequency: the same beam of the array without
+ * failures, and the differences (design `imperfections.failures`).
+ * @category Design
+ */
+export interface FailureCostBeam {
+  /** A_e/T_sys of the intact array [m²/K]. */
+  readonly intactSensitivityM2PerK: number;
+  /** G/T of the intact array [dB/K]. */
+  readonly intactGainOverTemperatureDbPerK: number;
+  /** T_sys of the intact array [K]. */
+  readonly intactSystemTemperatureK: number;
+  /** A_e of the intact array [m²]. */
+  readonly intactEffectiveAreaM2: number;
+  /** Loss of A_e/T_sys, 10·log10(intact/with failures) [dB] (power ratio; equal to the G/T loss in dB). */
+  readonly sensitivityLossDb: number;
+  /** Loss of A_e, 10·log10(intact/with failures) [dB] (power ratio). */
+  readonly effectiveAreaLossDb: number;
+  /** T_sys with failures minus T_sys intact [K]. */
+  readonly systemTemperatureChangeK: number;
+}
+
+/**
  * Everything computed at one band frequency.
  * @category Design
  */
@@ -159,7 +182,7 @@ export interface FrequencyEvaluation {
   readonly beams: DesignBeamFigures[];
   /** The array's minimum receiver temperature T_rec,min [K]; null when its check failed (see `checks`). */
   readonly minimumReceiverTemperatureK: number | null;
-  /** Embedded element efficiency per port (linear); empty when they could not be computed (see `checks`). */
+  /** Embedded element efficiency per (working) port (linear); empty when they could not be computed (see `checks`). */
   readonly embeddedElementEfficiency: number[];
   /**
    * Physical self-checks at this frequency (reception module's receivingArrayChecks, with the
@@ -176,6 +199,12 @@ export interface FrequencyEvaluation {
    * conj(a(r̂)) — the network module's activeReflection.
    */
   readonly activeReflection?: ActiveReflectionTrace[];
+  /**
+   * With failed elements (`imperfections.failures`): per beam, the intact array's figures and
+   * what the failures cost. The beam figures above are those of the array with its failures;
+   * the intact array's checks are in `checks`, named `intactArray.…`.
+   */
+  readonly failureCost?: FailureCostBeam[];
 }
 
 /**
@@ -197,6 +226,8 @@ export interface BeamBandSummary {
   readonly worstGainOverTemperatureDbPerK: number;
   /** Largest SEFD over the band [Jy]. */
   readonly worstSefdJy: number;
+  /** Largest loss of A_e/T_sys from the failed elements over the band [dB] (designs with failures). */
+  readonly worstFailureLossDb?: number;
 }
 
 /**
@@ -208,8 +239,17 @@ export interface DesignEvaluation {
   readonly title: string;
   /** The design file's name. */
   readonly fileName: string;
-  /** Number of elements (ports). */
+  /** Number of elements (ports) of the layout, failed ones included. */
   readonly elementCount: number;
+  /** The failed elements (design `imperfections.failures`), when there are any. */
+  readonly failures?: {
+    /** Indices of the failed elements, ascending. */
+    readonly failedElements: number[];
+    /** Number of working elements (ports the beamformer uses). */
+    readonly workingElementCount: number;
+    /** Termination of the failed ports. */
+    readonly termination: 'open' | 'matched' | 'amplifier';
+  };
   /** Beamformer used. */
   readonly beamformer: 'max-snr' | 'conjugate-field' | 'taper';
   /** Noise bandwidth B [Hz]. */
@@ -354,6 +394,40 @@ export function estimateDesignCost(prepared: PreparedDesign, indices?: readonly 
 }
 
 /**
+ * The reception module's evaluation of one set of ports at f with the design's beamformer,
+ * sphere rule and loss model (terminated failed ports in a resistive load add loss).
+ */
+function receiveAt(p: PreparedDesign, f: number, ports: DesignLivePorts, environment: NoiseEnvironment, amplifiers: ReturnType<NonNullable<PreparedDesign['amplifiersAt']>> | undefined): { ev: ReceivingArrayEvaluation; sphere: DesignSphereRule } {
+  const d = p.design, kept = ports.keptPorts;
+  const sphere = designQuadratureAt(p, f, ports, environment);
+  const kind = d.beams.beamformer ?? 'max-snr';
+  const beams = { thetaRad: p.beams.thetaRad, phiRad: p.beams.phiRad };
+  // the taper of the working elements: a dead element's amplitude is simply missing
+  const taper = p.taper && kept ? Float64Array.from(kept, (i) => (p.taper as Float64Array)[i]) : p.taper;
+  const weights = kind === 'max-snr' ? undefined : matchedFieldWeightsUnpolarized(samplePatterns(ports.patterns, beams.thetaRad, beams.phiRad), taper);
+  // wire elements are lossless unless they carry loads (whose dissipation the patterns then lack);
+  // failed ports in a load dissipate: their loss comes from the patterns
+  const e = d.elements;
+  const lossless = (e.kind === 'dipole' || (e.kind === 'wire' && (e.loads ?? []).length === 0))
+    && (kept === undefined || d.imperfections?.failures?.termination === 'open');
+  try {
+    const ev = evaluateReceivingArray({
+      ports, quadrature: sphere.rule, bandwidthHz: d.bandwidthHz, environment, amplifiers,
+      physicalTemperatureK: d.environment.physicalTemperatureK ?? 290,
+      loss: lossless ? 'lossless' : 'fromPatterns',
+      beams, weights, physicalAreaM2: d.physicalAreaM2,
+    });
+    return { ev, sphere };
+  } catch (err) {
+    if (err instanceof NumericError && err.name !== 'DesignError') {
+      const hint = e.kind === 'imported' ? ' (the noise integrals need embedded patterns over the whole sphere, θ from 0 to 180°)' : '';
+      throw fieldError(p.fileName, e.kind === 'imported' ? 'elements.patternFile' : 'elements', `cannot evaluate at ${f} Hz: ${err.message}${hint}`);
+    }
+    throw err;
+  }
+}
+
+/**
  * Evaluates one band frequency of a prepared design.
  *
  * @remarks
@@ -363,7 +437,11 @@ export function estimateDesignCost(prepared: PreparedDesign, indices?: readonly 
  * beamformer: max-SNR (default), conjugate-field or taper (matchedFieldWeightsUnpolarized).
  * G/T and SEFD per beam from A_e/T_sys. At report frequencies also the pattern cuts and the
  * active reflection over the beams. The result at f equals a direct evaluateReceivingArray
- * call with the same inputs (tested to 1e-12).
+ * call with the same inputs (tested to 1e-12). With failed elements (`imperfections.failures`)
+ * the ports are those of the working elements with the failed ports terminated in the coupled
+ * network ({@link designLivePorts}); the beamformer uses the working ports only (a taper keeps
+ * the working elements' amplitudes), a resistive termination adds its loss ('fromPatterns'),
+ * and the intact array is evaluated as well for the failure cost per beam (`failureCost`).
  * @param prepared - The prepared design.
  * @param index - Index into prepared.frequenciesHz.
  * @returns The frequency's results.
@@ -373,30 +451,14 @@ export function estimateDesignCost(prepared: PreparedDesign, indices?: readonly 
 export function evaluateDesignFrequency(prepared: PreparedDesign, index: number): FrequencyEvaluation {
   const p = prepared, d = p.design;
   const f = p.frequenciesHz[index];
-  const ports = designPortsAt(p, f);
-  const { environment, skyK } = designEnvironmentAt(p, f);
-  const sphere = designQuadratureAt(p, f, ports, environment);
-  const quadrature = sphere.rule;
+  const allPorts = designPortsAt(p, f);
+  const ports = designLivePorts(p, allPorts);
+  const kept = ports.keptPorts;
+  const env = designEnvironmentAt(p, f);
+  const skyK = env.skyK;
   const amplifiers = p.amplifiersAt?.(f);
-  const kind = d.beams.beamformer ?? 'max-snr';
-  const beams = { thetaRad: p.beams.thetaRad, phiRad: p.beams.phiRad };
-  const weights = kind === 'max-snr' ? undefined : matchedFieldWeightsUnpolarized(samplePatterns(ports.patterns, beams.thetaRad, beams.phiRad), p.taper);
-  let ev;
-  try {
-    ev = evaluateReceivingArray({
-      ports, quadrature, bandwidthHz: d.bandwidthHz, environment, amplifiers,
-      physicalTemperatureK: d.environment.physicalTemperatureK ?? 290,
-      // wire elements are lossless unless they carry loads (whose dissipation the patterns then lack)
-      loss: d.elements.kind === 'dipole' || (d.elements.kind === 'wire' && (d.elements.loads ?? []).length === 0) ? 'lossless' : 'fromPatterns',
-      beams, weights, physicalAreaM2: d.physicalAreaM2,
-    });
-  } catch (e) {
-    if (e instanceof NumericError && e.name !== 'DesignError') {
-      const hint = d.elements.kind === 'imported' ? ' (the noise integrals need embedded patterns over the whole sphere, θ from 0 to 180°)' : '';
-      throw fieldError(p.fileName, d.elements.kind === 'imported' ? 'elements.patternFile' : 'elements', `cannot evaluate at ${f} Hz: ${e.message}${hint}`);
-    }
-    throw e;
-  }
+  const { ev, sphere } = receiveAt(p, f, ports, env.environment, amplifiers);
+  const quadrature = sphere.rule;
   const beamRows: DesignBeamFigures[] = ev.beams.map((b) => ({
     ...b,
     gainOverTemperatureDbPerK: gainOverTemperatureDbPerK(b.sensitivityM2PerK, f),
@@ -410,8 +472,26 @@ export function evaluateDesignFrequency(prepared: PreparedDesign, index: number)
     minimumReceiverTemperatureK: Number.isFinite(ev.minimumReceiverTemperatureK) ? ev.minimumReceiverTemperatureK : null,
     embeddedElementEfficiency: Array.from(ev.embeddedElementEfficiency),
     // wire elements add their own solution checks (reciprocity, passivity, thin-wire validity)
-    checks: 'solution' in ports ? [...ev.checks, ...(ports as WireArrayPortSource).solution.checks] : ev.checks,
+    checks: 'solution' in allPorts ? [...ev.checks, ...(allPorts as WireArrayPortSource).solution.checks] : ev.checks,
   };
+  if (kept) {
+    // The same frequency without the failures: the cost of the failures per beam.
+    const intact = receiveAt(p, f, allPorts, env.environment, amplifiers).ev;
+    out.failureCost = intact.beams.map((b, k) => {
+      const live = beamRows[k];
+      return {
+        intactSensitivityM2PerK: b.sensitivityM2PerK,
+        intactGainOverTemperatureDbPerK: gainOverTemperatureDbPerK(b.sensitivityM2PerK, f),
+        intactSystemTemperatureK: b.systemTemperatureK,
+        intactEffectiveAreaM2: b.effectiveAreaM2,
+        sensitivityLossDb: powerToDb(b.sensitivityM2PerK / live.sensitivityM2PerK),
+        effectiveAreaLossDb: powerToDb(b.effectiveAreaM2 / live.effectiveAreaM2),
+        systemTemperatureChangeK: live.systemTemperatureK - b.systemTemperatureK,
+      };
+    });
+    // the intact array's checks guard the cost figures
+    out.checks = [...out.checks, ...intact.checks.map((c) => ({ ...c, name: `intactArray.${c.name}`, meaning: `${c.meaning} (the array without its failures, for the failure cost)` }))];
+  }
   if (amplifiers) {
     const y = amplifiers.optimumSourceAdmittanceS;
     const yc = typeof y === 'number' ? { re: y, im: 0 } : Array.isArray(y) ? { re: y[0], im: y[1] } : { re: (y as { re: number }).re, im: (y as { im: number }).im };
@@ -436,14 +516,17 @@ export function evaluateDesignFrequency(prepared: PreparedDesign, index: number)
     cuts.forEach((c, i) => { (c.valueDb as number[]).push(...Array.from(powers[i], (v) => (v > 0 ? powerToDb(v / peak) : -300))); });
     out.patternCuts = cuts;
     out.cutAngleDeg = angleDeg;
-    out.activeReflection = activeReflectionOverBeams(p, ports.impedanceOhm, f);
+    out.activeReflection = activeReflectionOverBeams(p, ports.impedanceOhm, f, kept);
   }
   return out;
 }
 
 /** Γ of the centre and the outermost element for the phase-steered excitation of every beam (50 Ω). */
-function activeReflectionOverBeams(p: PreparedDesign, z: import('../linalg/cmatrix.js').CMatrix, f: number): FrequencyEvaluation['activeReflection'] {
-  const n = p.layout.count, pos = p.layout.positionsM;
+function activeReflectionOverBeams(p: PreparedDesign, z: import('../linalg/cmatrix.js').CMatrix, f: number, kept?: Int32Array): FrequencyEvaluation['activeReflection'] {
+  const all = p.layout.positionsM;
+  const pos = kept ? Float64Array.from({ length: 3 * kept.length }, (_, i) => all[3 * kept[Math.floor(i / 3)] + (i % 3)]) : all;
+  const n = pos.length / 3;
+  const label = (e: number) => (kept ? kept[e] : e);
   const net = createMultiport('impedance', [f], [z]);
   const k0 = wavenumberRadPerM(f);
   let centre = 0, edge = 0, rc = Infinity, re = -1;
@@ -453,7 +536,7 @@ function activeReflectionOverBeams(p: PreparedDesign, z: import('../linalg/cmatr
     if (rr > re + 1e-12) { re = rr; edge = i; }
   }
   const elems = centre === edge ? [centre] : [centre, edge];
-  const traces = elems.map((e) => ({ element: e, label: e === centre ? `element ${e} (centre)` : `element ${e} (edge)`, re: [] as number[], im: [] as number[] }));
+  const traces = elems.map((e) => ({ element: e, label: `element ${label(e)} (${e === centre ? 'centre' : 'edge'})`, re: [] as number[], im: [] as number[] }));
   // All beams' phase-steered excitations in one call: one Z → S conversion, one product.
   const kBeams = p.beams.thetaRad.length;
   const excitation = zeros(n, kBeams);
@@ -471,7 +554,7 @@ function activeReflectionOverBeams(p: PreparedDesign, z: import('../linalg/cmatr
   for (let k = 0; k < kBeams; k++) {
     for (const t of traces) { t.re.push(gamma[2 * (k * n + t.element)]); t.im.push(gamma[2 * (k * n + t.element) + 1]); }
   }
-  return traces;
+  return traces.map((t) => ({ ...t, element: label(t.element) }));
 }
 
 /**
@@ -508,6 +591,7 @@ export function assembleDesignEvaluation(prepared: PreparedDesign, frequencies: 
       meanSensitivityM2PerK: s.reduce((a, b) => a + b, 0) / s.length, bandAverageSensitivityM2PerK: avg,
       worstGainOverTemperatureDbPerK: Math.min(...frequencies.map((r) => r.beams[k].gainOverTemperatureDbPerK)),
       worstSefdJy: Math.max(...frequencies.map((r) => r.beams[k].sefdJy)),
+      ...(frequencies[0].failureCost ? { worstFailureLossDb: Math.max(...frequencies.map((r) => (r.failureCost as FailureCostBeam[])[k].sensitivityLossDb)) } : {}),
     });
   }
   const b = p.beams;
@@ -529,6 +613,10 @@ export function assembleDesignEvaluation(prepared: PreparedDesign, frequencies: 
     bandSummary,
     failedChecks: frequencies.flatMap((r) => r.checks.filter((c) => !c.passed).map((c) => ({ ...c, frequencyHz: r.frequencyHz }))),
   };
+  const spec = d.imperfections?.failures;
+  if (p.failedElements && p.failedElements.length > 0 && spec) {
+    out.failures = { failedElements: Array.from(p.failedElements), workingElementCount: p.layout.count - p.failedElements.length, termination: spec.termination };
+  }
   const imperfections = designImperfectionFigures(p);
   if (imperfections) out.imperfections = imperfections;
   if (p.lattice) {

@@ -1,14 +1,16 @@
 export type {
   Design, DesignComplex, DesignFrequencies, DesignLayout, DesignElements, DesignBackEnd, DesignAmplifiers,
-  DesignEnvironment, DesignTaper, DesignBeamsSpec, DesignRandomErrors, DesignImperfections,
+  DesignEnvironment, DesignTaper, DesignBeamsSpec, DesignRandomErrors, DesignImperfections, DesignFailures,
 } from './types.js';
 export { parseDesign, validateDesign } from './schema.js';
 export type { DesignFileReader } from './bandData.js';
 export type { DesignBeams, PreparedDesign, PrepareDesignOptions, DesignEnvironmentAt } from './build.js';
 export { prepareDesign, designPortsAt, designEnvironmentAt, scanPlaneDirections } from './build.js';
 export type {
-  DesignBeamFigures, DesignPatternCut, UsedNoiseParameters, ActiveReflectionTrace, FailedCheck, DesignSphereRule, DesignCostEstimate, DesignEvaluationBeams, GratingCircle, FrequencyEvaluation, BeamBandSummary, DesignEvaluation, EvaluateDesignOptions,
+  DesignBeamFigures, FailureCostBeam, DesignPatternCut, UsedNoiseParameters, ActiveReflectionTrace, FailedCheck, DesignSphereRule, DesignCostEstimate, DesignEvaluationBeams, GratingCircle, FrequencyEvaluation, BeamBandSummary, DesignEvaluation, EvaluateDesignOptions,
 } from './evaluate.js';
 export { evaluateDesign, evaluateDesignFrequency, assembleDesignEvaluation, frequencyBlock, designQuadratureAt, estimateDesignCost } from './evaluate.js';
 export type { DesignImperfectionFigures, DesignImperfectionBeam } from './imperfections.js';
 export { designImperfectionFigures } from './imperfections.js';
+export type { DesignLivePorts } from './failures.js';
+export { designLivePorts } from './failures.js';

@@ -217,6 +217,41 @@ const report = z.strictObject({
   frequenciesHz: z.array(positive('Hz')).min(1).max(20).optional(),
 });
 
+const failures = z.strictObject({
+  elements: z.array(z.number().int().min(0)).min(1).max(10000).optional(),
+  fraction: z.number().min(0).max(1).optional(),
+  seed: z.number().int().min(0).max(Number.MAX_SAFE_INTEGER).optional(),
+  termination: z.enum(['open', 'matched', 'amplifier']),
+  referenceOhm: positive('Ω').optional(),
+  amplifierInputOhm: complexValue.optional(),
+}).superRefine((f, ctx) => {
+  if ((f.elements === undefined) === (f.fraction === undefined)) {
+    ctx.addIssue({
+      code: 'custom', path: f.elements === undefined ? ['elements'] : ['fraction'], input: f.fraction,
+      message: 'expected exactly one of "elements" (a list of failed element indices) or "fraction" (with an optional "seed")',
+    });
+  }
+  if (f.seed !== undefined && f.fraction === undefined) ctx.addIssue({ code: 'custom', path: ['seed'], input: f.seed, message: 'expected only with "fraction" (it seeds the random choice)' });
+  const seen = new Set<number>();
+  f.elements?.forEach((e, i) => {
+    if (seen.has(e)) ctx.addIssue({ code: 'custom', path: ['elements', i], input: e, message: 'expected distinct element indices (this one is repeated)' });
+    seen.add(e);
+  });
+  if (f.termination === 'amplifier' && f.amplifierInputOhm === undefined) {
+    ctx.addIssue({ code: 'custom', path: ['amplifierInputOhm'], input: undefined, message: 'expected the dead amplifier\'s input impedance [Ω] (a number or {"re", "im"}) with termination "amplifier"' });
+  }
+  if (f.amplifierInputOhm !== undefined && f.termination !== 'amplifier') {
+    ctx.addIssue({ code: 'custom', path: ['amplifierInputOhm'], input: f.amplifierInputOhm, message: 'expected only with termination "amplifier"' });
+  }
+  if (f.referenceOhm !== undefined && f.termination !== 'matched') {
+    ctx.addIssue({ code: 'custom', path: ['referenceOhm'], input: f.referenceOhm, message: 'expected only with termination "matched"' });
+  }
+  const zl = f.amplifierInputOhm;
+  if (zl !== undefined && (typeof zl === 'number' ? zl : zl.re) < 0) {
+    ctx.addIssue({ code: 'custom', path: ['amplifierInputOhm'], input: zl, message: 'expected a passive load, real part ≥ 0 [Ω]' });
+  }
+});
+
 const imperfections = z.strictObject({
   errors: z.strictObject({
     distribution: z.enum(['gaussian', 'uniform']).optional(),
@@ -224,6 +259,7 @@ const imperfections = z.strictObject({
     phaseDeg: z.number().min(0).max(180).optional(),
     positionM: z.number().min(0).max(10).optional(),
   }).optional(),
+  failures: failures.optional(),
   phaseBits: z.number().int().min(1).max(16).optional(),
   weightBits: z.number().int().min(2).max(32).optional(),
   steering: z.enum(['phase', 'elementDelay']).optional(),

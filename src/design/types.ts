@@ -278,13 +278,36 @@ export interface DesignRandomErrors {
 }
 
 /**
- * Hardware imperfections of a design: random errors, phase-shifter and digital-weight bits,
- * and how the beams are steered across the band (docs/imperfect.md).
+ * Failed elements of a design: which (a list, or a seeded random fraction) and how their ports
+ * are terminated. The failed ports stay in the coupled network at every band frequency
+ * (imperfect module's failedArrayPorts); the beamformer uses the working ports only.
+ * @category Design
+ */
+export interface DesignFailures {
+  /** Indices of the failed elements (0-based, layout order, distinct); exactly one of `elements` and `fraction`. */
+  readonly elements?: readonly number[];
+  /** Fraction of the elements that failed, 0 … 1 (round(fraction·N) elements chosen at random). */
+  readonly fraction?: number;
+  /** Seed of the random choice (integer ≥ 0; with `fraction`). @defaultValue 1 */
+  readonly seed?: number;
+  /** How each failed port is terminated: left open, in a matched load, or in its dead amplifier's input impedance. */
+  readonly termination: 'open' | 'matched' | 'amplifier';
+  /** Matched-load resistance [Ω], > 0 (with termination "matched"). @defaultValue 50 */
+  readonly referenceOhm?: number;
+  /** Input impedance of the dead amplifier [Ω], Re ≥ 0 (required with termination "amplifier"). */
+  readonly amplifierInputOhm?: DesignComplex;
+}
+
+/**
+ * Hardware imperfections of a design: random errors, failed elements, phase-shifter and
+ * digital-weight bits, and how the beams are steered across the band (docs/imperfect.md).
  * @category Design
  */
 export interface DesignImperfections {
   /** Random amplitude, phase and position errors. */
   readonly errors?: DesignRandomErrors;
+  /** Failed elements, carried through the coupled network. */
+  readonly failures?: DesignFailures;
   /** Phase-shifter bits k, 1 … 16. */
   readonly phaseBits?: number;
   /** Digital weight word length per real component, 2 … 32. */
@@ -323,7 +346,7 @@ export interface Design {
     /** Uniform nodes in φ. */
     readonly phiCount: number;
   };
-  /** Hardware imperfections: random errors, bits, steering hardware. */
+  /** Hardware imperfections: random errors, failed elements, bits, steering hardware. */
   readonly imperfections?: DesignImperfections;
   /** Frequencies [Hz] the report draws cuts, maps and Smith charts at (nearest band points). */
   readonly report?: {

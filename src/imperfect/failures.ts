@@ -116,7 +116,10 @@ export function randomFailures(count: number, fraction: number, seed: number): I
  * noise enters through the evaluation's loss model: a resistive load appears
  * as loss at the array's physical temperature (`loss: 'fromPatterns'`), i.e.
  * the loads are taken to be at that temperature. Amplifier noise parameters
- * and weights of the evaluation must be given for the kept ports only.
+ * and weights of the evaluation must be given for the kept ports only. The
+ * port geometry (which sizes the adaptive sphere rule) keeps the working
+ * elements' positions for an open termination and every position otherwise
+ * (a loaded failed element still radiates).
  * Network theory: e.g. D. M. Pozar, *Microwave Engineering*, 4th ed., Wiley,
  * 2012, Sect. 4.2 (impedance matrix with terminated ports).
  * @param ports - The complete array's ports (N ports).
@@ -174,8 +177,10 @@ export function failedArrayPorts(ports: ArrayPorts, failed: ArrayLike<number>, t
     a = solve(zff, pick(z, failedPorts, keptPorts));
   }
   const patterns = reducePatterns(ports.patterns, keptPorts, failedPorts, a);
-  const g = ports.geometry;
-  const geometry = g ? {
+  // Geometry sizes the sphere rule: open failed elements carry no current and drop out; loaded
+  // ones still radiate (their currents are in the new patterns), so every position is kept.
+  const g = kind === 'open' ? ports.geometry : undefined;
+  const geometry = kind !== 'open' ? ports.geometry : g ? {
     ...g, positionsM: Float64Array.from({ length: 3 * keptPorts.length }, (_, i) => g.positionsM[3 * keptPorts[Math.floor(i / 3)] + (i % 3)]),
   } : undefined;
   return {

@@ -40,7 +40,7 @@ export interface ArrayPortSource {
  * @category Reception
  */
 export interface PortGeometry {
-  /** Phase centre of every port [m], 3N values (x, y, z per port). */
+  /** Phase centre of every radiating element [m], 3 values (x, y, z) each: one per port, plus any terminated elements that still radiate (imperfect module's failedArrayPorts). */
   readonly positionsM: Float64Array;
   /** Largest dimension of one element [m] (its pattern varies on this scale), ≥ 0. */
   readonly elementSizeM: number;

@@ -162,6 +162,7 @@ export function reportFigureList(ev: DesignEvaluation): ReportFigure[] {
       svg: gratingLobeDiagramSvg({ title: 'Grating-lobe diagram (u-v plane)', scanRadius: ev.gratingLobes.maxScanSinTheta, gratingCircles: ev.gratingLobes.circles.map((c) => ({ u: c.u, v: c.v, radius: c.radius })) }),
     });
   }
+  out.push(...failureCostFigures(ev, shown, fx, unit));
   const imp = ev.imperfections;
   if (imp && band) {
     const traces = shown.map((k) => ({ label: beamLabel(ev, k), x: fx, y: imp.beams[k].pointingErrorDeg.map((v) => (v === null ? NaN : v)) }));
@@ -185,4 +186,35 @@ export function reportFigureList(ev: DesignEvaluation): ReportFigure[] {
     });
   }
   return out;
+}
+
+/** The cost of the failed elements per beam: A_e/T_sys (≡ G/T) loss versus frequency, or over the beams at one frequency. */
+function failureCostFigures(ev: DesignEvaluation, shown: number[], fx: number[], unit: string): ReportFigure[] {
+  const fl = ev.failures;
+  if (!fl || !ev.frequencies[0].failureCost) return [];
+  const what = `${fl.failedElements.length} failed element${fl.failedElements.length > 1 ? 's' : ''} (${fl.termination} termination), ${fl.workingElementCount} working`;
+  const cost = (i: number, k: number) => (ev.frequencies[i].failureCost as NonNullable<FrequencyEvaluation['failureCost']>)[k];
+  if (ev.frequenciesHz.length > 1) {
+    return [{
+      file: 'failure-cost.svg',
+      caption: `Cost of the ${what}: loss of A_e/T_sys (equal to the loss of G/T) against the intact array, versus frequency (dB).`,
+      svg: linePlotSvg({
+        title: 'Failure cost across the band', xLabel: `frequency [${unit}]`, yLabel: 'A_e/T_sys (G/T) loss [dB]',
+        traces: shown.map((k) => ({ label: beamLabel(ev, k), x: fx, y: ev.frequencies.map((_, i) => cost(i, k).sensitivityLossDb) })),
+      }),
+    }];
+  }
+  const plane = ev.beams.kind === 'plane' && ev.beams.scanAngleDeg;
+  const x = ev.beams.thetaDeg.map((_, k) => (plane ? (ev.beams.scanAngleDeg as number[])[k] : k));
+  return [{
+    file: 'failure-cost.svg',
+    caption: `Cost of the ${what}: loss of A_e/T_sys (equal to the loss of G/T) and of A_e against the intact array, per beam (dB).`,
+    svg: linePlotSvg({
+      title: 'Failure cost per beam', xLabel: plane ? 'scan angle [deg]' : 'beam index', yLabel: 'loss [dB]',
+      traces: [
+        { label: 'A_e/T_sys (G/T) loss', x, y: x.map((_, k) => cost(0, k).sensitivityLossDb) },
+        { label: 'A_e loss', x, y: x.map((_, k) => cost(0, k).effectiveAreaLossDb) },
+      ],
+    }),
+  }];
 }
