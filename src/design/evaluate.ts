@@ -10,7 +10,7 @@ import type { PhysicalCheck } from '../checks.js';
 import type { WireArrayPortSource } from '../wire/patterns.js';
 import { NumericError } from '../errors.js';
 import { layoutDiameterM, sphereQuadrature, sphereQuadratureForLayout, sphereQuadratureOrder, type SphereQuadrature } from '../geometry/index.js';
-import { gratingLobeCircles } from '../floquet/grating-lobes.js';
+import { gratingLobeCircles } from '../floquet/gratingLobes.js';
 import { createMultiport } from '../network/multiport.js';
 import { activeReflection } from '../network/sources.js';
 import { powerToDb, radToDeg, wavenumberRadPerM } from '../units/convert.js';

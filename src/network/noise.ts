@@ -279,7 +279,7 @@ export function cascadeNoiseTemperatureK(stages: ReadonlyArray<CascadeStage>): n
  * E[v vᴴ] = 2 k_B T B (Z + Zᴴ).
  *
  * @remarks
- * RMS phasors (DESIGN conventions). Source: R. Q. Twiss, "Nyquist's and Thevenin's theorems
+ * RMS phasors (docs/conventions.md). Source: R. Q. Twiss, "Nyquist's and Thevenin's theorems
  * generalized for nonreciprocal linear networks", J. Appl. Phys. 26(5), 1955 (from memory).
  * @param impedanceOhm - Z [Ω], N×N.
  * @param temperatureK - Physical temperature T [K], ≥ 0.

@@ -46,7 +46,7 @@ export function parseAmplifier(name: string, a: NoiseParametersInput): ParsedAmp
  * array's open-circuit terminals.
  *
  * @remarks
- * DESIGN, "coupled amplifiers": amplifier n has a series EMF eₙ and a shunt
+ * conventions, "coupled amplifiers": amplifier n has a series EMF eₙ and a shunt
  * current iₙ driven into its array port with E|e|² = 4k_B B T0 R_n,
  * E|i|² = 4k_B B T0 R_n |Y_opt|², E[i e*] = 4k_B B (T_min/2 − T0 R_n Y_opt);
  * amplifiers are mutually uncorrelated. Referred to the open-circuit terminals,

@@ -32,7 +32,7 @@ import {
  * @category Reception
  */
 export interface ArrayPorts {
-  /** Embedded patterns (DESIGN "embedded pattern" convention). */
+  /** Embedded patterns (conventions, "embedded pattern"). */
   readonly patterns: PortPatternSource | SampledPortPatterns;
   /** Impedance matrix Z_A [Ω], N×N. */
   readonly impedanceOhm: CMatrix;

@@ -8,7 +8,7 @@ import {
 } from '../../src/floquet/modes.js';
 import {
   gratingLobeCircles, gratingLobeFreeScanConeRad, latticeScaleForScanCone, spacingForScanCone,
-} from '../../src/floquet/grating-lobes.js';
+} from '../../src/floquet/gratingLobes.js';
 import { gratingLobes as patternGratingLobes } from '../../src/pattern/gratingLobes.js';
 import type { PlanarLattice } from '../../src/floquet/lattice.js';
 

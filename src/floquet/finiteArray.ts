@@ -3,7 +3,7 @@
  * impedance matrix and excitation.
  * @module
  */
-import Complex from 'complex.js';
+import { Complex } from 'complex.js';
 import { DomainError } from '../errors.js';
 import { assertColumn, assertFiniteCMatrix, assertSquare } from '../internal/validate.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
@@ -29,7 +29,7 @@ export function reflectionFromImpedance(z: Complex, z0: Complex): Complex {
  * Active impedance of every element of a finite array: Z_a,n = (Z I)ₙ / Iₙ.
  *
  * @remarks
- * V = Z I with currents into the ports (DESIGN multiport convention). For a scanned transmit
+ * V = Z I with currents into the ports (multiport convention, docs/conventions.md). For a scanned transmit
  * excitation use Iₙ = exp(−j k r̂₀·rₙ), the conjugate of the receive weights wₙ = exp(+j k r̂₀·rₙ).
  * Reference: R. C. Hansen, *Phased Array Antennas*, 2nd ed., Wiley, 2009, ch. 7 (scan impedance; from memory).
  * @param z - Open-circuit impedance matrix, N×N [Ω].
@@ -62,7 +62,7 @@ export function finiteArrayActiveImpedances(z: CMatrix, currents: CMatrix): CMat
  * Active reflection coefficient of every element of a finite array: Γₙ = (Z_a,n − Z₀*)/(Z_a,n + Z₀).
  *
  * @remarks
- * Power waves with reference impedance Z₀ (Kurokawa 1965, DESIGN default 50 Ω). Equals bₙ/aₙ for the
+ * Power waves with reference impedance Z₀ (Kurokawa 1965, default 50 Ω, docs/conventions.md). Equals bₙ/aₙ for the
  * port state with currents I.
  * @param z - Open-circuit impedance matrix, N×N [Ω].
  * @param currents - Port currents, N×1 [A].
