@@ -8,6 +8,7 @@
  */
 import { z } from 'zod';
 import { T0_K } from '../units/constants.js';
+import { noiseParameterProblem } from '../network/noise.js';
 import { DesignError } from '../errors.js';
 import type { Design } from './types.js';
 
@@ -102,17 +103,10 @@ const wireElements = z.strictObject({
 });
 const elements = z.discriminatedUnion('kind', [dipoleElements, importedElements, wireElements]);
 
-/** A physical two-port has T_min ≤ 4 T0 R_n Re Y_opt (M. W. Pospieszalski, IEEE Trans. MTT 37(9), 1989, from memory). */
+/** Realisable noise parameters: the network module's one rule ({@link noiseParameterProblem}). */
 function checkRealisable(ctx: z.RefinementCtx, path: PropertyKey[], tMin: number, rn: number, y: number | { re: number; im: number }): void {
-  const g = typeof y === 'number' ? y : y.re;
-  if (!(g > 0)) {
-    ctx.addIssue({ code: 'custom', path: [...path, 'optimumSourceAdmittanceS'], message: 'expected a real part > 0 [S]', input: y });
-  } else if (tMin > 4 * T0_K * rn * g) {
-    ctx.addIssue({
-      code: 'custom', path: [...path, 'minimumNoiseTemperatureK'], input: tMin,
-      message: `expected a physical amplifier, T_min ≤ 4·T0·R_n·Re(Y_opt) = ${(4 * T0_K * rn * g).toPrecision(4)} K`,
-    });
-  }
+  const bad = noiseParameterProblem(tMin, rn, typeof y === 'number' ? y : y.re);
+  if (bad) ctx.addIssue({ code: 'custom', path: [...path, bad.field], message: `expected ${bad.expected}`, input: bad.field === 'optimumSourceAdmittanceS' ? y : bad.field === 'noiseResistanceOhm' ? rn : tMin });
 }
 const backEnd = {
   gainDb: finite.optional(),
