@@ -7,6 +7,7 @@
  * design are read through a caller-supplied reader.
  * @module
  */
+import { hzText } from '../internal/text.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
 import { degToRad } from '../units/convert.js';
 import {
@@ -33,7 +34,7 @@ import type { WireStructure } from '../wire/types.js';
 import { circularTaylorTaper, cosineDistribution, sampleRadialDistribution, uniformTaper } from '../taper/index.js';
 import { fieldError, type Design } from './schema.js';
 import {
-  amplifierBand, assertCovered, designFrequencies, hzText, touchstoneOptions, wrapField,
+  amplifierBand, assertCovered, designFrequencies, touchstoneOptions, wrapField,
   type AmplifierBand, type DesignFileReader,
 } from './bandData.js';
 

@@ -5,6 +5,7 @@
  * report's figures — plain JSON-able data, browser-safe.
  * @module
  */
+import { hzText } from '../internal/text.js';
 import { zeros } from '../linalg/cmatrix.js';
 import type { PhysicalCheck } from '../checks.js';
 import type { WireArrayPortSource } from '../wire/patterns.js';
@@ -393,7 +394,7 @@ export function evaluateDesignFrequency(prepared: PreparedDesign, index: number)
   } catch (e) {
     if (e instanceof NumericError && e.name !== 'DesignError') {
       const hint = d.elements.kind === 'imported' ? ' (the noise integrals need embedded patterns over the whole sphere, θ from 0 to 180°)' : '';
-      throw fieldError(p.fileName, d.elements.kind === 'imported' ? 'elements.patternFile' : 'elements', `cannot evaluate at ${f} Hz: ${e.message}${hint}`);
+      throw fieldError(p.fileName, d.elements.kind === 'imported' ? 'elements.patternFile' : 'elements', `cannot evaluate at ${hzText(f)}: ${e.message}${hint}`);
     }
     throw e;
   }
