@@ -197,6 +197,13 @@ describe('playground page in chromium', () => {
       .catch(() => undefined);
     expect(await figure(page, 'designer-count-out')).toBe(36);
     expect(await page.locator('#designer-status').textContent()).toBe('');
+
+    // Zero elements per side: a message about that input, not about a library argument (issue 21).
+    await page.fill('#designer-count', '0');
+    await expectText(page, '#designer-status', 'elements per side must be a whole number from 1 to 40 here (received 0)');
+    expect(await page.locator('#designer-status').textContent()).not.toMatch(/boundary|widthM/);
+    await page.fill('#designer-count', '6');
+    await page.waitForFunction(() => document.querySelector('#designer-status')?.textContent === '', undefined, { timeout: 5000 });
   });
 
   it('network viewer: draws the sample and shows a malformed paste\'s parse error with its line number', async () => {
