@@ -7,6 +7,7 @@
  * design are read through a caller-supplied reader.
  * @module
  */
+import { hzText } from '../internal/text.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
 import { degToRad } from '../units/convert.js';
 import {
@@ -34,7 +35,7 @@ import { circularTaylorTaper, cosineDistribution, sampleRadialDistribution, unif
 import { fieldError, type Design } from './schema.js';
 import { designFailedElements } from './failures.js';
 import {
-  amplifierBand, assertCovered, designFrequencies, hzText, touchstoneOptions, wrapField,
+  amplifierBand, assertCovered, designFrequencies, touchstoneOptions, wrapField,
   type AmplifierBand, type DesignFileReader,
 } from './bandData.js';
 

@@ -9,7 +9,8 @@
 import { z } from 'zod';
 import { T0_K } from '../units/constants.js';
 import { noiseParameterProblem } from '../network/noise.js';
-import { DesignError } from '../errors.js';
+import { DesignError, ParseError } from '../errors.js';
+import { parseJsonText } from '../internal/json.js';
 import type { Design } from './types.js';
 
 export type { Design } from './types.js';
@@ -329,20 +330,6 @@ function issueText(issue: z.core.$ZodIssue): string {
   }
 }
 
-/** JSON.parse's message with its character offset turned into a 1-based line:column. */
-function jsonErrorText(text: string, message: string): string {
-  const m = /at position (\d+)/.exec(message);
-  let out = message.replace(/ in JSON at position \d+.*$/, '');
-  if (m) {
-    const pos = Number(m[1]);
-    const before = text.slice(0, pos);
-    const line = before.split('\n').length, column = pos - before.lastIndexOf('\n');
-    out += ` at line ${line}, column ${column}`;
-  }
-  if (/\bNaN\b|\bInfinity\b/.test(text)) out += ' (JSON has no NaN or Infinity: write a finite number)';
-  return out;
-}
-
 /**
  * A failed union (e.g. the three amplifier forms) reports the problems of the form that came
  * closest — the unique branch with the fewest problems — so the message names the field
@@ -369,9 +356,10 @@ function closestBranch(issue: z.core.$ZodIssue): z.core.$ZodIssue[] {
 export function parseDesign(text: string, fileName: string): Design {
   let data: unknown;
   try {
-    data = JSON.parse(text);
+    data = parseJsonText(text, 'the design file');
   } catch (e) {
-    throw new DesignError(fileName, [{ field: '(top level)', message: `not valid JSON: ${jsonErrorText(text, (e as Error).message)}` }]);
+    if (e instanceof ParseError) throw new DesignError(fileName, [{ field: '(top level)', message: e.message }]);
+    throw e;
   }
   return validateDesign(data, fileName);
 }

@@ -13,6 +13,7 @@
  * Y_s sees T = T_min + T0·R_n·|Y_s − Y_opt|²/Re Y_s.
  * @module
  */
+import { hzText } from '../internal/text.js';
 import { Complex } from 'complex.js';
 import { DimensionError, DomainError, SingularMatrixError } from '../errors.js';
 import { type CMatrix, type ComplexLike, complexParts, identity } from '../linalg/cmatrix.js';
@@ -425,7 +426,7 @@ export function impedanceNoiseOf(net: Multiport): CMatrix[] {
   return waveFromVoltageMaps(net).map((m, k) => {
     let mi: CMatrix;
     try { mi = inverse(m); } catch (e) {
-      if (e instanceof SingularMatrixError) throw new SingularMatrixError(`the network has no impedance matrix at frequency index ${k} (${net.frequencyHz[k]} Hz), so no impedance-form noise.`, k);
+      if (e instanceof SingularMatrixError) throw new SingularMatrixError(`the network has no impedance matrix at frequency index ${k} (${hzText(net.frequencyHz[k])}), so no impedance-form noise.`, k);
       throw e;
     }
     return multiply(multiply(mi, stackMatrix(noise, n, k)), adjoint(mi));
