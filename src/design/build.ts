@@ -34,6 +34,8 @@ import type { WireStructure } from '../wire/types.js';
 import { circularTaylorTaper, cosineDistribution, sampleRadialDistribution, uniformTaper } from '../taper/index.js';
 import { fieldError, type Design } from './schema.js';
 import { designFailedElements } from './failures.js';
+import { designSubarrays } from './imperfections.js';
+import type { SubarrayLayout } from '../imperfect/subarrays.js';
 import {
   amplifierBand, assertCovered, designFrequencies, touchstoneOptions, wrapField,
   type AmplifierBand, type DesignFileReader,
@@ -91,6 +93,8 @@ export interface PreparedDesign {
   readonly reportFrequencyIndices: readonly number[];
   /** Failed element indices, ascending (design `imperfections.failures`), else undefined. */
   readonly failedElements?: Int32Array;
+  /** Subarray partition (design `imperfections.subarrays`), else undefined. */
+  readonly subarrays?: SubarrayLayout;
 }
 
 /** @internal Imported element data, parsed once. */
@@ -317,9 +321,10 @@ export function prepareDesign(design: Design, options: PrepareDesignOptions = {}
   }
   checkElementModel(d, file, frequenciesHz);
   const failedElements = designFailedElements(d.imperfections?.failures, layout.count, file);
+  const subarrays = designSubarrays(d, file);
   return {
     design: d, fileName: file, frequenciesHz, layout, lattice, beams, taper, amplifiersAt, imported, reportFrequencyIndices: reportFrequencies(d, frequenciesHz),
-    ...(failedElements ? { failedElements } : {}),
+    ...(failedElements ? { failedElements } : {}), ...(subarrays ? { subarrays } : {}),
   };
 }
 

@@ -257,7 +257,15 @@ const imperfections = z.strictObject({
   failures: failures.optional(),
   phaseBits: z.number().int().min(1).max(16).optional(),
   weightBits: z.number().int().min(2).max(32).optional(),
-  steering: z.enum(['phase', 'elementDelay']).optional(),
+  subarrays: z.strictObject({
+    perX: z.number().int().min(1).max(10000),
+    perY: z.number().int().min(1).max(1000).optional(),
+  }).optional(),
+  steering: z.enum(['phase', 'elementDelay', 'subarrayDelay']).optional(),
+}).superRefine((m, ctx) => {
+  if (m.steering === 'subarrayDelay' && m.subarrays === undefined) {
+    ctx.addIssue({ code: 'custom', path: ['subarrays'], input: undefined, message: 'expected {perX, perY?} with steering "subarrayDelay" (time delay is applied between subarrays)' });
+  }
 });
 
 const quadrature = z.strictObject({

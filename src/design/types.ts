@@ -299,6 +299,17 @@ export interface DesignFailures {
 }
 
 /**
+ * Contiguous subarrays of a design's layout (imperfect module's gridSubarrays).
+ * @category Design
+ */
+export interface DesignSubarrays {
+  /** Elements per subarray along x (a rectangular layout) or along a line layout; divides that count. */
+  readonly perX: number;
+  /** Elements per subarray along y (rectangular layouts; divides countY). @defaultValue 1 */
+  readonly perY?: number;
+}
+
+/**
  * Hardware imperfections of a design: random errors, failed elements, phase-shifter and
  * digital-weight bits, and how the beams are steered across the band (docs/imperfect.md).
  * @category Design
@@ -312,8 +323,17 @@ export interface DesignImperfections {
   readonly phaseBits?: number;
   /** Digital weight word length per real component, 2 … 32. */
   readonly weightBits?: number;
-  /** Steering hardware across the band: phase shifters set at the band centre, or true time delay per element. @defaultValue 'phase' */
-  readonly steering?: 'phase' | 'elementDelay';
+  /**
+   * Contiguous subarrays on the layout's lattice: blocks of perX × perY elements of a
+   * rectangular layout, or of perX elements along a line layout (perY 1 or absent).
+   */
+  readonly subarrays?: DesignSubarrays;
+  /**
+   * Steering hardware across the band: phase shifters set at the band centre, true time delay
+   * per element, or phase shifters within each subarray and true time delay between subarrays
+   * (needs `subarrays`). @defaultValue 'phase'
+   */
+  readonly steering?: 'phase' | 'elementDelay' | 'subarrayDelay';
 }
 
 /**

@@ -23,6 +23,8 @@ export interface SubarrayLayout {
   readonly count: number;
   /** Phase centre (mean element position) of each subarray [m], 3S values. */
   readonly centresM: Float64Array;
+  /** Periods of the subarray-centre lattice along x and y [m] (grid subarrays: perX·dx, perY·dy; Infinity along an axis holding a single subarray). */
+  readonly periodM?: readonly [number, number];
 }
 
 /**
@@ -64,7 +66,7 @@ export function gridSubarrays(grid: RectangularGridSpec, perX: number, perY = 1)
     centresM[3 * s] = ((bx + 0.5) * perX - grid.countX / 2) * grid.spacingXM;
     centresM[3 * s + 1] = ((by + 0.5) * perY - grid.countY / 2) * grid.spacingYM;
   }
-  return { index, count, centresM };
+  return { index, count, centresM, periodM: [sx > 1 ? perX * grid.spacingXM : Infinity, sy > 1 ? perY * grid.spacingYM : Infinity] };
 }
 
 /**
@@ -144,6 +146,12 @@ export interface SquintPoint {
   readonly pointingErrorRad: number;
   /** Gain loss at the intended direction, −10·log10(|AF(r̂₀, f)|²/(Σ|wₙ|)²) [dB] (≥ 0). */
   readonly gainLossDb: number;
+  /**
+   * Subarray delay with a lattice period (`subarrays.periodM`): the highest array-factor level
+   * at the grating directions of the subarray-centre lattice, (u₀ + mλ/P_x, v₀ + nλ/P_y) inside
+   * visible space, (m, n) ≠ (0, 0), relative to the beam peak [dB]; absent when none is visible.
+   */
+  readonly subarrayLobeDb?: number;
 }
 
 /**
@@ -158,7 +166,17 @@ export interface SquintPoint {
  * fixed, so k·sin θ is); time delay removes the squint (R. J. Mailloux,
  * *Phased Array Antenna Handbook*, 3rd ed., 2017, ch. on wideband scanning,
  * from memory; the identity follows from the steering convention). The gain
- * loss is that of the array factor (isotropic elements).
+ * loss is that of the array factor (isotropic elements). With subarray delay
+ * the subarray centres are steered by true time delay, so their array factor
+ * keeps its grating lobes at (u₀ + mλ/P_x, v₀ + nλ/P_y) for the lattice periods
+ * P of the subarray centres; away from f₀ the subarray pattern no longer nulls
+ * them and they appear as quantisation lobes of the subarray spacing (Mailloux,
+ * ibid., from memory). `subarrayLobeDb` is the array factor there relative to
+ * the beam peak (the lobe peaks sit within a fraction of a subarray beamwidth of
+ * these points). For a uniform line of S subarrays of P elements the level at
+ * u_m is S²·sin²(P x_m/2)/sin²(x_m/2), x_m = (k u_m − k₀u₀)d (geometric series).
+ * The peak is searched in the scan plane, the in-plane maximum, which for
+ * separable grid weights is the peak.
  * @param layout - Element positions [m] (planar, z = 0).
  * @param direction - Beam direction r̂₀.
  * @param designFrequencyHz - f₀ [Hz].
@@ -187,12 +205,14 @@ export function beamSquint(
   assertUnitVector('direction', direction);
   const s0 = Math.hypot(direction[0], direction[1]);
   const ax = s0 > 0 ? direction[0] / s0 : 1, ay = s0 > 0 ? direction[1] / s0 : 0;
-  let extent = 0;
+  // extent of the array along the scan plane: max − min of the projections
+  let tMin = Infinity, tMax = -Infinity;
   const p = layout.positionsM;
   for (let i = 0; i < layout.count; i++) {
     const t = p[3 * i] * ax + p[3 * i + 1] * ay;
-    for (let j = 0; j < layout.count; j++) extent = Math.max(extent, Math.abs(t - (p[3 * j] * ax + p[3 * j + 1] * ay)));
+    tMin = Math.min(tMin, t); tMax = Math.max(tMax, t);
   }
+  const extent = tMax - tMin;
   const out1 = { rows: 1, cols: 1, data: new Float64Array(2) }, dir = new Float64Array(3);
   return Array.from(frequenciesHz, (f) => {
     assertPositive('frequenciesHz[]', f, 'Hz');
@@ -222,6 +242,32 @@ export function beamSquint(
     let sumA = 0;
     for (let i = 0; i < layout.count; i++) sumA += Math.hypot(w.data[2 * i], w.data[2 * i + 1]);
     const at = power(s0);
-    return { frequencyHz: f, peakU, pointingErrorRad: Math.asin(peakU) - Math.asin(s0), gainLossDb: -10 * Math.log10(at / (sumA * sumA)) };
+    const point: SquintPoint = { frequencyHz: f, peakU, pointingErrorRad: Math.asin(peakU) - Math.asin(s0), gainLossDb: -10 * Math.log10(at / (sumA * sumA)) };
+    if (hardware !== 'subarrayDelay' || !subarrays?.periodM) return point;
+    const lobe = latticeLobeLevel(layout, w, direction, f, subarrays.periodM, dir, out1);
+    return lobe === undefined ? point : { ...point, subarrayLobeDb: 10 * Math.log10(lobe / power(peakU)) };
   });
+}
+
+/** Largest |AF|² at the visible grating directions of a lattice of periods P around r̂₀ (undefined: none visible). */
+function latticeLobeLevel(
+  layout: ArrayLayout, w: CMatrix, direction: Vector3, f: number, periodM: readonly [number, number], dir: Float64Array, out1: CMatrix,
+): number | undefined {
+  const lam = 299792458 / f;
+  // an axis without periodicity (one subarray along it) has no grating orders
+  const du = lam / periodM[0], dv = lam / periodM[1];
+  const mMax = du > 0 ? Math.ceil(2 / du) : 0, nMax = dv > 0 ? Math.ceil(2 / dv) : 0;
+  let best: number | undefined;
+  for (let m = -mMax; m <= mMax; m++) {
+    for (let n = -nMax; n <= nMax; n++) {
+      if (m === 0 && n === 0) continue;
+      const u = direction[0] + m * du, v = direction[1] + n * dv, r = u * u + v * v;
+      if (r >= 1) continue;
+      dir[0] = u; dir[1] = v; dir[2] = Math.sqrt(1 - r);
+      arrayFactorInto(out1, layout, w, dir, f);
+      const p = out1.data[0] ** 2 + out1.data[1] ** 2;
+      if (best === undefined || p > best) best = p;
+    }
+  }
+  return best;
 }

@@ -166,11 +166,40 @@ export function reportFigureList(ev: DesignEvaluation): ReportFigure[] {
   const imp = ev.imperfections;
   if (imp && band) {
     const traces = shown.map((k) => ({ label: beamLabel(ev, k), x: fx, y: imp.beams[k].pointingErrorDeg.map((v) => (v === null ? NaN : v)) }));
+    const f0 = `${Number((imp.designFrequencyHz * scale).toPrecision(7))} ${unit}`;
+    const sa = imp.subarrays;
+    const hardware = imp.steering === 'phase' ? `phase shifters set at ${f0}`
+      : imp.steering === 'elementDelay' ? 'true time delay per element'
+        : `phase shifters set at ${f0} within ${sa?.count ?? ''} subarrays of ${sa?.perX ?? ''}×${sa?.perY ?? ''} elements, true time delay between them`;
     out.push({
       file: 'beam-squint.svg',
-      caption: `Beam pointing error across the band (deg), ${imp.steering === 'phase' ? `phase shifters set at ${Number((imp.designFrequencyHz * scale).toPrecision(7))} ${unit}` : 'true time delay per element'}.`,
+      caption: `Beam pointing error across the band (deg), ${hardware}.`,
       svg: linePlotSvg({ title: 'Beam squint across the band', xLabel: `frequency [${unit}]`, yLabel: 'pointing error [deg]', traces }),
     });
+    if (imp.beams[0].gainLossDb) {
+      out.push({
+        file: 'steering-gain-loss.svg',
+        caption: `Gain loss at each beam's intended direction across the band (dB; array factor, equal amplitudes), ${hardware}.`,
+        svg: linePlotSvg({
+          title: 'Steering gain loss across the band', xLabel: `frequency [${unit}]`, yLabel: 'gain loss [dB]',
+          traces: shown.map((k) => ({ label: beamLabel(ev, k), x: fx, y: imp.beams[k].gainLossDb as number[] })),
+        }),
+      });
+    }
+    // exact nulls (at f₀, or for a broadside beam at every frequency) are left out, not drawn at a floor
+    const lobeTraces = imp.beams[0].subarrayLobeDb ? shown
+      .map((k) => ({ label: beamLabel(ev, k), x: fx, y: (imp.beams[k].subarrayLobeDb as Array<number | null>).map((v) => (v === null || v < -80 ? NaN : v)) }))
+      .filter((t) => t.y.some((v) => !Number.isNaN(v))) : [];
+    if (lobeTraces.length > 0) {
+      out.push({
+        file: 'subarray-lobes.svg',
+        caption: `Highest lobe at the grating directions of the subarray-centre lattice (periods ${(sa?.periodM ?? []).map((p) => (p === null ? '—' : `${Number(p.toPrecision(4))} m`)).join(' × ')}), relative to the beam peak, across the band (dB). Levels below −80 dB are not drawn: at ${f0} the element phases are exact and the lobes fall on nulls, and so do a broadside beam's at every frequency${lobeTraces.length < shown.length ? ` (beams without a drawn point are left out)` : ''}.`,
+        svg: linePlotSvg({
+          title: 'Subarray quantisation lobes across the band', xLabel: `frequency [${unit}]`, yLabel: 'lobe level re beam peak [dB]',
+          traces: lobeTraces,
+        }),
+      });
+    }
   }
   if (imp && imp.beams.some((b) => b.sidelobeFloorDb !== undefined || b.weightSidelobeFloorDb !== undefined)) {
     const x = imp.beams.map((_, k) => (ev.beams.kind === 'plane' && ev.beams.scanAngleDeg ? ev.beams.scanAngleDeg[k] : k));
