@@ -7,6 +7,7 @@ import { assertColumn, assertFinite, assertFiniteCMatrix, assertInRange, assertN
 import type { CMatrix } from '../linalg/cmatrix.js';
 import { quadraticForm } from '../linalg/ops.js';
 import { JANSKY_W_PER_M2_HZ, K_BOLTZMANN_J_PER_K } from '../units/constants.js';
+import { displayable } from '../display/attach.js';
 
 /**
  * Plane-parallel atmospheric attenuation of a calibrator: S is multiplied by exp(−τ/sin el).
@@ -130,7 +131,7 @@ export function onOffSensitivity(input: OnOffInput): OnOffResult {
   const aeOverT = (2 * K_BOLTZMANN_J_PER_K * ratio) / s;
   const sefd = (2 * K_BOLTZMANN_J_PER_K) / aeOverT;
   const rel = Math.sqrt(((ratio + 1) / ratio) ** 2 * (sOn * sOn + sOff * sOff) + sS * sS);
-  return {
+  return displayable<OnOffResult>({
     aeOverTsysM2PerK: aeOverT,
     sefdWPerM2Hz: sefd,
     sefdJy: sefd / JANSKY_W_PER_M2_HZ,
@@ -139,7 +140,7 @@ export function onOffSensitivity(input: OnOffInput): OnOffResult {
     appliedCorrections: applied,
     aeOverTsysSigmaM2PerK: rel * aeOverT,
     sefdSigmaJy: (rel * sefd) / JANSKY_W_PER_M2_HZ,
-  };
+  }, 'OnOffResult');
 }
 
 /**

@@ -7,6 +7,7 @@ import Papa from 'papaparse';
 import { DimensionError, DomainError, ParseError } from '../errors.js';
 import { type YFactorResult, yFactorReceiverTemperature } from './yfactor.js';
 import { type OnOffResult, onOffSensitivity, type FluxCorrections } from './sensitivity.js';
+import { displayable } from '../display/attach.js';
 
 /**
  * One row of a Y-factor table.
@@ -239,24 +240,24 @@ function throwFirst<T>(r: TableReduction<T>, what: string): T[] {
 const okRows = <R>(rows: readonly R[]): RowOutcome<R>[] => rows.map((row) => ({ ok: true as const, row }));
 
 function yFactorOf(o: YFactorTableOptions): (r: YFactorRow) => YFactorTableResult {
-  return (r) => ({
+  return (r) => displayable({
     channel: r.channel,
     ...yFactorReceiverTemperature({
       hotPower: r.hot, coldPower: r.cold, hotTemperatureK: o.hotTemperatureK, coldTemperatureK: o.coldTemperatureK, powerScale: o.powerScale,
       hotPowerRelativeSigma: o.powerRelativeSigma, coldPowerRelativeSigma: o.powerRelativeSigma,
       hotTemperatureSigmaK: o.hotTemperatureSigmaK, coldTemperatureSigmaK: o.coldTemperatureSigmaK,
     }),
-  });
+  }, 'YFactorResult');
 }
 
 function onOffOf(o: OnOffTableOptions): (r: OnOffRow) => OnOffTableResult {
-  return (r) => ({
+  return (r) => displayable({
     beam: r.beam,
     ...onOffSensitivity({
       onPower: r.on, offPower: r.off, fluxDensityWPerM2Hz: o.fluxDensityWPerM2Hz, corrections: o.corrections,
       onPowerRelativeSigma: o.powerRelativeSigma, offPowerRelativeSigma: o.powerRelativeSigma, fluxDensityRelativeSigma: o.fluxDensityRelativeSigma,
     }),
-  });
+  }, 'OnOffResult');
 }
 
 /**
