@@ -1,5 +1,5 @@
 import { bench, describe } from 'vitest';
-import { rectangularLattice } from '../../src/floquet/lattice.js';
+import { rectangularLattice } from '../../src/geometry/lattice.js';
 import { type InfiniteDipoleArrayOptions, infiniteArrayActiveImpedanceInto, infiniteDipoleArray } from '../../src/floquet/infiniteDipoleArray.js';
 import { seededRandom } from '../../test/helpers/matchers.js';
 

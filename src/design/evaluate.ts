@@ -12,7 +12,7 @@ import type { WireArrayPortSource } from '../wire/patterns.js';
 import { NumericError } from '../errors.js';
 import { layoutDiameterM, sphereQuadrature, sphereQuadratureForLayout, sphereQuadratureOrder, type SphereQuadrature } from '../geometry/index.js';
 import { displayable } from '../display/attach.js';
-import { gratingLobeCircles } from '../floquet/gratingLobes.js';
+import { gratingLobeCircles } from '../geometry/gratingLobes.js';
 import { createMultiport } from '../network/multiport.js';
 import { activeReflection } from '../network/sources.js';
 import { powerToDb, radToDeg, wavenumberRadPerM } from '../units/convert.js';

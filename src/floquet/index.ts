@@ -1,9 +1,10 @@
-export type { PlanarLattice } from './lattice.js';
-export { planarLattice, rectangularLattice, triangularLattice, scaleLattice } from './lattice.js';
+// The lattice and its grating lobes live in geometry; re-exported here for existing imports.
+export type { PlanarLattice } from '../geometry/lattice.js';
+export { planarLattice, rectangularLattice, triangularLattice, scaleLattice } from '../geometry/lattice.js';
 export type { ScanDirection, FloquetMode, FloquetModesOptions } from './modes.js';
 export { axialWavenumber, teModeImpedance, tmModeImpedance, floquetModes, propagatingFloquetModes } from './modes.js';
-export type { GratingLobeCircle, ScanConeSpacing } from './gratingLobes.js';
-export { gratingLobeCircles, gratingLobeFreeScanConeRad, latticeScaleForScanCone, spacingForScanCone } from './gratingLobes.js';
+export type { GratingLobeCircle, ScanConeSpacing } from '../geometry/gratingLobes.js';
+export { gratingLobeCircles, gratingLobeFreeScanConeRad, latticeScaleForScanCone, spacingForScanCone } from '../geometry/gratingLobes.js';
 export type { ArrayBacking } from './spectralGreen.js';
 export type { StripDipole } from './dipoleSpectrum.js';
 export type { InfiniteDipoleArrayOptions, InfiniteDipoleArray, ActiveImpedanceResult } from './infiniteDipoleArray.js';

@@ -9,7 +9,7 @@ import { assertFiniteArray, assertInRange } from '../internal/validate.js';
 import { wavenumberRadPerM } from '../units/convert.js';
 import { type DipoleSpectrum, type StripDipole, currentSpectrum, dipoleSpectrum, widthSpectrum } from './dipoleSpectrum.js';
 import { type GaussLegendreRule, gaussLegendre } from '../geometry/quadrature.js';
-import type { PlanarLattice } from './lattice.js';
+import type { PlanarLattice } from '../geometry/lattice.js';
 import { type ScanDirection, assertScan } from './modes.js';
 import { type ArrayBacking, type SpectralMedium, assertBacking, layeredImpedancesInto, spectralMedium } from './spectralGreen.js';
 

@@ -9,7 +9,7 @@ import { DomainError } from '../errors.js';
 import { assertFinite, assertInRange, assertInteger, assertPositive } from '../internal/validate.js';
 import { ETA0_OHM } from '../units/constants.js';
 import { wavenumberRadPerM } from '../units/convert.js';
-import type { PlanarLattice } from './lattice.js';
+import type { PlanarLattice } from '../geometry/lattice.js';
 import type { SphericalAngles } from '../geometry/directions.js';
 
 /**

@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { runCli } from '../../src/cli/main.js';
 import { dolphChebyshevTaper, taperEfficiency } from '../../src/taper/index.js';
-import { spacingForScanCone } from '../../src/floquet/gratingLobes.js';
+import { spacingForScanCone } from '../../src/geometry/gratingLobes.js';
 
 async function run(args: string[]): Promise<{ code: number; out: string; err: string }> {
   let out = '', err = '';

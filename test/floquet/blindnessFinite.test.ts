@@ -3,7 +3,7 @@ import { Complex } from 'complex.js';
 import slab from './fixtures/slab_modes.json';
 import { DimensionError, DomainError } from '../../src/errors.js';
 import { fromRows } from '../../src/linalg/cmatrix.js';
-import { rectangularLattice } from '../../src/floquet/lattice.js';
+import { rectangularLattice } from '../../src/geometry/lattice.js';
 import { infiniteDipoleArray } from '../../src/floquet/infiniteDipoleArray.js';
 import { findScanBlindness } from '../../src/floquet/scanBlindness.js';
 import { groundedSlabSurfaceWaves, phaseMatchedScanAngles } from '../../src/floquet/surfaceWaves.js';

@@ -3,7 +3,7 @@ import { Complex } from 'complex.js';
 import { dipoleArrayImpedanceMatrix, dipoleMutualImpedance, dipoleSelfImpedance } from '../../src/element/mutualImpedance.js';
 import type { WireDipole } from '../../src/element/types.js';
 import { zeros } from '../../src/linalg/cmatrix.js';
-import { rectangularLattice } from '../../src/floquet/lattice.js';
+import { rectangularLattice } from '../../src/geometry/lattice.js';
 import { infiniteArrayActiveImpedance, infiniteDipoleArray } from '../../src/floquet/infiniteDipoleArray.js';
 import { finiteArrayActiveImpedances } from '../../src/floquet/finiteArray.js';
 import { C0_M_PER_S } from '../../src/units/constants.js';

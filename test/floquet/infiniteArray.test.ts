@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fixture from './fixtures/floquet_brute.json';
 import { DomainError } from '../../src/errors.js';
-import { planarLattice, rectangularLattice, triangularLattice } from '../../src/floquet/lattice.js';
+import { planarLattice, rectangularLattice, triangularLattice } from '../../src/geometry/lattice.js';
 import {
   type InfiniteDipoleArray, infiniteArrayActiveImpedance, infiniteArrayActiveImpedanceInto, infiniteDipoleArray,
 } from '../../src/floquet/infiniteDipoleArray.js';
