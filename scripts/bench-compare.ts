@@ -1,24 +1,41 @@
 /**
  * npm run bench:compare — times phasewise kernels and, where python3 with numpy
- * is available, the same work in numpy (single thread) in the same run, and
- * prints medians with the phasewise/numpy ratio.
+ * is available, the same work in numpy, interleaved in the same run, and prints
+ * medians with the phasewise/numpy ratio.
+ *
+ * Interleaving: the run is split into rounds; in each round every kernel is
+ * timed in phasewise and then in numpy, so both see the same machine load.
+ * The ratio printed is the median over rounds of the per-round ratios, and the
+ * load average (1 min) is printed at the start and at the end.
+ *
+ * numpy runs single-threaded (OMP/OPENBLAS/MKL_NUM_THREADS=1) in two
+ * persistent python3 workers: one with the machine's OpenBLAS variables as set
+ * (OPENBLAS_CORETYPE, OPENBLAS_L2_SIZE, … — printed), one with every OPENBLAS_*
+ * variable except the thread count unset (OpenBLAS picks its kernel for the CPU,
+ * e.g. AVX-512). Each worker prints the OpenBLAS core it actually uses.
+ * Each numpy counterpart is taken in its best formulation: where a kernel
+ * lists alternatives, each is timed briefly and the fastest is used (named in
+ * the table).
  *
  * Kernels come from every scripts/compare/*.ts file exporting
  * `kernels: CompareKernel[]` (see scripts/compare/types.ts).
- * Usage: npm run bench:compare [-- <name filter>] [--seconds 1.0]
+ * Usage: npm run bench:compare [-- <name filter>] [--seconds 1.0] [--rounds 3]
  */
-import { spawnSync } from 'node:child_process';
+import { spawn, type ChildProcessWithoutNullStreams } from 'node:child_process';
 import { readdirSync } from 'node:fs';
+import { loadavg } from 'node:os';
 import { dirname, join } from 'node:path';
+import { createInterface } from 'node:readline';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import type { CompareKernel } from './compare/types.js';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const args = process.argv.slice(2);
-let seconds = 1.0;
+let seconds = 1.0, rounds = 3;
 const filters: string[] = [];
 for (let i = 0; i < args.length; i++) {
   if (args[i] === '--seconds') seconds = Number(args[++i]);
+  else if (args[i] === '--rounds') rounds = Math.max(1, Math.round(Number(args[++i])));
   else filters.push(args[i].toLowerCase());
 }
 
@@ -44,74 +61,111 @@ function median(xs: number[]): number {
   return s.length % 2 ? s[m] : 0.5 * (s[m - 1] + s[m]);
 }
 
-function timePhasewise(k: CompareKernel): { medianMs: number; samples: number } {
-  const state = k.setup();
-  const warmEnd = performance.now() + 0.25 * seconds * 1000;
+/** Median of one timing slice of `budgetS` seconds (at least 5 samples), after a short warm-up. */
+function timeSlice(run: () => void, budgetS: number, warmS: number): number {
+  const warmEnd = performance.now() + warmS * 1000;
   let warm = 0;
-  while (warm < 5 || performance.now() < warmEnd) { consume(k.run(state)); warm++; if (warm > 10000) break; }
+  while (warm < 3 || performance.now() < warmEnd) { run(); if (++warm > 10000) break; }
   const samples: number[] = [];
-  const end = performance.now() + seconds * 1000;
-  while (samples.length < 10 || (performance.now() < end && samples.length < 5000)) {
+  const end = performance.now() + budgetS * 1000;
+  while (samples.length < 5 || (performance.now() < end && samples.length < 5000)) {
     const t0 = performance.now();
-    consume(k.run(state));
+    run();
     samples.push(performance.now() - t0);
   }
-  return { medianMs: median(samples), samples: samples.length };
+  return median(samples);
 }
 
-const PY_RUNNER = String.raw`
-import json, sys, time
+const PY_WORKER = String.raw`
+import ctypes, glob, json, os, sys, time
+def reply(x): sys.stdout.write(json.dumps(x) + "\n"); sys.stdout.flush()
 try:
     import numpy as np
 except Exception as e:
-    print(json.dumps({"error": "numpy not importable: %s" % e})); sys.exit(0)
-cases = json.loads(sys.stdin.read())
-seconds = cases["seconds"]
-out = {"numpy": np.__version__, "results": {}}
-for c in cases["kernels"]:
-    ns = {"np": np, "rng": np.random.default_rng(1)}
+    reply({"error": "numpy not importable: %s" % e}); sys.exit(0)
+core = "unknown"
+try:
+    libs = glob.glob(os.path.join(os.path.dirname(np.__file__), "..", "numpy.libs", "*openblas*.so*"))
+    lib = ctypes.CDLL(libs[0])
+    for sym in ("scipy_openblas_get_corename64_", "openblas_get_corename64_", "openblas_get_corename"):
+        f = getattr(lib, sym, None)
+        if f is not None:
+            f.restype = ctypes.c_char_p; core = f().decode(); break
+except Exception:
+    pass
+reply({"numpy": np.__version__, "core": core})
+def median(s):
+    s = sorted(s); m = len(s) // 2
+    return s[m] if len(s) % 2 else 0.5 * (s[m - 1] + s[m])
+def slice_ms(code, ns, budget, warm):
+    t_end = time.perf_counter() + warm; n = 0
+    while n < 3 or time.perf_counter() < t_end:
+        exec(code, ns); n += 1
+    samples = []; t_end = time.perf_counter() + budget
+    while len(samples) < 5 or (time.perf_counter() < t_end and len(samples) < 5000):
+        t0 = time.perf_counter(); exec(code, ns); samples.append((time.perf_counter() - t0) * 1e3)
+    return median(samples)
+state = {}
+for line in sys.stdin:
+    req = json.loads(line)
+    name = req["name"]
     try:
-        exec(c["setup"], ns)
-        code = compile(c["run"], "<run>", "exec")
-        t_end = time.perf_counter() + 0.25 * seconds
-        n = 0
-        while n < 5 or time.perf_counter() < t_end:
-            exec(code, ns); n += 1
-        samples = []
-        t_end = time.perf_counter() + seconds
-        while len(samples) < 10 or (time.perf_counter() < t_end and len(samples) < 5000):
-            t0 = time.perf_counter(); exec(code, ns); samples.append((time.perf_counter() - t0) * 1e3)
-        samples.sort()
-        m = len(samples) // 2
-        out["results"][c["name"]] = samples[m] if len(samples) % 2 else 0.5 * (samples[m - 1] + samples[m])
+        if req["cmd"] == "setup":
+            ns = {"np": np, "rng": np.random.default_rng(1)}
+            exec(req["setup"], ns)
+            alts = [("numpy", req["run"])] + [(a["label"], a["run"]) for a in req.get("alternatives", [])]
+            best = None
+            for label, run in alts:
+                code = compile(run, "<run>", "exec")
+                ms = slice_ms(code, ns, 0.1 * req["seconds"], 0.05 * req["seconds"])
+                if best is None or ms < best[0]: best = (ms, label, code)
+            state[name] = (ns, best[2])
+            reply({"name": name, "label": best[1]})
+        else:
+            ns, code = state[name]
+            reply({"name": name, "ms": slice_ms(code, ns, req["seconds"], 0.05 * req["seconds"])})
     except Exception as e:
-        out["results"][c["name"]] = "n/a (%s)" % type(e).__name__
-print(json.dumps(out))
+        reply({"name": name, "error": "%s: %s" % (type(e).__name__, e)})
 `;
 
-function timeNumpy(ks: CompareKernel[]): { version?: string; results: Record<string, number | string>; note?: string } {
-  const withNumpy = ks.filter((k) => k.numpySnippet);
-  if (withNumpy.length === 0) return { results: {}, note: 'no kernel has a numpy counterpart' };
-  const payload = JSON.stringify({ seconds, kernels: withNumpy.map((k) => ({ name: k.name, ...k.numpySnippet })) });
-  // Single-threaded BLAS for a like-for-like comparison; other variables (e.g. OPENBLAS_CORETYPE) are kept.
-  const env = { ...process.env, OMP_NUM_THREADS: '1', OPENBLAS_NUM_THREADS: '1', MKL_NUM_THREADS: '1', VECLIB_MAXIMUM_THREADS: '1', NUMEXPR_NUM_THREADS: '1' };
-  const r = spawnSync('python3', ['-c', PY_RUNNER], { input: payload, env, encoding: 'utf8', maxBuffer: 1 << 24 });
-  if (r.error || r.status !== 0) return { results: {}, note: `python3 not available (${r.error ? r.error.message : `exit ${r.status}: ${r.stderr.trim().split('\n').pop()}`})` };
-  let parsed: { error?: string; numpy?: string; results?: Record<string, number | string> };
-  try {
-    parsed = JSON.parse(r.stdout.trim().split('\n').pop() ?? '{}');
-  } catch {
-    return { results: {}, note: 'could not read the python3 output' };
+/** One persistent python3 worker answering one JSON line per request. */
+class NumpyWorker {
+  private readonly proc: ChildProcessWithoutNullStreams;
+  private readonly lines: AsyncIterator<string>;
+  private readonly failed: Promise<IteratorResult<string>>;
+  constructor(readonly label: string, env: NodeJS.ProcessEnv) {
+    this.proc = spawn('python3', ['-c', PY_WORKER], { env, stdio: ['pipe', 'pipe', 'pipe'] });
+    this.lines = createInterface({ input: this.proc.stdout })[Symbol.asyncIterator]();
+    this.failed = new Promise((resolve) => this.proc.once('error', () => resolve({ done: true, value: undefined })));
   }
-  if (parsed.error) return { results: {}, note: parsed.error };
-  return { version: parsed.numpy, results: parsed.results ?? {} };
+  async next(): Promise<Record<string, unknown>> {
+    const r = await Promise.race([this.lines.next(), this.failed]);
+    if (r.done) return { error: 'python3 not available' };
+    return JSON.parse(r.value) as Record<string, unknown>;
+  }
+  async ask(req: Record<string, unknown>): Promise<Record<string, unknown>> {
+    this.proc.stdin.write(JSON.stringify(req) + '\n');
+    return this.next();
+  }
+  close(): void { this.proc.stdin.end(); }
 }
 
-function fmt(x: number | string | undefined): string {
-  if (x === undefined) return '—';
-  if (typeof x === 'string') return x;
+const THREADS_1 = { OMP_NUM_THREADS: '1', OPENBLAS_NUM_THREADS: '1', MKL_NUM_THREADS: '1', VECLIB_MAXIMUM_THREADS: '1', NUMEXPR_NUM_THREADS: '1' };
+
+function envAsSet(): NodeJS.ProcessEnv {
+  return { ...process.env, ...THREADS_1 };
+}
+function envUnset(): NodeJS.ProcessEnv {
+  const env: NodeJS.ProcessEnv = {};
+  for (const [k, v] of Object.entries(process.env)) if (!k.startsWith('OPENBLAS_') && !k.startsWith('GOTO')) env[k] = v;
+  return { ...env, ...THREADS_1 };
+}
+
+function fmt(x: number | undefined): string {
+  if (x === undefined || !Number.isFinite(x)) return '—';
   return x < 0.1 ? x.toFixed(4) : x < 10 ? x.toFixed(3) : x.toFixed(1);
 }
+const load1 = (): string => loadavg().map((v) => v.toFixed(2)).join(', ');
 
 async function main(): Promise<void> {
   const ks = await loadKernels();
@@ -119,27 +173,70 @@ async function main(): Promise<void> {
     process.stdout.write('no kernels matched\n');
     return;
   }
-  process.stdout.write(`phasewise bench:compare — node ${process.version}, ${ks.length} kernels, ~${seconds} s each\n`);
-  const ours = ks.map((k) => {
-    const r = timePhasewise(k);
-    process.stdout.write(`  timed ${k.name}: ${fmt(r.medianMs)} ms (${r.samples} samples)\n`);
-    return r;
-  });
-  const np = timeNumpy(ks);
-  if (np.note) process.stdout.write(`numpy: ${np.note}; printing phasewise alone.\n`);
-  else process.stdout.write(`numpy ${np.version} (single thread: OMP/OPENBLAS/MKL_NUM_THREADS=1)\n`);
+  const blasVars = Object.entries(process.env).filter(([k]) => k.startsWith('OPENBLAS_')).map(([k, v]) => `${k}=${v}`).join(' ') || '(none)';
+  process.stdout.write(`phasewise bench:compare — node ${process.version}, ${ks.length} kernels, ${rounds} rounds of ~${(seconds / rounds).toFixed(2)} s per kernel and side\n`);
+  process.stdout.write(`load average at start (1, 5, 15 min): ${load1()}\n`);
+  const workers = [new NumpyWorker('as set', envAsSet()), new NumpyWorker('unset', envUnset())];
+  const live: NumpyWorker[] = [];
+  for (const w of workers) {
+    const hello = await w.next();
+    if (typeof hello.error === 'string') { process.stdout.write(`numpy (${w.label}): ${hello.error}; skipped.\n`); w.close(); continue; }
+    live.push(w);
+    process.stdout.write(`numpy ${String(hello.numpy)}, one thread, OpenBLAS variables ${w.label === 'as set' ? `as set: ${blasVars}` : 'unset'} → OpenBLAS core ${String(hello.core)}\n`);
+  }
+  const slice = seconds / rounds;
+  const labels = new Map<string, string>();
+  for (const w of live) {
+    for (const k of ks) {
+      if (!k.numpySnippet) continue;
+      const r = await w.ask({ cmd: 'setup', name: k.name, seconds: slice, ...k.numpySnippet });
+      labels.set(`${w.label}/${k.name}`, typeof r.error === 'string' ? `n/a (${r.error})` : String(r.label));
+    }
+  }
+  const states = ks.map((k) => k.setup());
+  const ours: number[][] = ks.map(() => []);
+  const theirs: number[][][] = live.map(() => ks.map(() => []));
+  for (let round = 0; round < rounds; round++) {
+    for (let i = 0; i < ks.length; i++) {
+      const k = ks[i];
+      ours[i].push(timeSlice(() => consume(k.run(states[i])), slice, round === 0 ? 0.25 * slice : 0.05 * slice));
+      for (let w = 0; w < live.length; w++) {
+        if (!k.numpySnippet || labels.get(`${live[w].label}/${k.name}`)?.startsWith('n/a')) continue;
+        const r = await live[w].ask({ cmd: 'time', name: k.name, seconds: slice });
+        if (typeof r.ms === 'number') theirs[w][i].push(r.ms);
+      }
+    }
+    process.stdout.write(`  round ${round + 1}/${rounds} done (load ${load1()})\n`);
+  }
+  for (const w of live) w.close();
+  const head = ['kernel', 'phasewise [ms]'];
+  for (const w of live) head.push(`numpy ${w.label} [ms]`, `ratio (${w.label})`);
+  head.push('target', 'met');
+  const notes: string[] = [];
   const rows = ks.map((k, i) => {
-    const npv = np.results[k.name];
-    const ratio = typeof npv === 'number' ? (ours[i].medianMs / npv).toFixed(1) + '×' : '—';
-    const target = k.targetMs === undefined ? '—' : `≤ ${k.targetMs}`;
-    const meets = k.targetMs === undefined ? '' : ours[i].medianMs <= k.targetMs ? 'yes' : 'no';
-    return [k.name, fmt(ours[i].medianMs), fmt(npv), ratio, target, meets];
+    const row = [k.name, fmt(median(ours[i]))];
+    let unsetRatio: number | undefined;
+    for (let w = 0; w < live.length; w++) {
+      const t = theirs[w][i];
+      if (t.length === 0) { row.push(k.numpySnippet ? labels.get(`${live[w].label}/${k.name}`) ?? '—' : '—', '—'); continue; }
+      const ratio = median(ours[i].map((o, r) => o / t[Math.min(r, t.length - 1)]));
+      if (live[w].label === 'unset' || live.length === 1) unsetRatio = ratio;
+      const label = labels.get(`${live[w].label}/${k.name}`);
+      if (label !== 'numpy' && label !== undefined && w === live.length - 1) notes.push(`${k.name}: numpy's fastest formulation is "${label}"`);
+      row.push(fmt(median(t)), ratio.toFixed(2) + '×');
+    }
+    const target = k.targetRatio !== undefined ? `≤ ${k.targetRatio}× numpy` : k.targetMs !== undefined ? `≤ ${k.targetMs} ms` : '—';
+    const met = k.targetRatio !== undefined ? (unsetRatio === undefined ? '?' : unsetRatio <= k.targetRatio ? 'yes' : 'no')
+      : k.targetMs !== undefined ? (median(ours[i]) <= k.targetMs ? 'yes' : 'no') : '';
+    row.push(target, met);
+    return row;
   });
-  const head = ['kernel', 'phasewise median [ms]', 'numpy median [ms]', 'phasewise/numpy', 'target [ms]', 'met'];
   const widths = head.map((h, c) => Math.max(h.length, ...rows.map((r) => r[c].length)));
   const line = (r: string[]): string => '| ' + r.map((v, c) => v.padEnd(widths[c])).join(' | ') + ' |';
   process.stdout.write('\n' + line(head) + '\n' + '|' + widths.map((w) => '-'.repeat(w + 2)).join('|') + '|\n');
   for (const r of rows) process.stdout.write(line(r) + '\n');
+  for (const n of notes) process.stdout.write(`note: ${n}\n`);
+  process.stdout.write(`ratio = median over rounds of phasewise/numpy timed back to back; ratio targets are judged against numpy with OpenBLAS variables unset.\nload average at end (1, 5, 15 min): ${load1()}\n`);
 }
 
 main().catch((e: unknown) => {

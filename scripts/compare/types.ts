@@ -11,6 +11,8 @@ export interface CompareKernel<S = unknown> {
   name: string;
   /** Target median in milliseconds from the issue table, if there is one. */
   targetMs?: number;
+  /** Target ratio phasewise/numpy (one thread) from the issue, if there is one. */
+  targetRatio?: number;
   /** Builds the seeded inputs (untimed). */
   setup: () => S;
   /** The timed work; its result is consumed by the runner (NaN fails the run). */
@@ -18,7 +20,10 @@ export interface CompareKernel<S = unknown> {
   /**
    * The same work in numpy: `setup` runs once (untimed) with `np` and a seeded
    * `rng = np.random.default_rng(1)` in scope; `run` is the timed statement.
-   * Omit when numpy has no counterpart.
+   * `alternatives` are other formulations of the same work (e.g. scipy with
+   * `check_finite=False`, a BLAS rank-k routine): the runner times each briefly
+   * and compares against the fastest, naming it, so numpy is always taken in
+   * its best formulation. Omit the snippet when numpy has no counterpart.
    */
-  numpySnippet?: { setup: string; run: string };
+  numpySnippet?: { setup: string; run: string; alternatives?: Array<{ label: string; run: string }> };
 }

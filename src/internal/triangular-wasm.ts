@@ -26,7 +26,8 @@ export interface TriangularStage {
 /**
  * Solves T_s ⋯ T₂ T₁ X = B in place for the given triangular stages, applied
  * in order (X ← T₁⁻¹X, then T₂⁻¹X, …), with X n×nrhs interleaved row-major
- * holding B on entry. Each column panel is packed once, swept by every stage
+ * holding B on entry, or B read from `src` (same shape; then X's entry
+ * values are ignored and `src` is not written). Each column panel is packed once, swept by every stage
  * while it stays in cache, and unpacked once. Returns false (doing nothing)
  * when WebAssembly SIMD is unavailable.
  *
@@ -38,7 +39,7 @@ export interface TriangularStage {
  * result (Golub & Van Loan, *Matrix Computations*, 4th ed., 2013, §3.1,
  * from memory).
  */
-export function simdSolveTriangular(n: number, nrhs: number, stages: readonly TriangularStage[], x: Float64Array): boolean {
+export function simdSolveTriangular(n: number, nrhs: number, stages: readonly TriangularStage[], x: Float64Array, src: Float64Array = x): boolean {
   const mod = loadZtile();
   if (mod === null) return false;
   const w = Math.min(SIMD_PANEL, (nrhs + 3) & ~3);
@@ -77,7 +78,7 @@ export function simdSolveTriangular(n: number, nrhs: number, stages: readonly Tr
       for (let j = 0; j < w4; j++) {
         const d = x0 + (j >> 2) * g8 + 8 * i + (j & 3);
         if (j < pw) {
-          const vr = x[s + 2 * j], vi = x[s + 2 * j + 1];
+          const vr = src[s + 2 * j], vi = src[s + 2 * j + 1];
           f[d] = vr * ir - vi * ii;
           f[d + 4] = vr * ii + vi * ir;
         } else {

@@ -46,10 +46,11 @@ export interface CholeskyOptions {
  * @remarks
  * Row-oriented (Cholesky–Banachiewicz) ordering, so that each entry is an
  * inner product of two contiguous rows of L (Golub & Van Loan, *Matrix
- * Computations*, 4th ed., 2013, §4.2); from order 257 on, right-looking and
- * blocked (256 columns) with the trailing updates on the SIMD Hermitian
- * rank-k kernel (§4.2.9), which does most of the work (about 2.5 times
- * faster at N = 3000). Only the lower triangle of `a` is read
+ * Computations*, 4th ed., 2013, §4.2); from order 129 on, right-looking and
+ * blocked (64 columns, §4.2.9): the panel below each diagonal block is one
+ * triangular solve with many right-hand sides and the trailing update one
+ * Hermitian rank-64 product, both on the SIMD product kernel, which does
+ * nearly all the work. Only the lower triangle of `a` is read
  * after the Hermitian check. A non-positive (or non-finite) pivot is an
  * expected outcome and is returned as data (`positiveDefinite: false`,
  * `failedPivot`); {@link choleskySolve} then throws
@@ -80,9 +81,9 @@ export function choleskyFactor(a: CMatrix, options: CholeskyOptions = {}): Chole
 }
 
 /** Order from which the blocked factorisation is used. */
-const BLOCKED_MIN_ORDER = 257;
+const BLOCKED_MIN_ORDER = 129;
 /** Block width of the blocked factorisation. */
-const NB = 256;
+const NB = 64;
 
 /** Row-oriented (Banachiewicz) factorisation of the lower triangle of src (n×n); -1 or the failed pivot. */
 function unblockedCholesky(n: number, src: Float64Array): { l: Float64Array; failed: number } {
@@ -115,14 +116,16 @@ function unblockedCholesky(n: number, src: Float64Array): { l: Float64Array; fai
 
 /**
  * Right-looking blocked factorisation (Golub & Van Loan 2013, §4.2.9, from memory): for each
- * block column of width NB, factor the diagonal block, solve the panel below it against the
- * block's adjoint, and subtract the panel's Hermitian rank-NB product from the trailing lower
- * triangle on the SIMD rank-k kernel, where nearly all the work is.
+ * block column of width NB, factor the diagonal block (scalar, row-oriented), solve the panel
+ * below it against the block's adjoint (as one triangular solve with many right-hand sides on
+ * the SIMD product kernel), and subtract the panel's Hermitian rank-NB product from the trailing
+ * lower triangle on the SIMD rank-k kernel, where nearly all the work is.
  */
 function blockedCholesky(n: number, src: Float64Array): { l: Float64Array; failed: number } {
   const a = new Float64Array(2 * n * n);
   for (let i = 0; i < n; i++) a.set(src.subarray(2 * i * n, 2 * (i * n + i + 1)), 2 * i * n);
   const tmp = new Float64Array(2 * n * n);
+  const diag = new Float64Array(2 * NB * NB), panel = new Float64Array(2 * NB * n);
   for (let k0 = 0; k0 < n; k0 += NB) {
     const k1 = Math.min(n, k0 + NB);
     // diagonal block, in place (its entries already hold all earlier updates)
@@ -145,22 +148,21 @@ function blockedCholesky(n: number, src: Float64Array): { l: Float64Array; faile
       }
     }
     if (k1 === n) break;
-    // panel rows k1…n−1: x·L11ᴴ = a  ⇒  x_j = (a_j − Σ_{p<j} x_p conj(L_jp)) / L_jj
-    for (let i = k1; i < n; i++) {
-      const ri = 2 * i * n;
-      for (let j = k0; j < k1; j++) {
-        const rj = 2 * j * n;
-        let sr = a[ri + 2 * j], si = a[ri + 2 * j + 1];
-        for (let k = 2 * k0; k < 2 * j; k += 2) {
-          const ar = a[ri + k], ai = a[ri + k + 1], br = a[rj + k], bi = a[rj + k + 1];
-          sr -= ar * br + ai * bi; si -= ai * br - ar * bi;
-        }
-        const d = a[rj + 2 * j];
-        a[ri + 2 * j] = sr / d; a[ri + 2 * j + 1] = si / d;
-      }
+    // panel rows k1…n−1: X·L11ᴴ = A21 ⇔ L11·Xᴴ = A21ᴴ, solved for the m = n − k1 columns of
+    // A21ᴴ at once (the SIMD substitution with many right-hand sides)
+    const m = n - k1, w = k1 - k0;
+    const l11 = diag.subarray(0, 2 * w * w), y = panel.subarray(0, 2 * w * m);
+    for (let i = 0; i < w; i++) l11.set(a.subarray(2 * ((k0 + i) * n + k0), 2 * ((k0 + i) * n + k1)), 2 * i * w);
+    for (let i = 0; i < m; i++) {
+      const s0 = 2 * ((k1 + i) * n + k0);
+      for (let j = 0; j < w; j++) { y[2 * (j * m + i)] = a[s0 + 2 * j]; y[2 * (j * m + i) + 1] = -a[s0 + 2 * j + 1]; }
+    }
+    solveLowerInPlace(w, m, l11, y, false);
+    for (let i = 0; i < m; i++) {
+      const d0 = 2 * ((k1 + i) * n + k0);
+      for (let j = 0; j < w; j++) { a[d0 + 2 * j] = y[2 * (j * m + i)]; a[d0 + 2 * j + 1] = -y[2 * (j * m + i) + 1]; }
     }
     // trailing lower triangle −= P Pᴴ, P the panel (rows k1…n−1, columns k0…k1−1)
-    const m = n - k1, w = k1 - k0;
     const c = tmp.subarray(0, 2 * m * m);
     c.fill(0);
     herkLowerKernel(m, w, a.subarray(2 * (k1 * n + k0)), n, c);
@@ -212,8 +214,8 @@ function checkCholesky(f: CholeskyResult, b: CMatrix): void {
  */
 export function choleskySolve(factor: CholeskyResult, b: CMatrix): CMatrix {
   checkCholesky(factor, b);
-  const x = b.data.slice();
-  solveLowerThenUpperInPlace(factor.n, b.cols, factor.l.data, false, factor.lAdjoint.data, false, x);
+  const x = new Float64Array(b.data.length);
+  solveLowerThenUpperInPlace(factor.n, b.cols, factor.l.data, false, factor.lAdjoint.data, false, x, b.data);
   return { rows: b.rows, cols: b.cols, data: x };
 }
 

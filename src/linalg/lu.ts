@@ -5,7 +5,7 @@
  */
 import { Complex } from 'complex.js';
 import { DimensionError, SingularMatrixError } from '../errors.js';
-import { adjointSquare, solveLowerInPlace, solveLowerThenUpperInPlace, solveUpperInPlace } from '../internal/triangular.js';
+import { adjointSquare, solveLowerThenUpperInPlace, solveVectorInPlace } from '../internal/triangular.js';
 import { assertCMatrix, assertFiniteCMatrix, assertSquare } from '../internal/validate.js';
 import { type CMatrix, identity } from './cmatrix.js';
 import { norm1 } from './ops.js';
@@ -31,7 +31,7 @@ export interface LuResult {
 }
 
 /** Panel width of the blocked factorisation (columns factored together before one trailing product). */
-const LU_BLOCK = 48;
+const LU_BLOCK = 16;
 
 /**
  * Blocked right-looking LU with partial pivoting in place on interleaved row-major
@@ -154,11 +154,18 @@ function luSolveRaw(n: number, k: number, lu: Float64Array, piv: Int32Array, b: 
   return x;
 }
 
-/** Solves Aᴴ X = B given packed LU of A (no checks; `luH` its adjoint when already formed); B is n×k. */
-function luSolveAdjointRaw(n: number, k: number, lu: Float64Array, piv: Int32Array, b: Float64Array, luH = adjointSquare(n, lu)): Float64Array {
+/** Solves Aᴴ X = B given packed LU of A (no checks); B is n×k. */
+function luSolveAdjointRaw(n: number, k: number, lu: Float64Array, piv: Int32Array, b: Float64Array): Float64Array {
   // Aᴴ = Uᴴ Lᴴ P: solve Uᴴ w = b (lower), Lᴴ v = w (unit upper), x = Pᵀ v.
   const w = b.slice();
-  solveLowerThenUpperInPlace(n, k, luH, false, luH, true, w);
+  if (k === 1) {
+    // one right-hand side: substitutions that read the rows of U and L (no adjoint copy)
+    solveVectorInPlace(n, lu, w, false, false, true);
+    solveVectorInPlace(n, lu, w, true, true, true);
+  } else {
+    const luH = adjointSquare(n, lu);
+    solveLowerThenUpperInPlace(n, k, luH, false, luH, true, w);
+  }
   const x = new Float64Array(2 * n * k);
   for (let i = 0; i < n; i++) x.set(w.subarray(2 * i * k, 2 * (i + 1) * k), 2 * piv[i] * k);
   return x;
@@ -170,7 +177,6 @@ function estimateInverseNorm1(n: number, lu: Float64Array, piv: Int32Array): num
   for (let i = 0; i < n; i++) x[2 * i] = 1 / n;
   let est = 0;
   let lastJ = -1;
-  let luH: Float64Array | null = null;
   for (let iter = 0; iter < 5; iter++) {
     const y = luSolveRaw(n, 1, lu, piv, x);
     let ynorm = 0;
@@ -182,8 +188,7 @@ function estimateInverseNorm1(n: number, lu: Float64Array, piv: Int32Array): num
     }
     if (iter > 0 && ynorm <= est) { est = Math.max(est, ynorm); break; }
     est = ynorm;
-    luH ??= adjointSquare(n, lu);
-    const z = luSolveAdjointRaw(n, 1, lu, piv, xi, luH);
+    const z = luSolveAdjointRaw(n, 1, lu, piv, xi);
     let j = 0, zmax = -1, ztx = 0;
     for (let i = 0; i < n; i++) {
       const m = Math.hypot(z[2 * i], z[2 * i + 1]);
