@@ -95,6 +95,8 @@ export interface PreparedDesign {
   readonly failedElements?: Int32Array;
   /** Subarray partition (design `imperfections.subarrays`), else undefined. */
   readonly subarrays?: SubarrayLayout;
+  /** Ports per element: 2 for crossed dipoles (port 2n + p is element n's polarisation p), else 1. */
+  readonly portsPerElement: 1 | 2;
 }
 
 /** @internal Imported element data, parsed once. */
@@ -320,6 +322,7 @@ export function prepareDesign(design: Design, options: PrepareDesignOptions = {}
   const subarrays = designSubarrays(d, file);
   return {
     design: d, fileName: file, frequenciesHz, layout, lattice, beams, taper, amplifiersAt, imported, reportFrequencyIndices: reportFrequencies(d, frequenciesHz),
+    portsPerElement: d.elements.kind === 'crossedDipole' ? 2 : 1,
     ...(failedElements ? { failedElements } : {}), ...(subarrays ? { subarrays } : {}),
   };
 }
@@ -331,9 +334,9 @@ export function prepareDesign(design: Design, options: PrepareDesignOptions = {}
  */
 function checkElementModel(d: Design, file: string, band: Float64Array): void {
   const e = d.elements;
-  if (e.kind !== 'dipole') return;
+  if (e.kind !== 'dipole' && e.kind !== 'crossedDipole') return;
   const fMax = band[band.length - 1];
-  const failed = dipoleModelChecks([{ centerM: [0, 0, 0], axis: e.axis, lengthM: e.lengthM, radiusM: e.radiusM }], fMax).filter((c) => !c.passed);
+  const failed = dipoleModelChecks([{ centerM: [0, 0, 0], axis: [1, 0, 0], lengthM: e.lengthM, radiusM: e.radiusM }], fMax).filter((c) => !c.passed);
   if (failed.length > 0) {
     const c = failed[0];
     throw fieldError(file, c.name === 'elementModel.wireRadius' ? 'elements.radiusM' : 'elements.lengthM',
@@ -353,7 +356,8 @@ function reportFrequencies(d: Design, band: Float64Array): number[] {
 
 /**
  * The array's ports at one band frequency: analytic dipoles re-evaluated at f (one-mode
- * induced-EMF model, element module), wire elements solved at f by the thin-wire method of
+ * induced-EMF model, element module; crossed dipoles give two ports per element, X then Y,
+ * the crossed pair's own mutual impedance being zero by symmetry), wire elements solved at f by the thin-wire method of
  * moments (wire module: the template placed at every layout position, segmented for f, full
  * coupling, open-circuit embedded patterns), or the imported network interpolated to f
  * (network module, real–imaginary rule) with the embedded patterns at f.
@@ -368,6 +372,14 @@ export function designPortsAt(prepared: PreparedDesign, frequencyHz: number): Ar
   const e = d.elements;
   if (e.kind === 'dipole') {
     const dipoles: WireDipole[] = wrapField(file, 'elements', () => dipolesFromLayout(layout, { lengthM: e.lengthM, radiusM: e.radiusM, axis: e.axis, heightM: e.groundPlaneHeightM ?? 0 }));
+    return wrapField(file, 'elements', () => dipoleArrayPorts(dipoles, frequencyHz, e.groundPlaneHeightM === undefined ? {} : { groundPlane: { zM: 0 } }));
+  }
+  if (e.kind === 'crossedDipole') {
+    // X and Y dipoles interleaved: port 2n is element n's X dipole, port 2n + 1 its Y dipole
+    const r = degToRad(e.rotationDeg ?? 0);
+    const along = (axis: readonly [number, number, number]) => wrapField(file, 'elements', () => dipolesFromLayout(layout, { lengthM: e.lengthM, radiusM: e.radiusM, axis, heightM: e.groundPlaneHeightM ?? 0 }));
+    const xs = along([Math.cos(r), Math.sin(r), 0]), ys = along([-Math.sin(r), Math.cos(r), 0]);
+    const dipoles = xs.flatMap((x, n) => [x, ys[n]]);
     return wrapField(file, 'elements', () => dipoleArrayPorts(dipoles, frequencyHz, e.groundPlaneHeightM === undefined ? {} : { groundPlane: { zM: 0 } }));
   }
   if (e.kind === 'wire') {

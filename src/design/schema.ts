@@ -66,6 +66,13 @@ const dipoleElements = z.strictObject({
   axis: vector3.refine((v) => Math.hypot(v[0], v[1], v[2]) > 0, { message: 'expected a non-zero axis vector' }),
   groundPlaneHeightM: positive('m').optional(),
 });
+const crossedDipoleElements = z.strictObject({
+  kind: z.literal('crossedDipole'),
+  lengthM: positive('m'),
+  radiusM: positive('m'),
+  rotationDeg: finite.optional(),
+  groundPlaneHeightM: positive('m').optional(),
+});
 const importedElements = z.strictObject({
   kind: z.literal('imported'),
   touchstoneFile: z.string().min(1),
@@ -102,7 +109,7 @@ const wireElements = z.strictObject({
   check(['port'], e.port.wire);
   e.loads?.forEach((l, i) => check(['loads', i], l.wire));
 });
-const elements = z.discriminatedUnion('kind', [dipoleElements, importedElements, wireElements]);
+const elements = z.discriminatedUnion('kind', [dipoleElements, crossedDipoleElements, importedElements, wireElements]);
 
 /** Realisable noise parameters: the network module's one rule ({@link noiseParameterProblem}). */
 function checkRealisable(ctx: z.RefinementCtx, path: PropertyKey[], tMin: number, rn: number, y: number | { re: number; im: number }): void {
