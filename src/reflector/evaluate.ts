@@ -12,6 +12,9 @@ import { type QuadratureDirections, quadratureDirections } from '../reception/pa
 import type { ArrayPortSource } from '../reception/ports.js';
 import { type LossModel, type NoiseBudget, arrayNoiseBudget } from '../reception/budget.js';
 import { type BeamFigures, beamFigures, maxSnrWeightsUnpolarized, minimumReceiverTemperature } from '../reception/figures.js';
+import { type ArrayEvaluation, FIGURE_UNITS } from '../reception/evaluate.js';
+import { receivingArrayChecks } from '../reception/checks.js';
+import { impedancePassivity } from '../network/checks.js';
 import type { Paraboloid } from './paraboloid.js';
 import { type SecondaryPatternOptions, type SecondaryPatterns, secondaryPatternsPhysicalOptics } from './secondary.js';
 
@@ -107,20 +110,20 @@ export interface ReflectorArrayFeedDescription {
 }
 
 /**
- * Result of {@link evaluateReflectorArrayFeed}.
+ * Result of {@link evaluateReflectorArrayFeed}: the shared array-evaluation shape (the noise budget
+ * of the feed ports — sky through the dish, spillover, loss, receivers — weights, beams, T_rec,min,
+ * physical checks, the feed-side rule and units) and the secondary beam patterns.
  * @category Reflector
  */
-export interface ReflectorArrayFeedEvaluation {
-  /** Noise budget of the feed ports (sky through the dish, spillover, loss, receivers) [V²]. */
-  readonly budget: NoiseBudget;
+export interface ReflectorArrayFeedEvaluation extends ArrayEvaluation {
   /** Secondary patterns of every port at the beam directions [V]. */
   readonly beamPatterns: SecondaryPatterns;
-  /** Open-circuit weights used, N×K. */
-  readonly weights: CMatrix;
-  /** Figures per beam (T_sys and parts, A_e, A_e/T_sys, efficiencies with the dish's projected area as the physical area). */
+  /**
+   * The same array as `beams` (figures per beam: T_sys and parts, A_e, A_e/T_sys, efficiencies
+   * with the dish's projected area as the physical area).
+   * @deprecated Read `beams`, the field every array evaluation has; kept for one minor version.
+   */
   readonly figures: BeamFigures[];
-  /** The array feed's minimum receiver temperature T_rec,min [K]. */
-  readonly minimumReceiverTemperatureK: number;
 }
 
 /**
@@ -182,5 +185,8 @@ export function evaluateReflectorArrayFeed(d: ReflectorArrayFeedDescription): Re
     fluxDensityWPerM2Hz: d.fluxDensityWPerM2Hz,
     minimumReceiverTemperatureK: tMin,
   });
-  return { budget, beamPatterns, weights, figures, minimumReceiverTemperatureK: tMin };
+  const checks = receivingArrayChecks({
+    budget, beams: figures, lossless: d.loss === 'lossless', passivity: impedancePassivity(d.feed.impedanceOhm), minimumReceiverTemperatureK: tMin,
+  });
+  return { budget, beamPatterns, weights, beams: figures, figures, minimumReceiverTemperatureK: tMin, checks, quadrature, units: FIGURE_UNITS };
 }
