@@ -21,9 +21,10 @@ import type { CholeskyResult } from '../linalg/cholesky.js';
 import type { PortGeometry } from './ports.js';
 import { K_BOLTZMANN_J_PER_K } from '../units/constants.js';
 import {
-  assertPatternSource, quadratureDirections, samplePatterns, sampledPatternSource,
+  assertPatternSource, samplePatterns, asPatternSource,
   type PortPatternSource, type QuadratureDirections, type SampledPortPatterns,
 } from './patterns.js';
+import { weightedDirections } from '../geometry/directions.js';
 import { displayable } from '../display/attach.js';
 
 /**
@@ -179,8 +180,7 @@ function toQuadrature(q: SphereQuadrature | QuadratureDirections | 'adaptive', d
     }
     return adaptiveSphereRule(d.ports.geometry, frequencyHz, { edgeNormals: d.environment?.edgeNormals });
   }
-  if (q !== null && typeof q === 'object' && 'weights' in q && 'thetaCount' in q) return quadratureDirections(q);
-  return q as QuadratureDirections;
+  return weightedDirections(q);
 }
 
 /** Refinement factor of the node counts of the check rule (common practice: a clearly finer rule). */
@@ -246,7 +246,7 @@ export function evaluateReceivingArray(description: ReceivingArrayDescription): 
   if (d.ports === null || typeof d.ports !== 'object') {
     throw new DomainError(`invalid argument "description.ports": expected {patterns, impedanceOhm}, received ${describeValue(d.ports)}.`);
   }
-  const source = 'fill' in d.ports.patterns ? d.ports.patterns : sampledPatternSource(d.ports.patterns as SampledPortPatterns);
+  const source = asPatternSource('description.ports.patterns', d.ports.patterns);
   assertPatternSource('description.ports.patterns', source);
   if (d.beams === null || typeof d.beams !== 'object') {
     throw new DomainError(`invalid argument "description.beams": expected {thetaRad, phiRad}, received ${describeValue(d.beams)}.`);

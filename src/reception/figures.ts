@@ -6,7 +6,7 @@
  */
 import { ConvergenceError, DimensionError, DomainError, NotPositiveDefiniteError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
-import { choleskyFactor, choleskySolve, type CholeskyResult } from '../linalg/cholesky.js';
+import { choleskyFactor, type CholeskyResult } from '../linalg/cholesky.js';
 import { inverse } from '../linalg/lu.js';
 import { lanczosExtremes } from '../internal/lanczos.js';
 import { solveLowerInPlace, solveUpperInPlace } from '../internal/triangular.js';
@@ -17,7 +17,6 @@ import { wavelengthM } from '../units/convert.js';
 import type { NoiseBudget } from './budget.js';
 import { assertSampledPatterns, type SampledPortPatterns } from './patterns.js';
 import { displayable } from '../display/attach.js';
-import { matrixView } from '../linalg/cmatrix.js';
 import { maxSnrWeightsUnpolarizedSource } from '../beamform/unpolarized.js';
 
 /**

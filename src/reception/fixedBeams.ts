@@ -6,7 +6,6 @@
  */
 import { DimensionError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
-import { zeros } from '../linalg/cmatrix.js';
 import { adjoint, multiply } from '../linalg/ops.js';
 import { assertFiniteCMatrix, describeValue } from '../internal/validate.js';
 import { assertSampledPatterns, type SampledPortPatterns } from './patterns.js';

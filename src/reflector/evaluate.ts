@@ -8,9 +8,10 @@ import { assertNonNegative, assertPositive } from '../internal/validate.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
 import type { NoiseParametersInput } from '../network/noise.js';
 import { type SphereQuadrature, sphereQuadrature } from '../geometry/quadrature.js';
-import { type QuadratureDirections, quadratureDirections } from '../reception/patterns.js';
+import type { QuadratureDirections } from '../reception/patterns.js';
+import { weightedDirections } from '../geometry/directions.js';
 import type { ArrayPortSource } from '../reception/ports.js';
-import { type LossModel, type NoiseBudget, arrayNoiseBudget } from '../reception/budget.js';
+import { type LossModel, arrayNoiseBudget } from '../reception/budget.js';
 import { type BeamFigures, beamFigures, maxSnrWeightsUnpolarized, minimumReceiverTemperature } from '../reception/figures.js';
 import { type ArrayEvaluation, FIGURE_UNITS } from '../reception/evaluate.js';
 import { receivingArrayChecks } from '../reception/checks.js';
@@ -159,7 +160,7 @@ export function evaluateReflectorArrayFeed(d: ReflectorArrayFeedDescription): Re
     throw new DimensionError(`invalid argument "feed.impedanceOhm": expected ${d.feed.patterns.portCount}×${d.feed.patterns.portCount} (one row per feed port), received ${d.feed.impedanceOhm.rows}×${d.feed.impedanceOhm.cols}.`);
   }
   const rule = d.feedQuadrature ?? reflectorFeedQuadrature(d.dish);
-  const quadrature = 'weightSr' in rule ? rule : quadratureDirections(rule);
+  const quadrature = weightedDirections(rule);
   const dish = d.dish;
   const budget = arrayNoiseBudget({
     patterns: d.feed.patterns,
