@@ -275,10 +275,7 @@ export function tridiagonalQl(d: Float64Array, e: Float64Array, n: number, z: Fl
       e[m] = 0;
     }
   }
-  if (ws !== null && z !== null) {
-    const v = ws.view, st = ws.stride;
-    for (let k = 0; k < n; k++) for (let t = 0; t < n; t++) z[k * n + t] = v[t * st + k];
-  }
+  if (ws !== null && z !== null) ws.readInto(z);
 }
 
 /** Reflectors per block of the back-transformation. */
