@@ -21,4 +21,5 @@ export * from './floquet/index.js';
 export * from './wire/index.js';
 export * from './imperfect/index.js';
 export * from './design/index.js';
+export * from './display/index.js';
 export { VERSION } from './version.js';

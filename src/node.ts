@@ -6,3 +6,4 @@
 export { readYFactorCsv, readOnOffCsv } from './measure/node.js';
 export { readTouchstoneFile, writeTouchstoneFile } from './network/node.js';
 export { readPatternFile, writePatternFile } from './element/node.js';
+export { writeFigure } from './plot/node.js';

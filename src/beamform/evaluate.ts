@@ -8,6 +8,7 @@ import { DimensionError, DomainError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
 import { quadraticForm } from '../linalg/ops.js';
 import { assertColumn, assertFiniteCMatrix, assertInteger, assertShape } from '../internal/validate.js';
+import { matrixView } from '../linalg/cmatrix.js';
 
 /** |wᴴ column j of b|² for every column, no checks. */
 export function responsePowersInto(out: Float64Array, w: CMatrix, b: CMatrix): Float64Array {
@@ -60,7 +61,7 @@ export function beamResponse(w: CMatrix, responses: CMatrix): CMatrix {
     out[2 * j] = re;
     out[2 * j + 1] = im;
   }
-  return { rows: k, cols: 1, data: out };
+  return matrixView(k, 1, out);
 }
 
 /**

@@ -13,6 +13,7 @@ import { HERMITIAN_TOLERANCE } from './conditioning.js';
 import { multiplyInto } from '../linalg/ops.js';
 import { RandomStream } from '../internal/random.js';
 import { assertFiniteArray, assertFiniteCMatrix, assertInteger, assertNonNegative, assertShape } from '../internal/validate.js';
+import { matrixView } from '../linalg/cmatrix.js';
 
 /**
  * A simulated observation scenario for {@link simulateSnapshots}.
@@ -61,7 +62,7 @@ export interface SnapshotSimulation {
 function complexNormalMatrix(g: RandomStream, rows: number, cols: number): CMatrix {
   const data = new Float64Array(2 * rows * cols);
   g.fillComplexNormal(data, rows * cols);
-  return { rows, cols, data };
+  return matrixView(rows, cols, data);
 }
 
 /** Any factor F with F Fᴴ = C for a Hermitian PSD C (from its eigendecomposition), K×K. */
@@ -82,7 +83,7 @@ function psdFactor(name: string, c: CMatrix): CMatrix {
       out[2 * (i * k + j) + 1] = v.data[2 * (i * k + j) + 1] * lam;
     }
   }
-  return { rows: k, cols: k, data: out };
+  return matrixView(k, k, out);
 }
 
 function checkPowers(name: string, p: ArrayLike<number>, k: number): void {
@@ -236,5 +237,5 @@ export function sampleCorrelation(snapshots: CMatrix): CMatrix {
       out[2 * (j * n + i) + 1] = i === j ? 0 : -im / t;
     }
   }
-  return { rows: n, cols: n, data: out };
+  return matrixView(n, n, out);
 }

@@ -12,6 +12,7 @@ import { add } from '../linalg/ops.js';
 import { assertColumn, assertFiniteCMatrix, assertShape } from '../internal/validate.js';
 import { factorCorrelation, factorGram } from './conditioning.js';
 import { type BeamNormalization, assertNormalization, normalizeColumn } from './normalize.js';
+import { matrixView } from '../linalg/cmatrix.js';
 
 /**
  * Options shared by the weight functions.
@@ -221,7 +222,7 @@ function gramian(y: CMatrix): CMatrix {
       out[2 * (b * m + a) + 1] = -im;
     }
   }
-  return { rows: m, cols: m, data: out };
+  return matrixView(m, m, out);
 }
 
 /**

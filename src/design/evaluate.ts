@@ -10,6 +10,7 @@ import type { PhysicalCheck } from '../checks.js';
 import type { WireArrayPortSource } from '../wire/patterns.js';
 import { NumericError } from '../errors.js';
 import { layoutDiameterM, sphereQuadrature, sphereQuadratureForLayout, sphereQuadratureOrder, type SphereQuadrature } from '../geometry/index.js';
+import { displayable } from '../display/attach.js';
 import { gratingLobeCircles } from '../floquet/grating-lobes.js';
 import { createMultiport } from '../network/multiport.js';
 import { activeReflection } from '../network/sources.js';
@@ -459,11 +460,11 @@ export function evaluateDesignFrequency(prepared: PreparedDesign, index: number)
   const amplifiers = p.amplifiersAt?.(f);
   const { ev, sphere } = receiveAt(p, f, ports, env.environment, amplifiers);
   const quadrature = sphere.rule;
-  const beamRows: DesignBeamFigures[] = ev.beams.map((b) => ({
+  const beamRows: DesignBeamFigures[] = ev.beams.map((b) => displayable({
     ...b,
     gainOverTemperatureDbPerK: gainOverTemperatureDbPerK(b.sensitivityM2PerK, f),
     sefdJy: systemEquivalentFluxDensityJy(b.sensitivityM2PerK),
-  }));
+  }, 'BeamFigures'));
   const out: { -readonly [K in keyof FrequencyEvaluation]: FrequencyEvaluation[K] } = {
     frequencyHz: f, skyK,
     quadrature: { kind: sphere.kind, thetaCount: quadrature.thetaCount, phiCount: quadrature.phiCount, directionCount: ev.quadrature.thetaRad.length },
@@ -518,7 +519,7 @@ export function evaluateDesignFrequency(prepared: PreparedDesign, index: number)
     out.cutAngleDeg = angleDeg;
     out.activeReflection = activeReflectionOverBeams(p, ports.impedanceOhm, f, kept);
   }
-  return out;
+  return displayable<FrequencyEvaluation>(out, 'FrequencyEvaluation');
 }
 
 /** Γ of the centre and the outermost element for the phase-steered excitation of every beam (50 Ω). */
@@ -627,7 +628,7 @@ export function assembleDesignEvaluation(prepared: PreparedDesign, frequencies: 
       circles: gratingLobeCircles(p.lattice, fMax, 2).filter((c) => c.m !== 0 || c.n !== 0).map((c) => ({ m: c.m, n: c.n, u: c.centerU, v: c.centerV, radius: c.radius })),
     };
   }
-  return out;
+  return displayable<DesignEvaluation>(out, 'DesignEvaluation');
 }
 
 /**

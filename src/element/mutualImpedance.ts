@@ -16,6 +16,7 @@ import {
   assertAboveGround, assertGroundPlane, dipoleGeometry, imageGeometry,
   type DipoleGeometry, type GroundPlane, type WireDipole,
 } from './types.js';
+import { matrixView } from '../linalg/cmatrix.js';
 
 /**
  * Options of the pair and matrix induced-EMF functions.
@@ -395,5 +396,5 @@ export function dipoleArrayImpedanceMatrix(dipoles: ReadonlyArray<WireDipole>, f
       data[2 * (j * n + i)] = zr; data[2 * (j * n + i) + 1] = zi;
     }
   }
-  return { rows: n, cols: n, data };
+  return matrixView(n, n, data);
 }

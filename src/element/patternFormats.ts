@@ -36,6 +36,7 @@ import { ParseError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
 import { embeddedPatternSet, type EmbeddedPatternSet, type PatternExcitation } from './patternSet.js';
 import { NumericError } from '../errors.js';
+import { matrixView } from '../linalg/cmatrix.js';
 
 const FORMAT = 'phasewise-embedded-patterns';
 const DEG = Math.PI / 180;
@@ -119,7 +120,7 @@ function fieldName(path: ReadonlyArray<PropertyKey>): string {
 function columnMatrix(values: ReadonlyArray<{ re: number; im: number }>): CMatrix {
   const d = new Float64Array(2 * values.length);
   values.forEach((v, i) => { d[2 * i] = v.re; d[2 * i + 1] = v.im; });
-  return { rows: values.length, cols: 1, data: d };
+  return matrixView(values.length, 1, d);
 }
 
 /** Wraps a validation failure of the assembled set as a ParseError. */

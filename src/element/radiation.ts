@@ -19,6 +19,7 @@ import {
   assertAboveGround, assertGroundPlane, assertVector3, dipoleGeometry, imageGeometry,
   type DipoleGeometry, type GroundPlane, type HertzianDipole, type IsotropicRadiator, type WireDipole,
 } from './types.js';
+import { matrixView } from '../linalg/cmatrix.js';
 
 const EULER_GAMMA = 0.5772156649015329;
 
@@ -379,5 +380,5 @@ export function radiationResistanceMatrix(set: EmbeddedPatternSet, weightsSr: Ar
       out[2 * (b * n + a)] = s * re; out[2 * (b * n + a) + 1] = -s * im;
     }
   }
-  return { rows: n, cols: n, data: out };
+  return matrixView(n, n, out);
 }

@@ -9,6 +9,7 @@ import { herkLowerKernel } from '../internal/herk.js';
 import { assertCMatrix, assertFiniteCMatrix, assertSquare } from '../internal/validate.js';
 import type { CMatrix } from './cmatrix.js';
 import { hermitianDeviation } from './ops.js';
+import { matrixView } from './cmatrix.js';
 
 /**
  * Result of {@link choleskyFactor}: A = L·Lᴴ with L lower triangular and a
@@ -216,7 +217,7 @@ export function choleskySolve(factor: CholeskyResult, b: CMatrix): CMatrix {
   checkCholesky(factor, b);
   const x = new Float64Array(b.data.length);
   solveLowerThenUpperInPlace(factor.n, b.cols, factor.l.data, false, factor.lAdjoint.data, false, x, b.data);
-  return { rows: b.rows, cols: b.cols, data: x };
+  return matrixView(b.rows, b.cols, x);
 }
 
 function checkTriangular(name: string, t: CMatrix, b: CMatrix): void {
@@ -247,7 +248,7 @@ export function solveLowerTriangular(l: CMatrix, b: CMatrix): CMatrix {
   assertFiniteCMatrix('b', b);
   const x = b.data.slice();
   solveLowerInPlace(l.rows, b.cols, l.data, x, false);
-  return { rows: b.rows, cols: b.cols, data: x };
+  return matrixView(b.rows, b.cols, x);
 }
 
 /**
@@ -263,5 +264,5 @@ export function solveLowerAdjoint(l: CMatrix, b: CMatrix): CMatrix {
   assertFiniteCMatrix('b', b);
   const x = b.data.slice();
   solveUpperInPlace(l.rows, b.cols, adjointSquare(l.rows, l.data), x, false);
-  return { rows: b.rows, cols: b.cols, data: x };
+  return matrixView(b.rows, b.cols, x);
 }

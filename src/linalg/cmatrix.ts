@@ -6,6 +6,20 @@
 import { Complex } from 'complex.js';
 import { DimensionError, DomainError, ParseError } from '../errors.js';
 import { assertCMatrix, assertInteger, describeValue } from '../internal/validate.js';
+import { displayPrototype } from '../display/attach.js';
+import { show } from '../display/format.js';
+
+/** Shared prototype of every matrix the factories make: prints as a summary in Node (docs/display.md). */
+const CMATRIX_PROTOTYPE = displayPrototype('CMatrix');
+
+/** A matrix object on the display prototype, fields as given (no checks). */
+function makeMatrix(rows: number, cols: number, data: Float64Array): CMatrix {
+  const m = Object.create(CMATRIX_PROTOTYPE) as { rows: number; cols: number; data: Float64Array };
+  m.rows = rows;
+  m.cols = cols;
+  m.data = data;
+  return m;
+}
 
 /**
  * Dense complex matrix, row-major, interleaved `[re, im]`.
@@ -79,7 +93,7 @@ export function matrixView(rows: number, cols: number, data: Float64Array): CMat
   if (!(data instanceof Float64Array) || data.length !== 2 * rows * cols) {
     throw new DimensionError(`invalid argument "data": expected a Float64Array of length ${2 * rows * cols} (2·${rows}·${cols}), received ${describeValue(data)}.`);
   }
-  return { rows, cols, data };
+  return makeMatrix(rows, cols, data);
 }
 
 /**
@@ -91,7 +105,7 @@ export function matrixView(rows: number, cols: number, data: Float64Array): CMat
  */
 export function zeros(rows: number, cols: number = rows): CMatrix {
   checkDims(rows, cols);
-  return { rows, cols, data: new Float64Array(2 * rows * cols) };
+  return makeMatrix(rows, cols, new Float64Array(2 * rows * cols));
 }
 
 /**
@@ -228,7 +242,7 @@ export function diagonal(values: ReadonlyArray<ComplexLike> | Float64Array): CMa
  */
 export function clone(a: CMatrix): CMatrix {
   assertCMatrix('a', a);
-  return { rows: a.rows, cols: a.cols, data: a.data.slice() };
+  return makeMatrix(a.rows, a.cols, a.data.slice());
 }
 
 function checkIndex(a: CMatrix, i: number, j: number): void {
@@ -354,37 +368,17 @@ export function matrixFromJSON(json: CMatrixJSON): CMatrix {
   return fromParts(re, im, rows, cols);
 }
 
-function formatComplex(re: number, im: number, digits: number): string {
-  const r = re.toPrecision(digits);
-  const s = im < 0 || Object.is(im, -0) ? '-' : '+';
-  return `${r}${s}${Math.abs(im).toPrecision(digits)}j`;
-}
-
 /**
- * A readable multi-line rendering for notebooks and debugging.
+ * A readable multi-line rendering for notebooks and debugging: shape, Frobenius norm and the
+ * entries, large matrices elided to their corners (the text {@link show} gives a matrix).
  * @param a - Matrix.
  * @param digits - Significant digits per part (default 5).
- * @returns Text with one line per row; large matrices are elided with `…`.
+ * @returns Text with a header line and one line per shown row; elided rows and columns are `⋮` and `…`.
+ * @throws {@link DimensionError} if `a` is not a CMatrix; {@link DomainError} if `digits` is not an integer in [1, 17].
  * @category Complex core
  */
 export function formatMatrix(a: CMatrix, digits = 5): string {
   assertCMatrix('a', a);
   assertInteger('digits', digits, 1, 17);
-  const maxR = Math.min(a.rows, 12);
-  const maxC = Math.min(a.cols, 8);
-  const cells: string[][] = [];
-  let w = 0;
-  for (let i = 0; i < maxR; i++) {
-    const row: string[] = [];
-    for (let j = 0; j < maxC; j++) {
-      const k = 2 * (i * a.cols + j);
-      const t = formatComplex(a.data[k], a.data[k + 1], digits);
-      w = Math.max(w, t.length);
-      row.push(t);
-    }
-    cells.push(row);
-  }
-  const lines = cells.map((row) => '[ ' + row.map((t) => t.padStart(w)).join('  ') + (a.cols > maxC ? '  …' : '') + ' ]');
-  if (a.rows > maxR) lines.push('  …');
-  return `CMatrix ${a.rows}×${a.cols}\n` + lines.join('\n');
+  return show(a, { digits, maxRows: 12, maxCols: 8 });
 }

@@ -7,7 +7,7 @@ import { Complex } from 'complex.js';
 import { DimensionError, SingularMatrixError } from '../errors.js';
 import { adjointSquare, solveLowerThenUpperInPlace, solveVectorInPlace } from '../internal/triangular.js';
 import { assertCMatrix, assertFiniteCMatrix, assertSquare } from '../internal/validate.js';
-import { type CMatrix, identity } from './cmatrix.js';
+import { type CMatrix, identity, matrixView } from './cmatrix.js';
 import { norm1 } from './ops.js';
 import { gemmKernel } from '../internal/gemm.js';
 
@@ -239,7 +239,7 @@ function checkFactor(f: LuResult): void {
  */
 export function luSolve(factor: LuResult, b: CMatrix): CMatrix {
   checkFactorAndRhs(factor, b);
-  return { rows: b.rows, cols: b.cols, data: luSolveRaw(factor.n, b.cols, factor.lu.data, factor.pivots, b.data) };
+  return matrixView(b.rows, b.cols, luSolveRaw(factor.n, b.cols, factor.lu.data, factor.pivots, b.data));
 }
 
 /**
@@ -252,7 +252,7 @@ export function luSolve(factor: LuResult, b: CMatrix): CMatrix {
  */
 export function luSolveAdjoint(factor: LuResult, b: CMatrix): CMatrix {
   checkFactorAndRhs(factor, b);
-  return { rows: b.rows, cols: b.cols, data: luSolveAdjointRaw(factor.n, b.cols, factor.lu.data, factor.pivots, b.data) };
+  return matrixView(b.rows, b.cols, luSolveAdjointRaw(factor.n, b.cols, factor.lu.data, factor.pivots, b.data));
 }
 
 /**

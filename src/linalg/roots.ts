@@ -6,6 +6,7 @@
 import { ConvergenceError, DimensionError, DomainError } from '../errors.js';
 import { assertCMatrix, assertFiniteCMatrix, assertInteger } from '../internal/validate.js';
 import type { CMatrix } from './cmatrix.js';
+import { matrixView } from './cmatrix.js';
 
 const EPS = 2.220446049250313e-16;
 
@@ -243,7 +244,7 @@ export function polynomialRoots(coefficients: CMatrix, options: PolynomialRootsO
     out[2 * r] = all[2 * idx[r]];
     out[2 * r + 1] = all[2 * idx[r] + 1];
   }
-  return { rows: total, cols: 1, data: out };
+  return matrixView(total, 1, out);
 }
 
 /**
@@ -307,5 +308,5 @@ export function polynomialFromRoots(roots: CMatrix): CMatrix {
       c[2 * j + 1] -= rr * pi + ri * pr;
     }
   }
-  return { rows: n + 1, cols: 1, data: c };
+  return matrixView(n + 1, 1, c);
 }

@@ -6,6 +6,7 @@
 import { ConvergenceError, DimensionError } from '../errors.js';
 import { assertFiniteCMatrix, assertNonNegative } from '../internal/validate.js';
 import type { CMatrix } from './cmatrix.js';
+import { matrixView } from './cmatrix.js';
 
 const EPS = 2.220446049250313e-16;
 
@@ -308,7 +309,7 @@ export function pseudoInverse(a: CMatrix, options: RankOptions = {}): CMatrix {
       }
     }
   }
-  return { rows: n, cols: m, data: out };
+  return matrixView(n, m, out);
 }
 
 /**

@@ -7,6 +7,7 @@ import { assertColumn, assertFinite, assertFiniteCMatrix, assertInRange, assertP
 import type { CMatrix } from '../linalg/cmatrix.js';
 import { quadraticForm } from '../linalg/ops.js';
 import { JANSKY_W_PER_M2_HZ, K_BOLTZMANN_J_PER_K } from '../units/constants.js';
+import { displayable } from '../display/attach.js';
 
 /**
  * Plane-parallel atmospheric attenuation of a calibrator: S is multiplied by exp(−τ/sin el).
@@ -112,14 +113,14 @@ export function onOffSensitivity(input: OnOffInput): OnOffResult {
   const ratio = (input.onPower - input.offPower) / input.offPower;
   const aeOverT = (2 * K_BOLTZMANN_J_PER_K * ratio) / s;
   const sefd = (2 * K_BOLTZMANN_J_PER_K) / aeOverT;
-  return {
+  return displayable<OnOffResult>({
     aeOverTsysM2PerK: aeOverT,
     sefdWPerM2Hz: sefd,
     sefdJy: sefd / JANSKY_W_PER_M2_HZ,
     sourceToSystemRatio: ratio,
     effectiveFluxDensityWPerM2Hz: s,
     appliedCorrections: applied,
-  };
+  }, 'OnOffResult');
 }
 
 /**

@@ -7,6 +7,7 @@ import Papa from 'papaparse';
 import { DimensionError, DomainError, ParseError } from '../errors.js';
 import { type YFactorResult, yFactorReceiverTemperature } from './yfactor.js';
 import { type OnOffResult, onOffSensitivity, type FluxCorrections } from './sensitivity.js';
+import { displayable } from '../display/attach.js';
 
 /**
  * One row of a Y-factor table.
@@ -143,7 +144,7 @@ export function reduceYFactorTable(rows: readonly YFactorRow[], options: YFactor
   if (!Array.isArray(rows)) throw new DimensionError('invalid argument "rows": expected an array of {channel, hot, cold}.');
   return rows.map((r, i) => {
     try {
-      return { channel: r.channel, ...yFactorReceiverTemperature({ hotPower: r.hot, coldPower: r.cold, hotTemperatureK: options.hotTemperatureK, coldTemperatureK: options.coldTemperatureK, powerScale: options.powerScale }) };
+      return displayable({ channel: r.channel, ...yFactorReceiverTemperature({ hotPower: r.hot, coldPower: r.cold, hotTemperatureK: options.hotTemperatureK, coldTemperatureK: options.coldTemperatureK, powerScale: options.powerScale }) }, 'YFactorResult');
     } catch (e) {
       if (e instanceof DomainError) throw new DomainError(`data row ${i + 1} (channel "${r.channel}"): ${e.message}`);
       throw e;
@@ -164,7 +165,7 @@ export function reduceOnOffTable(rows: readonly OnOffRow[], fluxDensityWPerM2Hz:
   if (!Array.isArray(rows)) throw new DimensionError('invalid argument "rows": expected an array of {beam, on, off}.');
   return rows.map((r, i) => {
     try {
-      return { beam: r.beam, ...onOffSensitivity({ onPower: r.on, offPower: r.off, fluxDensityWPerM2Hz, corrections }) };
+      return displayable({ beam: r.beam, ...onOffSensitivity({ onPower: r.on, offPower: r.off, fluxDensityWPerM2Hz, corrections }) }, 'OnOffResult');
     } catch (e) {
       if (e instanceof DomainError) throw new DomainError(`data row ${i + 1} (beam "${r.beam}"): ${e.message}`);
       throw e;

@@ -5,6 +5,7 @@
 import { DomainError } from '../errors.js';
 import { assertFinite, assertNonNegative, assertPositive } from '../internal/validate.js';
 import { T0_K } from '../units/constants.js';
+import { displayable } from '../display/attach.js';
 
 /**
  * Inputs of {@link yFactorReceiverTemperature}.
@@ -121,13 +122,13 @@ export function yFactorReceiverTemperature(input: YFactorInput): YFactorResult {
     coldTemperature: ((y * stc) / (y - 1)) ** 2,
   };
   const variance = budget.hotPower + budget.coldPower + budget.hotTemperature + budget.coldTemperature;
-  return {
+  return displayable<YFactorResult>({
     yFactor: y,
     receiverTemperatureK: tRec,
     receiverTemperatureSigmaK: Math.sqrt(variance),
     varianceBudgetK2: budget,
     noiseFigureDb: 10 * Math.log10(1 + tRec / T0_K),
-  };
+  }, 'YFactorResult');
 }
 
 /**
@@ -232,5 +233,5 @@ export function noiseSourceReceiverTemperature(input: NoiseSourceInput): NoiseSo
     coldTemperatureK: tOff,
     powerScale: input.powerScale,
   });
-  return { ...r, onTemperatureK: tOn, offTemperatureK: tOff, enrReferenceTemperatureK: t0 };
+  return displayable({ ...r, onTemperatureK: tOn, offTemperatureK: tOff, enrReferenceTemperatureK: t0 }, 'YFactorResult');
 }

@@ -26,6 +26,7 @@ import { K_BOLTZMANN_J_PER_K } from '../units/constants.js';
 import { convertMultiport, renormalizeStack } from './convert.js';
 import { type Multiport, assertMultiport, createMultiport, waveCoefficients, withFields } from './multiport.js';
 import { asPowerScattering, checkPortList, combineMultiports, toWaves } from './ports.js';
+import { displayable } from '../display/attach.js';
 
 /**
  * A load impedance for {@link terminatePorts}: a constant [Ω] (number or complex), one value
@@ -187,10 +188,10 @@ function reduce(
   }
   const refOut = new Float64Array(2 * e);
   ext.forEach((p, i) => { refOut[2 * i] = ref[2 * p]; refOut[2 * i + 1] = ref[2 * p + 1]; });
-  return {
+  return displayable<Multiport>({
     ports: e, frequencyHz: net.frequencyHz.slice(), form: 'scattering', data: out, referenceOhm: refOut,
     waves: 'power', portNames: ext.map((p) => net.portNames[p]), ...(outNoise ? { noiseWaves: outNoise } : {}),
-  };
+  }, 'Multiport');
 }
 
 /** Reflection coefficient stack (interleaved, length 2F) of a load seen from a port (power waves). */

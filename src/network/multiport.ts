@@ -3,8 +3,9 @@
  * @module
  */
 import { DimensionError, DomainError } from '../errors.js';
-import { type CMatrix, type ComplexLike, complexParts } from '../linalg/cmatrix.js';
+import { type CMatrix, type ComplexLike, complexParts, matrixView } from '../linalg/cmatrix.js';
 import { assertCMatrix, assertInteger, describeValue } from '../internal/validate.js';
+import { displayable } from '../display/attach.js';
 
 /**
  * Representation in which a {@link Multiport} stores its matrices.
@@ -204,7 +205,7 @@ export function createMultiport(
   if (waves !== 'power' && waves !== 'pseudo') {
     throw new DomainError(`invalid option "waves": expected 'power' or 'pseudo', received ${describeValue(waves)}.`);
   }
-  return {
+  return displayable<Multiport>({
     ports: n,
     frequencyHz: f,
     form,
@@ -212,7 +213,7 @@ export function createMultiport(
     referenceOhm: packReferences('referenceOhm', options.referenceOhm, n),
     waves,
     portNames: checkPortNames(options.portNames, n),
-  };
+  }, 'Multiport');
 }
 
 /** Validates port names or makes the default ones. @internal */
@@ -241,7 +242,7 @@ export function multiportMatrix(net: Multiport, k: number): CMatrix {
   assertMultiport('net', net);
   assertInteger('k', k, 0, net.frequencyHz.length - 1);
   const nn = net.ports * net.ports;
-  return { rows: net.ports, cols: net.ports, data: net.data.slice(2 * k * nn, 2 * (k + 1) * nn) };
+  return matrixView(net.ports, net.ports, net.data.slice(2 * k * nn, 2 * (k + 1) * nn));
 }
 
 /** Structural check of a Multiport argument. @internal */
@@ -303,5 +304,5 @@ export function voltageCurrentCoefficients(ref: Float64Array, waves: WaveDefinit
 export function withFields(net: Multiport, fields: Partial<Multiport>): Multiport {
   const out: Multiport = { ...net, ...fields };
   if (out.noiseWaves === undefined) delete (out as { noiseWaves?: Float64Array }).noiseWaves;
-  return out;
+  return displayable(out, 'Multiport');
 }

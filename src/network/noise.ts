@@ -15,13 +15,14 @@
  */
 import { Complex } from 'complex.js';
 import { DimensionError, DomainError, SingularMatrixError } from '../errors.js';
-import { type CMatrix, type ComplexLike, complexParts, identity } from '../linalg/cmatrix.js';
+import { type CMatrix, type ComplexLike, complexParts, identity, matrixView } from '../linalg/cmatrix.js';
 import { add, adjoint, multiply, scale, subtract } from '../linalg/ops.js';
 import { inverse } from '../linalg/lu.js';
 import { K_BOLTZMANN_J_PER_K, T0_K } from '../units/constants.js';
 import { assertFiniteCMatrix, assertNonNegative, assertPositive, assertShape, assertSquare, describeValue } from '../internal/validate.js';
 import { convertMultiport, powerScatteringStack } from './convert.js';
 import { type Multiport, assertMultiport, waveCoefficients, withFields } from './multiport.js';
+import { displayable } from '../display/attach.js';
 
 /**
  * Noise parameters of a two-port (IRE/IEEE convention).
@@ -115,11 +116,11 @@ export function noiseParametersFromFigure(
   const [gr, gi] = complexParts('optimumReflection', optimumReflection);
   if (!(gr * gr + gi * gi < 1)) throw new DomainError(`invalid argument "optimumReflection": expected |Γ_opt| < 1, received ${Math.hypot(gr, gi)}.`);
   const g = new Complex(gr, gi);
-  return {
+  return displayable<TwoPortNoiseParameters>({
     minimumNoiseTemperatureK: T0_K * (10 ** (minimumNoiseFigureDb / 10) - 1),
     noiseResistanceOhm,
     optimumSourceAdmittanceS: new Complex(1).sub(g).div(g.add(1).mul(referenceOhm)),
-  };
+  }, 'TwoPortNoiseParameters');
 }
 
 /**
@@ -179,11 +180,11 @@ export function noiseParametersFromChainCorrelation(chainCorrelation: CMatrix, b
   const ycR = ciuR / cuu, ycI = ciuI / cuu;
   const gu = Math.max(0, cii - (ciuR * ciuR + ciuI * ciuI) / cuu) / k;
   const gOpt = Math.sqrt(Math.max(0, gu / rn + ycR * ycR));
-  return {
+  return displayable<TwoPortNoiseParameters>({
     minimumNoiseTemperatureK: 2 * T0_K * rn * (gOpt + ycR),
     noiseResistanceOhm: rn,
     optimumSourceAdmittanceS: new Complex(gOpt, -ycI),
-  };
+  }, 'TwoPortNoiseParameters');
 }
 
 /**
@@ -320,7 +321,7 @@ export function thermalNoiseWaves(scattering: CMatrix, temperatureK: number, ban
 }
 
 function stackMatrix(stack: Float64Array, n: number, k: number): CMatrix {
-  return { rows: n, cols: n, data: stack.slice(2 * k * n * n, 2 * (k + 1) * n * n) };
+  return matrixView(n, n, stack.slice(2 * k * n * n, 2 * (k + 1) * n * n));
 }
 
 /** (I − S)·F per frequency (power waves, the network's references). */

@@ -6,6 +6,7 @@ import { DimensionError, DomainError } from '../errors.js';
 import { describeValue } from '../internal/validate.js';
 import { convertMultiport, fromScatteringStack, powerScatteringStack, renormalizeStack } from './convert.js';
 import { type Multiport, assertMultiport, checkPortNames, withFields } from './multiport.js';
+import { displayable } from '../display/attach.js';
 
 /** Validates a list of distinct port indices of `net`. @internal */
 export function checkPortList(name: string, ports: ReadonlyArray<number>, n: number, allowEmpty = false): number[] {
@@ -141,10 +142,10 @@ export function combineMultiports(nets: ReadonlyArray<Multiport>): Multiport {
     names.push(...m.portNames);
     off += p;
   }
-  return {
+  return displayable<Multiport>({
     ports: n, frequencyHz: nets[0].frequencyHz.slice(), form: 'scattering', data: s, referenceOhm: ref,
     waves: 'power', portNames: names, ...(noise ? { noiseWaves: noise } : {}),
-  };
+  }, 'Multiport');
 }
 
 /** The network as power-wave S with its own references (form 'scattering'). @internal */

@@ -9,7 +9,7 @@
  * @module
  */
 import { DimensionError, DomainError, NotPositiveDefiniteError, SingularMatrixError } from '../errors.js';
-import { type CMatrix, type ComplexLike, complexParts, zeros } from '../linalg/cmatrix.js';
+import { type CMatrix, type ComplexLike, complexParts, zeros, matrixView } from '../linalg/cmatrix.js';
 import { add, hermitianPart, multiply, pick, subtract } from '../linalg/ops.js';
 import { inverse, solve } from '../linalg/lu.js';
 import { choleskyFactor, choleskySolve } from '../linalg/cholesky.js';
@@ -378,5 +378,5 @@ export function activeReflection(net: Multiport, incidentWaves: CMatrix): CMatri
       }
     }
   }
-  return { rows: nf * kx, cols: n, data: out };
+  return matrixView(nf * kx, n, out);
 }

@@ -5,6 +5,7 @@
  */
 import { DomainError } from '../errors.js';
 import { assertFinite, assertInteger, describeValue } from '../internal/validate.js';
+import { displayable } from '../display/attach.js';
 
 /**
  * Figures of a one-dimensional pattern cut. Angles are in the cut's own
@@ -152,7 +153,7 @@ export function cutFigures(field: (t: number) => number, start: number, end: num
     }
     isr = outside > 0 ? 10 * Math.log10(outside / inside) : -Infinity;
   }
-  return {
+  return displayable<CutFigures>({
     peakAt, peakValue,
     halfPowerAt: [hpL, hpR],
     halfPowerWidth: hpL !== undefined && hpR !== undefined ? hpR - hpL : undefined,
@@ -160,5 +161,5 @@ export function cutFigures(field: (t: number) => number, start: number, end: num
     firstNullWidth: nullL !== undefined && nullR !== undefined ? nullR - nullL : undefined,
     peakSidelobeDb: sllDb, peakSidelobeAt: sllAt,
     integratedSidelobeRatioDb: isr,
-  };
+  }, 'CutFigures');
 }

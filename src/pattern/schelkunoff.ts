@@ -7,6 +7,7 @@ import type { CMatrix } from '../linalg/cmatrix.js';
 import { polynomialFromRoots, polynomialRoots } from '../linalg/roots.js';
 import { assertColumn, assertFinite, assertFiniteArray, assertFiniteCMatrix, assertInteger, assertPositive, describeValue } from '../internal/validate.js';
 import { wavenumberRadPerM } from '../units/convert.js';
+import { matrixView } from '../linalg/cmatrix.js';
 
 /**
  * The array polynomial's coefficients cₙ = conj(wₙ)·e^{−jnβ}, n = 0…N−1,
@@ -21,7 +22,7 @@ function coefficientsFromWeights(weights: CMatrix, beta: number): CMatrix {
     data[o] = wr * c - wi * s;
     data[o + 1] = wr * s + wi * c;
   }
-  return { rows: n, cols: 1, data };
+  return matrixView(n, 1, data);
 }
 
 /**
@@ -85,7 +86,7 @@ export function weightsFromSchelkunoffZeros(zeros: CMatrix, progressivePhaseRad 
     data[2 * i] = cr * cs - ci * sn;
     data[2 * i + 1] = -(cr * sn + ci * cs);
   }
-  return { rows: n, cols: 1, data };
+  return matrixView(n, 1, data);
 }
 
 /**

@@ -10,3 +10,5 @@ export type { SmithTrace, SmithChartOptions } from './smith.js';
 export { smithChartSvg } from './smith.js';
 export type { UvCircle, GratingLobeDiagramOptions, ZeroPlotOptions } from './circles.js';
 export { gratingLobeDiagramSvg, zeroPlotSvg } from './circles.js';
+export type { Figure, MimeBundle } from './figure.js';
+export { figure, figureMimeBundle } from './figure.js';

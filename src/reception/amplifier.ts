@@ -5,7 +5,7 @@
  * @module
  */
 import { DimensionError, DomainError } from '../errors.js';
-import { complexParts, type CMatrix } from '../linalg/cmatrix.js';
+import { complexParts, type CMatrix, matrixView } from '../linalg/cmatrix.js';
 import type { NoiseParametersInput } from '../network/noise.js';
 import { assertFiniteCMatrix, assertPositive, assertSquare, describeValue } from '../internal/validate.js';
 import { K_BOLTZMANN_J_PER_K, T0_K } from '../units/constants.js';
@@ -110,7 +110,7 @@ export function receiverNoiseCorrelation(
       out[2 * (j * n + i)] = s * re; out[2 * (j * n + i) + 1] = im === 0 ? 0 : -s * im;
     }
   }
-  return { rows: n, cols: n, data: out };
+  return matrixView(n, n, out);
 }
 
 /** @internal Validates one shared or N per-port amplifier descriptions. */

@@ -13,6 +13,7 @@ import {
   assertPatternSource, assertQuadrature, sampledPatternSource,
   type PortPatternSource, type QuadratureDirections, type SampledPortPatterns,
 } from './patterns.js';
+import { matrixView } from '../linalg/cmatrix.js';
 
 /**
  * Brightness temperature as a function of direction [K] (θ from +z, φ from +x, radians).
@@ -188,7 +189,7 @@ export function brightnessCorrelations(
   return acc.map((c) => {
     mirrorLowerToUpper(n, c);
     for (let k = 0; k < c.length; k++) c[k] *= scale;
-    return { rows: n, cols: n, data: c };
+    return matrixView(n, n, c);
   });
 }
 

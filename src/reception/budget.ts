@@ -19,6 +19,7 @@ import {
 import { ohmicLossNoiseCorrelation } from './thermal.js';
 import { thermalImpedanceNoise, type NoiseParametersInput } from '../network/noise.js';
 import type { Vector3 } from '../geometry/layout.js';
+import { matrixView } from '../linalg/cmatrix.js';
 
 /**
  * The noise environment: a brightness distribution and which directions count
@@ -254,7 +255,7 @@ export function externalNoise(
 /** @internal The loss-noise matrix of a loss model. */
 export function lossNoise(lossModel: LossModel, z: CMatrix, tPhys: number, b: number, radiationPerK: CMatrix): CMatrix {
   const n = z.rows;
-  if (lossModel === 'lossless') return { rows: n, cols: n, data: new Float64Array(2 * n * n) };
+  if (lossModel === 'lossless') return matrixView(n, n, new Float64Array(2 * n * n));
   if (lossModel === 'fromPatterns') return ohmicLossNoiseCorrelation(z, tPhys, b, { isotropicRadiationPerK: radiationPerK });
   if (lossModel !== null && typeof lossModel === 'object' && 'lossResistanceOhm' in lossModel) return ohmicLossNoiseCorrelation(z, tPhys, b, { lossResistanceOhm: lossModel.lossResistanceOhm });
   if (lossModel !== null && typeof lossModel === 'object') return ohmicLossNoiseCorrelation(z, tPhys, b, { radiationEfficiency: lossModel.radiationEfficiency });

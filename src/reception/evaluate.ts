@@ -24,6 +24,7 @@ import {
   assertPatternSource, quadratureDirections, samplePatterns, sampledPatternSource,
   type PortPatternSource, type QuadratureDirections, type SampledPortPatterns,
 } from './patterns.js';
+import { displayable } from '../display/attach.js';
 
 /**
  * The N ports of a receiving array: embedded open-circuit patterns and the
@@ -325,11 +326,11 @@ export function evaluateReceivingArray(description: ReceivingArrayDescription): 
     portChecks: d.ports.checks, integrationTolerance: d.integrationTolerance,
   });
   const tChecks = performance.now() - t;
-  return {
+  return displayable<ReceivingArrayEvaluation>({
     budget, weights: sweep.weights, beams: sweep.beams, minimumReceiverTemperatureK: tMin,
     embeddedElementEfficiency: eff, units: FIGURE_UNITS, checks, integrationErrors, quadrature,
     timingsMs: { noiseBudget: tBudget, beamPatterns: tPatterns, weightsAndFigures: tFigures, arrayFigures: tArray, checks: tChecks, refinement: tRefine },
-  };
+  }, 'ReceivingArrayEvaluation');
 }
 
 function terminationList(z: ComplexLike | ReadonlyArray<ComplexLike> | undefined, n: number): { re: number; im: number }[] {

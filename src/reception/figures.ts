@@ -16,6 +16,8 @@ import { ETA0_OHM, K_BOLTZMANN_J_PER_K } from '../units/constants.js';
 import { wavelengthM } from '../units/convert.js';
 import type { NoiseBudget } from './budget.js';
 import { assertSampledPatterns, type SampledPortPatterns } from './patterns.js';
+import { displayable } from '../display/attach.js';
+import { matrixView } from '../linalg/cmatrix.js';
 
 /**
  * Figures of merit of one beam. Temperatures are referred to the isotropic
@@ -207,7 +209,7 @@ function figuresFromForms(
     fig.snr = (s * sig) / (pIso * tSys);
   }
   if (o.minimumReceiverTemperatureK !== undefined && tRec > 0) fig.noiseMatchingEfficiency = o.minimumReceiverTemperatureK / tRec;
-  return fig;
+  return displayable(fig, 'BeamFigures');
 }
 
 /**
@@ -291,7 +293,7 @@ export function maxSnrWeightsUnpolarized(first: SampledPortPatterns | CMatrix, s
     if (!(norm > 0)) throw new DomainError(`beam ${k}: the array has no response in this direction (all patterns are zero); choose another beam direction.`);
     for (let i = 0; i < n; i++) { out[2 * (i * kb + k)] /= norm; out[2 * (i * kb + k) + 1] /= norm; }
   }
-  return { rows: n, cols: kb, data: out };
+  return matrixView(n, kb, out);
 }
 
 /**
@@ -338,7 +340,7 @@ export function scanSweep(budget: NoiseBudget, beamPatterns: SampledPortPatterns
     throw new DomainError(`invalid argument "options.onProgress": expected a function (done, total) → void, received ${describeValue(options.onProgress)}.`);
   }
   const beams = figuresOfColumns(budget, weights, beamPatterns, options, options.onProgress);
-  return { weights, beams };
+  return displayable<ScanSweepResult>({ weights, beams }, 'ScanSweepResult');
 }
 
 /**

@@ -4,7 +4,7 @@
  * @module
  */
 import { DomainError } from '../errors.js';
-import { complexParts, type CMatrix, type ComplexLike } from '../linalg/cmatrix.js';
+import { complexParts, type CMatrix, type ComplexLike, matrixView } from '../linalg/cmatrix.js';
 import { describeValue } from '../internal/validate.js';
 import { C0_M_PER_S, ETA0_OHM } from '../units/constants.js';
 import { assertSampledPatterns, type SampledPortPatterns } from './patterns.js';
@@ -173,5 +173,5 @@ export function openCircuitVoltages(patterns: SampledPortPatterns, polarization:
       out[q + 1] = -c * sr;
     }
   }
-  return { rows: n, cols: m, data: out };
+  return matrixView(n, m, out);
 }

@@ -17,6 +17,7 @@ import { hertzianMutualResistance } from '../element/radiation.js';
 import type { ShiftedElementPattern } from './displacement.js';
 import type { PortPatternSource } from './patterns.js';
 import { physicalCheck, type PhysicalCheck } from '../checks.js';
+import { matrixView } from '../linalg/cmatrix.js';
 
 /**
  * The ports of a receiving array with a pattern source that fills any block
@@ -291,7 +292,7 @@ export function hertzianDipolePorts(dipoles: ReadonlyArray<HertzianDipole>, freq
     return g;
   });
   const n = geo.length;
-  const z: CMatrix = { rows: n, cols: n, data: new Float64Array(2 * n * n) };
+  const z: CMatrix = matrixView(n, n, new Float64Array(2 * n * n));
   for (let a = 0; a < n; a++) {
     for (let b = 0; b < n; b++) {
       let r = hertzianMutualResistance(k, geo[a], geo[b]);

@@ -9,6 +9,7 @@ import { ETA0_OHM } from '../units/constants.js';
 import { wavelengthM } from '../units/convert.js';
 import { assertSampledPatterns, type SampledPortPatterns } from './patterns.js';
 import { parsePolarization, type IncidentPolarization } from './planeWave.js';
+import { matrixView } from '../linalg/cmatrix.js';
 
 /**
  * Options of {@link pointSourceCorrelation}.
@@ -79,7 +80,7 @@ export function pointSourceCorrelation(patterns: SampledPortPatterns, directionI
         out[o + 1] = s * (ft[a + 1] * ft[b] - ft[a] * ft[b + 1] + fp[a + 1] * fp[b] - fp[a] * fp[b + 1]);
       }
     }
-    return { rows: n, cols: n, data: out };
+    return matrixView(n, n, out);
   }
   const e = new Float64Array(4);
   parsePolarization('options.polarization', options.polarization)(patterns.phiRad[directionIndex], e);
@@ -101,5 +102,5 @@ export function pointSourceCorrelation(patterns: SampledPortPatterns, directionI
       out[o + 1] = s * (pi[i] * pr[j] - pr[i] * pi[j]);
     }
   }
-  return { rows: n, cols: n, data: out };
+  return matrixView(n, n, out);
 }

@@ -9,6 +9,7 @@ import { assertFiniteArray, assertFiniteCMatrix, assertPositive, assertSquare } 
 import { K_BOLTZMANN_J_PER_K } from '../units/constants.js';
 import { checkTemperature } from './brightness.js';
 import { thermalImpedanceNoise } from '../network/noise.js';
+import { matrixView } from '../linalg/cmatrix.js';
 
 /**
  * Options of {@link ohmicLossNoiseCorrelation}: give exactly one description of the radiation.
@@ -88,7 +89,7 @@ export function ohmicLossNoiseCorrelation(
         data[a + 1] = 0.5 * c * (r.data[a + 1] - r.data[b + 1]);
       }
     }
-    return { rows: n, cols: n, data };
+    return matrixView(n, n, data);
   }
   const s = 2 * K_BOLTZMANN_J_PER_K * physicalTemperatureK * bandwidthHz;
   const out = thermalImpedanceNoise(impedanceOhm, physicalTemperatureK, bandwidthHz);

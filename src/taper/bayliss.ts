@@ -9,6 +9,7 @@ import { sampleUniformLine, type LineDistribution } from './aperture.js';
 import { assertElementCount, assertSidelobeLevel, type TaperOptions } from './normalize.js';
 import { dilatedZeros, taylorA } from './design.js';
 import { sincPi, type TaperWarning } from './warning.js';
+import { displayable } from '../display/attach.js';
 
 /**
  * A Bayliss difference-pattern line-source design.
@@ -236,5 +237,5 @@ export function baylissTaper(elementCount: number, sllDb: number, nbar: number, 
     weights[elementCount - 1 - i] = v;
   }
   if (elementCount % 2 === 1) weights[elementCount >> 1] = 0;
-  return { ...design, weights };
+  return displayable({ ...design, weights }, 'Taper');
 }

@@ -11,6 +11,7 @@ import { besselJ1Zeros } from './besselZeros.js';
 import { dilatedZeros, isMonotonicDecreasing, taylorA } from './design.js';
 import { assertSidelobeLevel } from './normalize.js';
 import type { TaperWarning } from './warning.js';
+import { displayable } from '../display/attach.js';
 
 /**
  * A circular Taylor aperture design.
@@ -145,5 +146,5 @@ export function circularTaylorTaper(
   options: RadialSampleOptions = {},
 ): CircularTaylorTaperResult {
   const design = circularTaylorAperture(sllDb, nbar);
-  return { ...design, weights: sampleRadialDistribution(design.distribution, layout, radiusM, options) };
+  return displayable({ ...design, weights: sampleRadialDistribution(design.distribution, layout, radiusM, options) }, 'Taper');
 }

@@ -12,6 +12,7 @@ import { cutFigures } from '../pattern/cutFigures.js';
 import { linearArrayField, linearArrayFigures } from '../pattern/linearArray.js';
 import { wavelengthM } from '../units/convert.js';
 import { taperEfficiency, weightSums, type TaperWeights } from './efficiency.js';
+import { displayable } from '../display/attach.js';
 
 /**
  * Options of {@link lineTaperFigures}.
@@ -97,7 +98,7 @@ export function lineTaperFigures(weights: TaperWeights, spacingM: number, freque
   const uniform = linearArrayFigures(fromParts(new Float64Array(n).fill(1), null, n), spacingM, frequencyHz, { samples });
   const figs = kind === 'sum' ? full : cutFigures(linearArrayField(w, spacingM, frequencyHz), 0, Math.PI / 2, { samples: Math.ceil(samples / 2) });
   const firstNullsRad: [number | undefined, number | undefined] = kind === 'sum' ? [figs.firstNullAt[0], figs.firstNullAt[1]] : [0, figs.firstNullAt[1]];
-  return {
+  return displayable<LineTaperFigures>({
     efficiency: taperEfficiency(weights),
     directivity: full.directivity,
     directivityLossDb: 10 * Math.log10(uniform.directivity / full.directivity),
@@ -106,7 +107,7 @@ export function lineTaperFigures(weights: TaperWeights, spacingM: number, freque
     peakSidelobeDb: figs.peakSidelobeDb,
     peakThetaRad: figs.peakAt,
     firstNullsRad,
-  };
+  }, 'LineTaperFigures');
 }
 
 /**
@@ -197,7 +198,7 @@ export function planarTaperFigures(layout: ArrayLayout, weights: TaperWeights, f
     cutFirstNullsRad.push(ft.firstNullAt);
     if (ft.peakSidelobeDb !== undefined) peakSidelobeDb = Math.max(peakSidelobeDb ?? -Infinity, ft.peakSidelobeDb);
   }
-  return {
+  return displayable<PlanarTaperFigures>({
     efficiency: taperEfficiency(weights),
     directivity: dTaper,
     directivityLossDb: 10 * Math.log10(dUniform / dTaper),
@@ -205,5 +206,5 @@ export function planarTaperFigures(layout: ArrayLayout, weights: TaperWeights, f
     beamBroadening,
     cutPeakSidelobeDb,
     cutFirstNullsRad,
-  };
+  }, 'PlanarTaperFigures');
 }

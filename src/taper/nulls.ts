@@ -14,6 +14,7 @@ import type { ArrayLayout, Vector3 } from '../geometry/layout.js';
 import { linearArrayField } from '../pattern/linearArray.js';
 import { schelkunoffZeros, weightsFromSchelkunoffZeros } from '../pattern/schelkunoff.js';
 import { steeringMatrix, steeringVector } from '../pattern/steering.js';
+import { displayable } from '../display/attach.js';
 
 /**
  * Result of a null synthesis.
@@ -134,7 +135,7 @@ export function schelkunoffNulls(
     throw new DomainError(`invalid argument "mainBeamDirectionCosine": the weights have zero response at u₀ = ${mainBeamDirectionCosine}; pass the direction of the main beam.`);
   }
   const changeDb = 20 * Math.log10(after / before);
-  return { weights: result, mainBeamChangeDb: changeDb, mainBeamGainChangeDb: changeDb };
+  return displayable<NullSynthesisResult>({ weights: result, mainBeamChangeDb: changeDb, mainBeamGainChangeDb: changeDb }, 'NullSynthesisResult');
 }
 
 /**
@@ -178,7 +179,7 @@ export function projectNulls(weights: TaperWeights, nullSteering: CMatrix, mainB
   const after = innerProduct(wNew, mainBeamSteering).abs();
   const mainBeamChangeDb = 20 * Math.log10(after / before);
   const mainBeamGainChangeDb = mainBeamChangeDb - 20 * Math.log10(vectorNorm(wNew) / vectorNorm(w));
-  return { weights: wNew, mainBeamChangeDb, mainBeamGainChangeDb };
+  return displayable<NullSynthesisResult>({ weights: wNew, mainBeamChangeDb, mainBeamGainChangeDb }, 'NullSynthesisResult');
 }
 
 /**

@@ -7,6 +7,7 @@ import { sampleUniformLine, type LineDistribution } from './aperture.js';
 import { dilatedZeros, isMonotonicDecreasing, taylorA } from './design.js';
 import { assertElementCount, assertSidelobeLevel, type TaperOptions } from './normalize.js';
 import { sincPi, type TaperWarning } from './warning.js';
+import { displayable } from '../display/attach.js';
 
 /**
  * A Taylor n̄ line-source design.
@@ -160,5 +161,5 @@ export function taylorLineSource(sllDb: number, nbar: number): TaylorLineSourceD
 export function taylorTaper(elementCount: number, sllDb: number, nbar: number, options: TaperOptions = {}): TaylorTaperResult {
   assertElementCount('elementCount', elementCount);
   const design = taylorLineSource(sllDb, nbar);
-  return { ...design, weights: sampleUniformLine(design.distribution, elementCount, options) };
+  return displayable({ ...design, weights: sampleUniformLine(design.distribution, elementCount, options) }, 'Taper');
 }

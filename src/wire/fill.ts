@@ -8,6 +8,7 @@
 import type { CMatrix } from '../linalg/cmatrix.js';
 import { addSegmentReaction } from './kernel.js';
 import type { PlacedModel } from './model.js';
+import { matrixView } from '../linalg/cmatrix.js';
 
 const pair = new Float64Array(8);
 
@@ -75,7 +76,7 @@ export function fillImpedanceMatrix(m: PlacedModel, stats?: FillStats): CMatrix 
     // one placement: the block is the matrix, filled in place
     placementBlock(m, 0, 0, z);
     if (stats) { stats.blocksComputed = 1; stats.blocksUsed = 1; }
-    return { rows: n, cols: n, data: z };
+    return matrixView(n, n, z);
   }
   const cache = new Map<string, Float64Array>();
   const quantum = 1e-9 * (2 * Math.PI / m.k);
@@ -96,5 +97,5 @@ export function fillImpedanceMatrix(m: PlacedModel, stats?: FillStats): CMatrix 
     }
   }
   if (stats) { stats.blocksComputed = computed; stats.blocksUsed = (P * (P + 1)) / 2; }
-  return { rows: n, cols: n, data: z };
+  return matrixView(n, n, z);
 }

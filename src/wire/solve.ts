@@ -16,6 +16,7 @@ import { wireLoadImpedance } from './loads.js';
 import { SEG } from './mesh.js';
 import { buildModel, type PlacedModel, type WireSolveOptions } from './model.js';
 import type { WireStructure } from './types.js';
+import { matrixView } from '../linalg/cmatrix.js';
 
 /**
  * The segments of a solved structure, in solver order (element by element,
@@ -245,7 +246,7 @@ function segmentCurrents(m: PlacedModel, coeff: CMatrix, cols: number): CMatrix 
       }
     }
   }
-  return { rows: 2 * S * P, cols, data: out };
+  return matrixView(2 * S * P, cols, out);
 }
 
 function checksOf(m: PlacedModel, z: CMatrix): PhysicalCheck[] {

@@ -47,7 +47,9 @@ describe('factories and access', () => {
     expect(() => matrixFromJSON({ rows: 2, cols: 2, re: [1, 2, 3], im: [0, 0, 0, 0] })).toThrow(ParseError);
   });
   it('formatMatrix is readable', () => {
-    expect(formatMatrix(fromRows([[1, { re: 0, im: -1 }]]), 3)).toContain('1.00+0.00j');
+    const t = formatMatrix(fromRows([[1, { re: 0, im: -1 }]]), 3);
+    expect(t).toContain('CMatrix 1×2');
+    expect(t).toContain('[ 1+0j  0−1j ]');
   });
   it('bad input: ragged rows, NaN entries, bad view length', () => {
     expect(() => fromRows([[1, 2], [3]])).toThrow(DimensionError);

@@ -6,7 +6,7 @@
  */
 import { describe, it, expect } from 'vitest';
 import { existsSync, readFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
+import { builtinModules, createRequire } from 'node:module';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 
@@ -17,6 +17,19 @@ const pkg = JSON.parse(readFileSync(join(root, 'package.json'), 'utf8')) as { ex
 function importsOf(file: string): string[] {
   const text = readFileSync(file, 'utf8');
   return [...text.matchAll(/(?:from|import)\s*\(?\s*['"]([^'"]+)['"]/g)].map((m) => m[1]);
+}
+
+/** All files reachable from an ESM file through relative imports (the file included). */
+function reachableFiles(entry: string): Set<string> {
+  const seen = new Set<string>();
+  const stack = [entry];
+  while (stack.length) {
+    const f = stack.pop() as string;
+    if (seen.has(f)) continue;
+    seen.add(f);
+    for (const s of importsOf(f)) if (s.startsWith('.')) stack.push(join(dirname(f), s));
+  }
+  return seen;
 }
 
 /** All bare specifiers reachable from an ESM file through relative imports. */
@@ -71,10 +84,24 @@ describe('built package', () => {
   });
 
   it('the browser-safe entries reach no Node built-in', () => {
+    const nodeModules = new Set(builtinModules);
     for (const entry of ['index.js', 'plot.js']) {
       const bare = [...reachableBareImports(join(dist, entry))];
-      const builtins = bare.filter((s) => s.startsWith('node:') || ['fs', 'path', 'os', 'url', 'module', 'child_process', 'worker_threads'].includes(s));
+      const builtins = bare.filter((s) => s.startsWith('node:') || nodeModules.has(s) || nodeModules.has(s.split('/')[0]));
       expect(builtins, `${entry} imports ${builtins.join(', ')}`).toEqual([]);
     }
+  });
+
+  it("results print through Node's inspect hook reached by Symbol.for, not by importing util", async () => {
+    const core = await import(pathToFileURL(join(dist, 'index.js')).href);
+    const plot = await import(pathToFileURL(join(dist, 'plot.js')).href);
+    const { inspect } = await import('node:util');
+    const z = core.fromRows([[1, 2], [3, 4]]);
+    expect(inspect(z)).toMatch(/^CMatrix 2×2 complex/);
+    expect(inspect(plot.figure(plot.linePlotSvg({ traces: [{ label: 'a', x: [0, 1], y: [0, 1] }], xLabel: 'x', yLabel: 'y' })))).toMatch(/^Figure 640×400 px/);
+    // the shared chunks of the browser entries name the hook only through the global symbol registry
+    const chunks = [...reachableFiles(join(dist, 'index.js')), ...reachableFiles(join(dist, 'plot.js'))].map((f) => readFileSync(f, 'utf8')).join('\n');
+    expect(chunks).toContain('Symbol.for("nodejs.util.inspect.custom")');
+    expect(chunks).not.toMatch(/\brequire\(\s*["'](node:)?util["']\)/);
   });
 });

@@ -1,0 +1,82 @@
+/**
+ * Printed forms of the reception and design results, and their plain data across JSON, structured
+ * clone (the worker-thread transfer of src/cli/parallel.ts) and structural equality.
+ */
+import { describe, it, expect } from 'vitest';
+import { inspect } from 'node:util';
+import {
+  evaluateDesign, validateDesign, evaluateReceivingArray, dipoleArrayPorts, skyAndGroundEnvironment, sphereQuadrature,
+  show, resultFromJSON, type DesignEvaluation,
+} from '../../src/index.js';
+
+const C0 = 299792458;
+const F0 = 1.4e9, L0 = C0 / F0, D = 0.5 * L0, LEN = 0.47 * L0, A = L0 / 300, H = L0 / 4;
+const design = validateDesign({
+  title: 'four dipoles over ground',
+  frequencyHz: [0.9 * F0, F0, 1.1 * F0],
+  bandwidthHz: 1e6,
+  layout: { kind: 'line', count: 4, spacingM: D },
+  elements: { kind: 'dipole', lengthM: LEN, radiusM: A, axis: [0, 1, 0], groundPlaneHeightM: H },
+  amplifiers: { minimumNoiseTemperatureK: 35, noiseResistanceOhm: 5, optimumSourceAdmittanceS: { re: 0.02, im: 0 } },
+  environment: { skyK: 8, groundK: 290, physicalTemperatureK: 290 },
+  beams: { thetaDeg: [-30, 0, 30] },
+  physicalAreaM2: 4 * D * D,
+  quadrature: { thetaCount: 20, phiCount: 40 },
+}, 'line.json');
+
+describe('design evaluation', () => {
+  const ev = evaluateDesign(design, { fileName: 'line.json' });
+  it('prints title, size, band, a per-beam summary table with units, and the checks', () => {
+    const text = inspect(ev);
+    const lines = text.split('\n');
+    expect(lines[0]).toBe('Design evaluation "four dipoles over ground" (line.json)');
+    expect(lines[1]).toBe('  4 elements, max-snr beams, bandwidth 1 MHz');
+    expect(lines[2]).toBe('  band 3 frequencies: 1.26 GHz … 1.54 GHz');
+    expect(text).toContain('worst A_e/T_sys [m²/K]');
+    expect(text).toContain('worst G/T [dB/K]');
+    expect(text).toContain('worst SEFD [Jy]');
+    expect(text).toContain('0: scan −30°');
+    // the worst sensitivity of the broadside beam, as the table prints it
+    const w = ev.bandSummary[1].worstSensitivityM2PerK;
+    expect(text).toContain(w.toExponential(3));
+    expect(text).toContain('checks: every figure passed its physical checks');
+  });
+  it('each frequency prints its beams as a table', () => {
+    const text = inspect(ev.frequencies[1]);
+    expect(text).toMatch(/^Frequency evaluation at 1\.4 GHz: sky 8 K, T_rec,min [\d.]+ K/);
+    expect(text).toContain('T_sys [K]');
+    expect(text).toMatch(/10 physical checks, all passed|\d+ physical checks, all passed/);
+  });
+  it('the data are plain: JSON round trip, structured clone (worker transfer) and equality', () => {
+    const back = resultFromJSON(JSON.stringify(ev)) as DesignEvaluation;
+    expect(back).toEqual(ev);
+    expect(inspect(back)).toBe(inspect(ev));
+    const cloned = structuredClone(ev);
+    expect(cloned).toEqual(ev);
+    expect(show(cloned)).toBe(show(ev));
+    expect(JSON.stringify(cloned)).toBe(JSON.stringify(ev));
+  });
+});
+
+describe('receiving-array evaluation', () => {
+  const dipoles = Array.from({ length: 4 }, (_, i) => ({ centerM: [(i - 1.5) * D, 0, H] as const, axis: [0, 1, 0] as const, lengthM: LEN, radiusM: A }));
+  const r = evaluateReceivingArray({
+    ports: dipoleArrayPorts(dipoles, F0, { groundPlane: { zM: 0 } }),
+    quadrature: sphereQuadrature(20, 40),
+    bandwidthHz: 1e6,
+    environment: skyAndGroundEnvironment({ skyK: 8, groundK: 290 }),
+    amplifiers: { minimumNoiseTemperatureK: 35, noiseResistanceOhm: 5, optimumSourceAdmittanceS: 0.02 },
+    beams: { thetaRad: Float64Array.of(0, 0.5), phiRad: Float64Array.of(0, Math.PI / 2) },
+  });
+  it('prints ports, beams, T_rec,min, the beam table and checks', () => {
+    const text = inspect(r);
+    expect(text.split('\n')[0]).toMatch(/^Receiving-array evaluation: 4 ports, 2 beams, T_rec,min [\d.]+ K$/);
+    expect(text).toContain('A_e/T_sys [m²/K]');
+    expect(text).toContain('embeddedElementEfficiency  [');
+    expect(text).toContain('800 directions');
+    expect(text).toMatch(/physical checks, all passed/);
+    const b = inspect(r.beams[0]);
+    expect(b).toMatch(/systemTemperatureK\s+[\d.]+ K/);
+    expect(b).toMatch(/effectiveAreaM2\s+[\d.e−-]+ m²/);
+  });
+});
