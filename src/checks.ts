@@ -4,6 +4,7 @@
  * every module that reports checks as data.
  * @module
  */
+import { displayable } from './display/attach.js';
 
 /**
  * One physical check of a result, as plain data.
@@ -51,7 +52,7 @@ export function physicalCheck(
   name: string, value: number, comparison: 'atMost' | 'atLeast', limit: number, meaning: string, figures: readonly string[],
 ): PhysicalCheck {
   const passed = comparison === 'atMost' ? value <= limit : value >= limit;
-  return { name, value, limit, comparison, passed, meaning, figures };
+  return displayable<PhysicalCheck>({ name, value, limit, comparison, passed, meaning, figures }, 'PhysicalCheck');
 }
 
 /**

@@ -148,7 +148,7 @@ export function resultKind(value: unknown): ResultKind | undefined {
   if (has(v, 'budget', 'beams', 'weights')) return 'ReceivingArrayEvaluation';
   if (has(v, 'weights', 'beams') && Object.keys(v).length === 2) return 'ScanSweepResult';
   if (has(v, 'systemTemperatureK', 'sensitivityM2PerK')) return 'BeamFigures';
-  if (has(v, 'peakAt', 'halfPowerWidth', 'peakSidelobeDb')) return 'CutFigures';
+  if (has(v, 'peakAt', 'peakValue', 'halfPowerAt')) return 'CutFigures';
   if (has(v, 'efficiency', 'directivityLossDb', 'peakThetaRad')) return 'LineTaperFigures';
   if (has(v, 'efficiency', 'directivity') && 'peakSidelobeDb' in v) return 'PlanarTaperFigures';
   if (has(v, 'weights', 'warnings')) return 'Taper';
@@ -240,6 +240,10 @@ function fieldText(name: string, v: unknown, o: Opts, depth = 0): string {
   if (Array.isArray(v)) {
     if (v.length === 0) return '(none)';
     if (v.every((x) => typeof x === 'number')) return seriesText(v as number[], unit, o);
+    // Pairs such as [left, right] with a side not found (undefined; null after JSON).
+    if (v.length <= 6 && v.every((x) => typeof x === 'number' || x === undefined || x === null)) {
+      return '[' + v.map((x) => (typeof x === 'number' ? formatNumber(x, o.digits) : '—')).join(', ') + ']' + (unit ? ` ${unit}` : '');
+    }
     if (v.every((x) => typeof x === 'string')) return v.length <= 8 ? v.join(', ') : `${v.slice(0, 6).join(', ')}, … (${v.length})`;
     if (v.every((x) => isRecord(x) && resultKind(x) === 'PhysicalCheck')) return checksText(v as Record<string, unknown>[], o);
     if (v.every((x) => isRecord(x) && 'code' in x && 'message' in x)) return v.map((x) => String((x as { code: unknown }).code)).join(', ');

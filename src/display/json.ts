@@ -42,7 +42,8 @@ function revive(key: string, v: unknown): unknown {
  * prints as it did before.
  *
  * @remarks
- * `JSON.stringify` writes NaN and ±Infinity as `null`, which this reader keeps as `null`; an
+ * `JSON.stringify` writes NaN and ±Infinity as `null`, which this reader keeps as `null`, and
+ * −0 as 0; an
  * empty typed array is written as `{}` and read back as an empty `Float64Array` for the fields
  * phasewise results use for typed arrays (`data`, `frequencyHz`, `weights`, `zeros`, …).
  * Functions (e.g. a noise budget's pattern source) are not serialised. Display guide:

@@ -7,6 +7,7 @@ import { DomainError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
 import { assertFiniteCMatrix, assertInteger, assertPositive, describeValue } from '../internal/validate.js';
 import { RandomStream } from '../internal/random.js';
+import { matrixView } from '../linalg/cmatrix.js';
 
 /**
  * How a phase or amplitude setting is rounded to its quantised states:
@@ -95,7 +96,7 @@ export function quantizeWeights(weights: CMatrix, options: QuantizeWeightsOption
     out[2 * i] = a * Math.cos(ph);
     out[2 * i + 1] = a * Math.sin(ph);
   }
-  return { rows: weights.rows, cols: weights.cols, data: out };
+  return matrixView(weights.rows, weights.cols, out);
 }
 
 /**
@@ -231,5 +232,5 @@ export function roundDigitalWeights(weights: CMatrix, bits: number): CMatrix {
   const lsb = fs > 0 ? (2 * fs) / 2 ** bits : 1;
   const out = new Float64Array(d.length);
   for (let i = 0; i < d.length; i++) out[i] = lsb * Math.round(d[i] / lsb);
-  return { rows: weights.rows, cols: weights.cols, data: out };
+  return matrixView(weights.rows, weights.cols, out);
 }

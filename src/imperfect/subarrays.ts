@@ -11,6 +11,7 @@ import { assertLayout, type ArrayLayout, type Vector3 } from '../geometry/layout
 import { assertUnitVector } from '../geometry/directions.js';
 import { assertGridSpec, type RectangularGridSpec } from '../geometry/builders.js';
 import { arrayFactorInto } from '../pattern/arrayFactor.js';
+import { matrixView } from '../linalg/cmatrix.js';
 
 /**
  * A partition of an array's elements into subarrays.
@@ -130,7 +131,7 @@ export function bandSteeringWeights(
     out[2 * i] = a * Math.cos(ph);
     out[2 * i + 1] = a * Math.sin(ph);
   }
-  return { rows: n, cols: 1, data: out };
+  return matrixView(n, 1, out);
 }
 
 /**

@@ -75,6 +75,13 @@ describe('receiving-array evaluation', () => {
     expect(text).toContain('embeddedElementEfficiency  [');
     expect(text).toContain('800 directions');
     expect(text).toMatch(/physical checks, all passed/);
+    // JSON writes −0 as 0 (the budget's zero imaginary parts), so compare the JSON text and the types
+    const back = resultFromJSON(JSON.stringify(r)) as typeof r;
+    expect(JSON.stringify(back)).toBe(JSON.stringify(r));
+    expect(back.weights.data).toBeInstanceOf(Float64Array);
+    expect(back.budget.total.data).toBeInstanceOf(Float64Array);
+    expect(back.quadrature.weightSr).toBeInstanceOf(Float64Array);
+    expect(inspect(back)).toBe(text);
     const b = inspect(r.beams[0]);
     expect(b).toMatch(/systemTemperatureK\s+[\d.]+ K/);
     expect(b).toMatch(/effectiveAreaM2\s+[\d.e−-]+ m²/);

@@ -80,7 +80,16 @@ describe('result kinds print with names and units', () => {
     expect(text).toMatch(/^Taper design, 16 elements, no warnings/);
     expect(text).toMatch(/lineSourcePeakSidelobeDb\s+−30\.\d+ dB/);
     expect(text).toMatch(/weights\s+16 values/);
-    const f = inspect(lineTaperFigures(t.weights, 0.1, 1.5e9));
+    // JSON drops the distribution function (documented); everything else comes back, typed arrays included
+    const { distribution, ...data } = t;
+    expect(typeof distribution).toBe('function');
+    const back = resultFromJSON(JSON.stringify(t)) as typeof data;
+    expect(back).toEqual(data);
+    expect(back.weights).toBeInstanceOf(Float64Array);
+    expect(inspect(back)).toBe(text);
+    const lf = lineTaperFigures(t.weights, 0.1, 1.5e9);
+    expect(resultFromJSON(JSON.stringify(lf))).toEqual(lf);
+    const f = inspect(lf);
     expect(f).toMatch(/^Line-taper figures/);
     expect(f).toMatch(/peakSidelobeDb\s+−30\.\d+ dB/);
     expect(f).toMatch(/halfPowerWidthRad\s+[\d.]+ rad/);
@@ -107,7 +116,9 @@ describe('result kinds print with names and units', () => {
     expect(inspect(back)).toBe(text);
   });
   it('pattern-cut figures', () => {
-    const text = inspect(cutFigures((x) => Math.abs(Math.cos(x)), -1.5, 1.5));
+    const c = cutFigures((x) => Math.abs(Math.cos(x)), -1.5, 1.5);
+    const text = inspect(c);
+    expect(inspect(resultFromJSON(JSON.stringify(c)))).toBe(text);
     expect(text).toMatch(/^Pattern-cut figures/);
     expect(text).toMatch(/halfPowerWidth\s+1\.571/); // |cos| = 1/√2 at ±π/4
   });
