@@ -7,13 +7,14 @@
  * design are read through a caller-supplied reader.
  * @module
  */
+import { hzText } from '../internal/text.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
 import { degToRad } from '../units/convert.js';
 import {
   arrayLayout, rectangularGridLayout, triangularLatticeLayout, uniformLineLayout, layoutCentroid,
   type ArrayLayout,
 } from '../geometry/index.js';
-import { planarLattice, rectangularLattice, type PlanarLattice } from '../floquet/lattice.js';
+import type { PlanarLattice } from '../geometry/lattice.js';
 import { parseTouchstone } from '../network/touchstone.js';
 import { interpolateMultiport } from '../network/interpolate.js';
 import { convertMultiport } from '../network/convert.js';
@@ -36,7 +37,7 @@ import { designFailedElements } from './failures.js';
 import { designSubarrays } from './imperfections.js';
 import type { SubarrayLayout } from '../imperfect/subarrays.js';
 import {
-  amplifierBand, assertCovered, designFrequencies, hzText, touchstoneOptions, wrapField,
+  amplifierBand, assertCovered, designFrequencies, touchstoneOptions, wrapField,
   type AmplifierBand, type DesignFileReader,
 } from './bandData.js';
 
@@ -94,6 +95,8 @@ export interface PreparedDesign {
   readonly failedElements?: Int32Array;
   /** Subarray partition (design `imperfections.subarrays`), else undefined. */
   readonly subarrays?: SubarrayLayout;
+  /** Ports per element: 2 for crossed dipoles (port 2n + p is element n's polarisation p), else 1. */
+  readonly portsPerElement: 1 | 2;
 }
 
 /** @internal Imported element data, parsed once. */
@@ -108,21 +111,17 @@ function buildLayout(d: Design, file: string): { layout: ArrayLayout; lattice?: 
     switch (l.kind) {
       case 'line':
         return { layout: uniformLineLayout(l.count, l.spacingM, { axis: l.axis ?? 'x' }), spacingM: l.spacingM };
-      case 'rectangular':
-        return {
-          layout: rectangularGridLayout({ countX: l.countX, countY: l.countY, spacingXM: l.spacingXM, spacingYM: l.spacingYM }),
-          lattice: rectangularLattice(l.spacingXM, l.spacingYM), spacingM: Math.min(l.spacingXM, l.spacingYM),
-        };
+      case 'rectangular': {
+        const layout = rectangularGridLayout({ countX: l.countX, countY: l.countY, spacingXM: l.spacingXM, spacingYM: l.spacingYM });
+        return { layout, lattice: layout.lattice, spacingM: Math.min(l.spacingXM, l.spacingYM) };
+      }
       case 'triangular': {
         const b = l.boundary;
         const boundary = b.kind === 'circle'
           ? { kind: 'circle' as const, radiusM: b.radiusM }
           : { kind: 'hexagon' as const, circumradiusM: b.circumradiusM, rotationRad: degToRad(b.rotationDeg ?? 0) };
-        const dy = (l.spacingM * Math.sqrt(3)) / 2;
-        return {
-          layout: triangularLatticeLayout(l.spacingM, boundary),
-          lattice: planarLattice([l.spacingM, 0], [l.spacingM / 2, dy]), spacingM: l.spacingM,
-        };
+        const layout = triangularLatticeLayout(l.spacingM, boundary);
+        return { layout, lattice: layout.lattice, spacingM: l.spacingM };
       }
       case 'positions':
         return { layout: arrayLayout(l.positionsM) };
@@ -323,6 +322,7 @@ export function prepareDesign(design: Design, options: PrepareDesignOptions = {}
   const subarrays = designSubarrays(d, file);
   return {
     design: d, fileName: file, frequenciesHz, layout, lattice, beams, taper, amplifiersAt, imported, reportFrequencyIndices: reportFrequencies(d, frequenciesHz),
+    portsPerElement: d.elements.kind === 'crossedDipole' ? 2 : 1,
     ...(failedElements ? { failedElements } : {}), ...(subarrays ? { subarrays } : {}),
   };
 }
@@ -334,9 +334,9 @@ export function prepareDesign(design: Design, options: PrepareDesignOptions = {}
  */
 function checkElementModel(d: Design, file: string, band: Float64Array): void {
   const e = d.elements;
-  if (e.kind !== 'dipole') return;
+  if (e.kind !== 'dipole' && e.kind !== 'crossedDipole') return;
   const fMax = band[band.length - 1];
-  const failed = dipoleModelChecks([{ centerM: [0, 0, 0], axis: e.axis, lengthM: e.lengthM, radiusM: e.radiusM }], fMax).filter((c) => !c.passed);
+  const failed = dipoleModelChecks([{ centerM: [0, 0, 0], axis: [1, 0, 0], lengthM: e.lengthM, radiusM: e.radiusM }], fMax).filter((c) => !c.passed);
   if (failed.length > 0) {
     const c = failed[0];
     throw fieldError(file, c.name === 'elementModel.wireRadius' ? 'elements.radiusM' : 'elements.lengthM',
@@ -356,7 +356,8 @@ function reportFrequencies(d: Design, band: Float64Array): number[] {
 
 /**
  * The array's ports at one band frequency: analytic dipoles re-evaluated at f (one-mode
- * induced-EMF model, element module), wire elements solved at f by the thin-wire method of
+ * induced-EMF model, element module; crossed dipoles give two ports per element, X then Y,
+ * the crossed pair's own mutual impedance being zero by symmetry), wire elements solved at f by the thin-wire method of
  * moments (wire module: the template placed at every layout position, segmented for f, full
  * coupling, open-circuit embedded patterns), or the imported network interpolated to f
  * (network module, real–imaginary rule) with the embedded patterns at f.
@@ -371,6 +372,14 @@ export function designPortsAt(prepared: PreparedDesign, frequencyHz: number): Ar
   const e = d.elements;
   if (e.kind === 'dipole') {
     const dipoles: WireDipole[] = wrapField(file, 'elements', () => dipolesFromLayout(layout, { lengthM: e.lengthM, radiusM: e.radiusM, axis: e.axis, heightM: e.groundPlaneHeightM ?? 0 }));
+    return wrapField(file, 'elements', () => dipoleArrayPorts(dipoles, frequencyHz, e.groundPlaneHeightM === undefined ? {} : { groundPlane: { zM: 0 } }));
+  }
+  if (e.kind === 'crossedDipole') {
+    // X and Y dipoles interleaved: port 2n is element n's X dipole, port 2n + 1 its Y dipole
+    const r = degToRad(e.rotationDeg ?? 0);
+    const along = (axis: readonly [number, number, number]) => wrapField(file, 'elements', () => dipolesFromLayout(layout, { lengthM: e.lengthM, radiusM: e.radiusM, axis, heightM: e.groundPlaneHeightM ?? 0 }));
+    const xs = along([Math.cos(r), Math.sin(r), 0]), ys = along([-Math.sin(r), Math.cos(r), 0]);
+    const dipoles = xs.flatMap((x, n) => [x, ys[n]]);
     return wrapField(file, 'elements', () => dipoleArrayPorts(dipoles, frequencyHz, e.groundPlaneHeightM === undefined ? {} : { groundPlane: { zM: 0 } }));
   }
   if (e.kind === 'wire') {

@@ -5,14 +5,17 @@
  * report's figures — plain JSON-able data, browser-safe.
  * @module
  */
+import { hzText } from '../internal/text.js';
 import { zeros } from '../linalg/cmatrix.js';
 import type { PhysicalCheck } from '../checks.js';
 import type { WireArrayPortSource } from '../wire/patterns.js';
 import { NumericError } from '../errors.js';
 import { layoutDiameterM, sphereQuadrature, sphereQuadratureForLayout, sphereQuadratureOrder, type SphereQuadrature } from '../geometry/index.js';
 import { displayable } from '../display/attach.js';
-import { gratingLobeCircles } from '../floquet/grating-lobes.js';
+import { gratingLobeCircles } from '../geometry/gratingLobes.js';
 import { createMultiport } from '../network/multiport.js';
+import { convertMultiport } from '../network/convert.js';
+import { terminatePorts } from '../network/connect.js';
 import { activeReflection } from '../network/sources.js';
 import { powerToDb, radToDeg, wavenumberRadPerM } from '../units/convert.js';
 import {
@@ -20,7 +23,8 @@ import {
   systemEquivalentFluxDensityJy, evaluationCost, adaptiveSphereRule, type AdaptiveSphereRule, type ArrayPortSource, type BeamFigures,
   type EvaluationCost, type NoiseEnvironment, type ReceivingArrayEvaluation,
 } from '../reception/index.js';
-import { designLivePorts, type DesignLivePorts } from './failures.js';
+import { designLivePorts, designPortTaper, type DesignLivePorts } from './failures.js';
+import { designPolarizationAt, type DesignPolarization } from './polarization.js';
 import type { Design } from './schema.js';
 import { fieldError } from './schema.js';
 import { designImperfectionFigures, type DesignImperfectionFigures } from './imperfections.js';
@@ -206,6 +210,8 @@ export interface FrequencyEvaluation {
    * the intact array's checks are in `checks`, named `intactArray.…`.
    */
   readonly failureCost?: FailureCostBeam[];
+  /** Crossed-dipole designs: the X/Y beam pair's Jones matrix, IXR and Ludwig-3 cross-polar levels per beam. */
+  readonly polarization?: DesignPolarization;
 }
 
 /**
@@ -229,6 +235,8 @@ export interface BeamBandSummary {
   readonly worstSefdJy: number;
   /** Largest loss of A_e/T_sys from the failed elements over the band [dB] (designs with failures). */
   readonly worstFailureLossDb?: number;
+  /** Smallest IXR of the X/Y beam pair over the band [dB] (crossed-dipole designs). */
+  readonly worstIxrDb?: number;
 }
 
 /**
@@ -385,7 +393,7 @@ export function estimateDesignCost(prepared: PreparedDesign, indices?: readonly 
     // Node counts only: the rule itself is not built (it may be what does not fit).
     const own = prepared.design.quadrature;
     const q = own ?? sphereQuadratureOrder(wavenumberRadPerM(prepared.frequenciesHz[i]) * layoutDiameterM(prepared.layout), { tolerance: 1e-6 });
-    return evaluationCost({ portCount: prepared.layout.count, directionCount: q.thetaCount * q.phiCount, beamCount: prepared.beams.thetaRad.length });
+    return evaluationCost({ portCount: prepared.layout.count * prepared.portsPerElement, directionCount: q.thetaCount * q.phiCount, beamCount: prepared.beams.thetaRad.length });
   });
   return {
     totalS: perFrequency.reduce((a, c) => a + c.totalS, 0),
@@ -403,13 +411,12 @@ function receiveAt(p: PreparedDesign, f: number, ports: DesignLivePorts, environ
   const sphere = designQuadratureAt(p, f, ports, environment);
   const kind = d.beams.beamformer ?? 'max-snr';
   const beams = { thetaRad: p.beams.thetaRad, phiRad: p.beams.phiRad };
-  // the taper of the working elements: a dead element's amplitude is simply missing
-  const taper = p.taper && kept ? Float64Array.from(kept, (i) => (p.taper as Float64Array)[i]) : p.taper;
+  const taper = designPortTaper(p, kept);
   const weights = kind === 'max-snr' ? undefined : matchedFieldWeightsUnpolarized(samplePatterns(ports.patterns, beams.thetaRad, beams.phiRad), taper);
   // wire elements are lossless unless they carry loads (whose dissipation the patterns then lack);
   // failed ports in a load dissipate: their loss comes from the patterns
   const e = d.elements;
-  const lossless = (e.kind === 'dipole' || (e.kind === 'wire' && (e.loads ?? []).length === 0))
+  const lossless = (e.kind === 'dipole' || e.kind === 'crossedDipole' || (e.kind === 'wire' && (e.loads ?? []).length === 0))
     && (kept === undefined || d.imperfections?.failures?.termination === 'open');
   try {
     const ev = evaluateReceivingArray({
@@ -422,7 +429,7 @@ function receiveAt(p: PreparedDesign, f: number, ports: DesignLivePorts, environ
   } catch (err) {
     if (err instanceof NumericError && err.name !== 'DesignError') {
       const hint = e.kind === 'imported' ? ' (the noise integrals need embedded patterns over the whole sphere, θ from 0 to 180°)' : '';
-      throw fieldError(p.fileName, e.kind === 'imported' ? 'elements.patternFile' : 'elements', `cannot evaluate at ${f} Hz: ${err.message}${hint}`);
+      throw fieldError(p.fileName, e.kind === 'imported' ? 'elements.patternFile' : 'elements', `cannot evaluate at ${hzText(f)}: ${err.message}${hint}`);
     }
     throw err;
   }
@@ -475,6 +482,8 @@ export function evaluateDesignFrequency(prepared: PreparedDesign, index: number)
     // wire elements add their own solution checks (reciprocity, passivity, thin-wire validity)
     checks: 'solution' in allPorts ? [...ev.checks, ...(allPorts as WireArrayPortSource).solution.checks] : ev.checks,
   };
+  const pol = designPolarizationAt(p, ports);
+  if (pol) out.polarization = pol;
   if (kept) {
     // The same frequency without the failures: the cost of the failures per beam.
     const intact = receiveAt(p, f, allPorts, env.environment, amplifiers).ev;
@@ -522,13 +531,22 @@ export function evaluateDesignFrequency(prepared: PreparedDesign, index: number)
   return displayable<FrequencyEvaluation>(out, 'FrequencyEvaluation');
 }
 
-/** Γ of the centre and the outermost element for the phase-steered excitation of every beam (50 Ω). */
-function activeReflectionOverBeams(p: PreparedDesign, z: import('../linalg/cmatrix.js').CMatrix, f: number, kept?: Int32Array): FrequencyEvaluation['activeReflection'] {
-  const all = p.layout.positionsM;
-  const pos = kept ? Float64Array.from({ length: 3 * kept.length }, (_, i) => all[3 * kept[Math.floor(i / 3)] + (i % 3)]) : all;
-  const n = pos.length / 3;
-  const label = (e: number) => (kept ? kept[e] : e);
-  const net = createMultiport('impedance', [f], [z]);
+/** Γ of the centre and the outermost element (crossed dipoles: their X ports) for the phase-steered excitation of every beam (50 Ω). */
+function activeReflectionOverBeams(p: PreparedDesign, zAll: import('../linalg/cmatrix.js').CMatrix, f: number, kept?: Int32Array): FrequencyEvaluation['activeReflection'] {
+  const all = p.layout.positionsM, ppe = p.portsPerElement;
+  // each port's original index; crossed dipoles: a single-polarisation (X) beam, the Y ports
+  // receiving no incident wave, i.e. terminated in the 50 Ω reference
+  const portIndex = kept ?? Int32Array.from({ length: zAll.rows }, (_, i) => i);
+  let net = createMultiport('impedance', [f], [zAll]);
+  let ports = portIndex;
+  if (ppe === 2) {
+    const other = Array.from(portIndex.keys()).filter((i) => portIndex[i] % 2 === 1);
+    net = convertMultiport(terminatePorts(net, other, other.map(() => ({ re: 50, im: 0 }))), 'impedance');
+    ports = portIndex.filter((q) => q % 2 === 0);
+  }
+  const pos = Float64Array.from({ length: 3 * ports.length }, (_, i) => all[3 * Math.floor(ports[Math.floor(i / 3)] / ppe) + (i % 3)]);
+  const n = ports.length;
+  const name = (e: number) => (ppe === 1 ? `element ${ports[e]}` : `port ${ports[e]} (element ${Math.floor(ports[e] / 2)} X)`);
   const k0 = wavenumberRadPerM(f);
   let centre = 0, edge = 0, rc = Infinity, re = -1;
   for (let i = 0; i < n; i++) {
@@ -537,7 +555,7 @@ function activeReflectionOverBeams(p: PreparedDesign, z: import('../linalg/cmatr
     if (rr > re + 1e-12) { re = rr; edge = i; }
   }
   const elems = centre === edge ? [centre] : [centre, edge];
-  const traces = elems.map((e) => ({ element: e, label: `element ${label(e)} (${e === centre ? 'centre' : 'edge'})`, re: [] as number[], im: [] as number[] }));
+  const traces = elems.map((e) => ({ element: e, label: `${name(e)} (${e === centre ? 'centre' : 'edge'})`, re: [] as number[], im: [] as number[] }));
   // All beams' phase-steered excitations in one call: one Z → S conversion, one product.
   const kBeams = p.beams.thetaRad.length;
   const excitation = zeros(n, kBeams);
@@ -555,7 +573,7 @@ function activeReflectionOverBeams(p: PreparedDesign, z: import('../linalg/cmatr
   for (let k = 0; k < kBeams; k++) {
     for (const t of traces) { t.re.push(gamma[2 * (k * n + t.element)]); t.im.push(gamma[2 * (k * n + t.element) + 1]); }
   }
-  return traces.map((t) => ({ ...t, element: label(t.element) }));
+  return traces.map((t) => ({ ...t, element: ports[t.element] }));
 }
 
 /**
@@ -592,6 +610,7 @@ export function assembleDesignEvaluation(prepared: PreparedDesign, frequencies: 
       meanSensitivityM2PerK: s.reduce((a, b) => a + b, 0) / s.length, bandAverageSensitivityM2PerK: avg,
       worstGainOverTemperatureDbPerK: Math.min(...frequencies.map((r) => r.beams[k].gainOverTemperatureDbPerK)),
       worstSefdJy: Math.max(...frequencies.map((r) => r.beams[k].sefdJy)),
+      ...(frequencies[0].polarization ? { worstIxrDb: Math.min(...frequencies.map((r) => (r.polarization as DesignPolarization).ixrDb[k])) } : {}),
       ...(frequencies[0].failureCost ? { worstFailureLossDb: Math.max(...frequencies.map((r) => (r.failureCost as FailureCostBeam[])[k].sensitivityLossDb)) } : {}),
     });
   }

@@ -56,15 +56,18 @@ export function designFailureTermination(spec: DesignFailures): FailedPortTermin
  * ed., Wiley, 2012, Sect. 4.2 (from memory). Conventions: docs/conventions.md.
  * @param prepared - The prepared design.
  * @param ports - The complete array's ports at the frequency ({@link designPortsAt}).
- * @returns The working ports (with `keptPorts` and `failedPorts`), or `ports` itself without failures.
+ * @returns The working ports (with `keptPorts` and `failedPorts`, port indices: both ports of a failed crossed pair fail), or `ports` itself without failures.
  * @throws {@link DesignError} naming `imperfections.failures` if the terminated network cannot be formed.
  * @category Design
  */
 export function designLivePorts(prepared: PreparedDesign, ports: ArrayPortSource): DesignLivePorts {
   const failed = prepared.failedElements, spec = prepared.design.imperfections?.failures;
   if (failed === undefined || spec === undefined || failed.length === 0) return ports;
+  // every port of a failed element fails (both ports of a crossed pair)
+  const ppe = prepared.portsPerElement;
+  const failedPorts = ppe === 1 ? failed : Int32Array.from({ length: failed.length * ppe }, (_, i) => failed[Math.floor(i / ppe)] * ppe + (i % ppe));
   // a pattern source in gives a pattern source out
-  return wrapField(prepared.fileName, 'imperfections.failures', () => failedArrayPorts(ports, failed, designFailureTermination(spec)) as DesignLivePorts);
+  return wrapField(prepared.fileName, 'imperfections.failures', () => failedArrayPorts(ports, failedPorts, designFailureTermination(spec)) as DesignLivePorts);
 }
 
 /**
@@ -73,3 +76,16 @@ export function designLivePorts(prepared: PreparedDesign, ports: ArrayPortSource
  * @category Design
  */
 export type DesignLivePorts = ArrayPortSource & Partial<Pick<FailedArrayPorts, 'keptPorts' | 'failedPorts'>>;
+
+/**
+ * The taper amplitude of every (working) port: its element's amplitude (both ports of a crossed
+ * pair share it; a dead element's amplitude is simply missing). @internal
+ */
+export function designPortTaper(p: PreparedDesign, kept?: Int32Array): Float64Array | undefined {
+  const t = p.taper;
+  if (!t) return undefined;
+  const ppe = p.portsPerElement;
+  if (!kept && ppe === 1) return t;
+  const ports = kept ?? Int32Array.from({ length: t.length * ppe }, (_, i) => i);
+  return Float64Array.from(ports, (i) => t[Math.floor(i / ppe)]);
+}

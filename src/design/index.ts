@@ -13,4 +13,6 @@ export { evaluateDesign, evaluateDesignFrequency, assembleDesignEvaluation, freq
 export type { DesignImperfectionFigures, DesignImperfectionBeam, DesignSubarrayFigures } from './imperfections.js';
 export { designImperfectionFigures } from './imperfections.js';
 export type { DesignLivePorts } from './failures.js';
+export type { DesignPolarization } from './polarization.js';
+export { designPolarizationAt } from './polarization.js';
 export { designLivePorts } from './failures.js';

@@ -106,6 +106,22 @@ export type DesignElements =
     readonly groundPlaneHeightM?: number;
   }
   | {
+    /**
+     * Discriminator: "crossedDipole" — two orthogonal one-mode dipoles at every position (a
+     * dual-polarised element), both ports in the coupled network: port 2n is element n's X
+     * dipole, port 2n + 1 its Y dipole.
+     */
+    readonly kind: 'crossedDipole';
+    /** Length of each dipole tip to tip [m]. */
+    readonly lengthM: number;
+    /** Wire radius [m]. */
+    readonly radiusM: number;
+    /** Azimuth of the X dipole from +x toward +y [deg]; the Y dipole lies 90° further. @defaultValue 0 */
+    readonly rotationDeg?: number;
+    /** Height of the feed points over a PEC ground plane at z = 0 [m]; no ground plane when absent. */
+    readonly groundPlaneHeightM?: number;
+  }
+  | {
     /** Discriminator: "wire". */
     readonly kind: 'wire';
     /** The element's wires in its own coordinates (the wire module's WireSpec) [m]. */

@@ -61,6 +61,14 @@ function freePairInto(
 ): Float64Array {
   const dist = segmentDistance(a, b);
   const touch = Math.max(a.radiusM, b.radiusM);
+  if (!(dist > touch) && crossedAtCentres(a, b)) {
+    // A crossed pair (orthogonal, one feed point): the field of a centre-fed dipole in its own
+    // equatorial plane is parallel to its axis, so it has no component along the other wire and
+    // the induced-EMF mutual impedance vanishes exactly (symmetry; C. A. Balanis, *Antenna
+    // Theory*, 4th ed., Wiley, 2016, §4.3 fields of a finite dipole, from memory).
+    out[0] = 0; out[1] = 0;
+    return out;
+  }
   if (!(dist > touch)) {
     throw new CoincidentElementsError(
       `elements ${pair[0]} and ${pair[1]}${what}: the wire axes come within ${dist.toPrecision(4)} m, not more than the wire radius ${touch} m, so the wires overlap and their mutual impedance is undefined; separate or remove one of them.`,
@@ -79,6 +87,13 @@ function freePairInto(
     return out;
   }
   return generalMutualImpedanceInto(out, a, b, k, dist, opts);
+}
+
+/** Orthogonal dipoles whose centres coincide (a crossed-dipole pair), to round-off of their size. */
+function crossedAtCentres(a: DipoleGeometry, b: DipoleGeometry): boolean {
+  const scale = Math.max(a.halfLengthM, b.halfLengthM);
+  const dot = a.ax * b.ax + a.ay * b.ay + a.az * b.az;
+  return Math.hypot(b.cx - a.cx, b.cy - a.cy, b.cz - a.cz) <= 1e-12 * scale && Math.abs(dot) <= 1e-12;
 }
 
 /** Self impedance of one dipole (free space) into out. */

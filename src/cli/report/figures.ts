@@ -57,7 +57,7 @@ export function reportFigureList(ev: DesignEvaluation): ReportFigure[] {
     const perBeam = (key: keyof DesignBeamFigures) => shown.map((k) => ({ label: beamLabel(ev, k), x: fx, y: ev.frequencies.map((r) => r.beams[k][key] as number) }));
     out.push({
       file: 'sensitivity-vs-frequency.svg', caption: `A_e/T_sys versus frequency for ${shown.length} beams (m²/K).`,
-      svg: linePlotSvg({ title: 'Sensitivity A_e/T_sys across the band', xLabel: `frequency [${unit}]`, yLabel: 'A_e/T_sys [m²/K]', traces: perBeam('sensitivityM2PerK') }),
+      svg: linePlotSvg({ title: 'Sensitivity A_e/T_sys across the band', xLabel: `frequency [${unit}]`, yLabel: 'A_e/T_sys [m²/K]', yFromZero: true, traces: perBeam('sensitivityM2PerK') }),
     });
     out.push({
       file: 'gt-vs-frequency.svg', caption: 'G/T versus frequency (dB/K, gain and T_sys referred to the beamformer output).',
@@ -90,7 +90,7 @@ export function reportFigureList(ev: DesignEvaluation): ReportFigure[] {
     out.push({
       file: 'sensitivity.svg', caption: `A_e/T_sys over the scan${band ? ' at the report frequencies' : ''} (m²/K).`,
       svg: linePlotSvg({
-        title: 'Sensitivity A_e/T_sys over the scan', xLabel, yLabel: 'A_e/T_sys [m²/K]',
+        title: 'Sensitivity A_e/T_sys over the scan', xLabel, yLabel: 'A_e/T_sys [m²/K]', yFromZero: true,
         traces: ev.reportFrequencyIndices.map((i) => ({ label: band ? fText(ev, i) : 'A_e/T_sys', x: scan, y: col(ev.frequencies[i], 'sensitivityM2PerK') })),
       }),
     });
@@ -163,6 +163,7 @@ export function reportFigureList(ev: DesignEvaluation): ReportFigure[] {
     });
   }
   out.push(...failureCostFigures(ev, shown, fx, unit));
+  out.push(...polarizationFigures(ev));
   const imp = ev.imperfections;
   if (imp && band) {
     const traces = shown.map((k) => ({ label: beamLabel(ev, k), x: fx, y: imp.beams[k].pointingErrorDeg.map((v) => (v === null ? NaN : v)) }));
@@ -246,4 +247,63 @@ function failureCostFigures(ev: DesignEvaluation, shown: number[], fx: number[],
       ],
     }),
   }];
+}
+
+/** Highest IXR drawn [dB]: larger values (300 = infinite) are drawn at this level, as the captions say. */
+const IXR_TOP_DB = 80;
+
+/** IXR of the X/Y beam pair over the scan coverage and the Ludwig-3 cross-polar level (crossed-dipole designs). */
+function polarizationFigures(ev: DesignEvaluation): ReportFigure[] {
+  if (!ev.frequencies[0].polarization) return [];
+  const out: ReportFigure[] = [];
+  const band = ev.frequenciesHz.length > 1;
+  const pol = (i: number) => ev.frequencies[i].polarization as NonNullable<FrequencyEvaluation['polarization']>;
+  const clip = 'IXR above 80 dB (300 dB in figures.json: infinite, at the numerical limit) is drawn at 80 dB';
+  const what = 'the X/Y beam pair (conjugate-field match of each polarisation\'s ports)';
+  if (ev.beams.kind === 'cone' && ev.beams.stepUV !== undefined) {
+    const s = ev.beams.stepUV;
+    const m = Math.round(Math.max(...ev.beams.u.map(Math.abs), ...ev.beams.v.map(Math.abs)) / s);
+    const axis = Array.from({ length: 2 * m + 1 }, (_, i) => (i - m) * s);
+    for (const i of ev.reportFrequencyIndices) {
+      const grid = new Float64Array(axis.length * axis.length).fill(NaN);
+      let low = Infinity;
+      pol(i).ixrDb.forEach((x, k) => {
+        grid[(Math.round(ev.beams.v[k] / s) + m) * axis.length + Math.round(ev.beams.u[k] / s) + m] = Math.min(x, IXR_TOP_DB);
+        low = Math.min(low, x);
+      });
+      const floorDb = Math.min(IXR_TOP_DB - 10, Math.floor(low / 5) * 5);
+      const at = band ? ` at ${fText(ev, i)}` : '';
+      out.push({
+        file: `ixr-map${suffix(ev, i)}.svg`,
+        caption: `Intrinsic cross-polarisation ratio (IXR, Carozzi & Woan 2011) of ${what} over the scan coverage${at}, dB; one cell per beam, colour scale ${floorDb} to ${IXR_TOP_DB} dB; ${clip}.`,
+        svg: uvMapSvg({ title: `IXR over the scan coverage${at} [dB]`, u: axis, v: axis, valueDb: grid, floorDb, ceilingDb: IXR_TOP_DB, showVisibleCircle: false }),
+      });
+    }
+    return out;
+  }
+  const plane = ev.beams.kind === 'plane' && ev.beams.scanAngleDeg;
+  const x = ev.beams.thetaDeg.map((_, k) => (plane ? (ev.beams.scanAngleDeg as number[])[k] : k));
+  const xLabel = plane ? `scan angle in the φ = ${round(ev.beams.planePhiDeg ?? 0)}° plane [deg]` : 'beam index';
+  out.push({
+    file: 'ixr.svg',
+    caption: `Intrinsic cross-polarisation ratio (IXR, Carozzi & Woan 2011) of ${what} per beam${band ? ' at the report frequencies' : ''} (dB); ${clip}.`,
+    svg: linePlotSvg({
+      title: 'IXR over the scan', xLabel, yLabel: 'IXR [dB]',
+      traces: ev.reportFrequencyIndices.map((i) => ({ label: band ? fText(ev, i) : 'IXR', x, y: pol(i).ixrDb.map((v) => Math.min(v, IXR_TOP_DB)) })),
+    }),
+  });
+  const c = ev.reportFrequencyIndices[Math.floor((ev.reportFrequencyIndices.length - 1) / 2)];
+  const at = band ? ` at ${fText(ev, c)}` : '';
+  out.push({
+    file: 'cross-polar.svg',
+    caption: `Ludwig-3 cross- over co-polar power of the X and Y beams at their beam directions${at} (dB); levels below −80 dB (−300 in figures.json: zero) are drawn at −80 dB.`,
+    svg: linePlotSvg({
+      title: `Cross-polar level per beam${at}`, xLabel, yLabel: 'cross-polar level [dB re co-polar]',
+      traces: [
+        { label: 'X beam', x, y: pol(c).crossPolarXDb.map((v) => Math.max(v, -80)) },
+        { label: 'Y beam', x, y: pol(c).crossPolarYDb.map((v) => Math.max(v, -80)) },
+      ],
+    }),
+  });
+  return out;
 }
