@@ -12,7 +12,7 @@ import { displayable } from './display/attach.js';
  * @remarks
  * `passed` is `value ≤ limit` when `comparison` is `'atMost'` and
  * `value ≥ limit` when it is `'atLeast'`. A failed check means the figures it
- * names are not trustworthy (DESIGN, "result checks"; docs/conventions.md);
+ * names are not trustworthy (conventions, "result checks"; docs/conventions.md);
  * they are still returned so that a report can show them, marked.
  * @category Checks
  */

@@ -133,15 +133,41 @@ export class CapacityError extends NumericError {
 export class ParseError extends NumericError {
   /** One-based line number where the problem was found, or 0 when not line-oriented. */
   readonly line: number;
+  /** One-based column of the problem on its line, or 0 when unknown. */
+  readonly column: number;
+  /** File the text came from, when read from a file (the Node readers set it). */
+  readonly file: string | undefined;
+  /** The message without the place prefix. */
+  readonly detail: string;
   /**
-   * @param message - What was expected and what was found (the line number is prefixed automatically when `line > 0`).
+   * @param message - What was expected and what was found (the place is prefixed automatically).
    * @param line - One-based line number, or 0.
+   * @param column - One-based column, or 0.
+   * @param file - File name, when the text came from a file.
    */
-  constructor(message: string, line = 0) {
-    super(line > 0 ? `line ${line}: ${message}` : message, 'parse');
+  constructor(message: string, line = 0, column = 0, file?: string) {
+    super(placePrefix(file, line, column) + message, 'parse');
     this.name = 'ParseError';
     this.line = line;
+    this.column = column;
+    this.file = file;
+    this.detail = message;
   }
+  /**
+   * The same error, naming the file it came from (`file:line:column: what`).
+   * @param file - File name as the user gave it.
+   * @returns A new ParseError with the file in its message.
+   */
+  inFile(file: string): ParseError {
+    return new ParseError(this.detail, this.line, this.column, file);
+  }
+}
+
+/** `file:line:column: `, `file: `, `line L, column C: ` or `line L: ` (whatever is known). */
+function placePrefix(file: string | undefined, line: number, column: number): string {
+  if (file !== undefined) return `${[file, line > 0 ? line : undefined, line > 0 && column > 0 ? column : undefined].filter((x) => x !== undefined).join(':')}: `;
+  if (line > 0) return column > 0 ? `line ${line}, column ${column}: ` : `line ${line}: `;
+  return '';
 }
 
 /**

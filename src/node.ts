@@ -3,7 +3,7 @@
  * The browser-safe core (`phasewise`) never imports this module.
  * @module
  */
-export { readYFactorCsv, readOnOffCsv } from './measure/node.js';
+export { readYFactorCsv, readOnOffCsv, readCorrelationMatrixFile } from './measure/node.js';
 export { readTouchstoneFile, writeTouchstoneFile } from './network/node.js';
 export { readPatternFile, writePatternFile } from './element/node.js';
 export { writeFigure } from './plot/node.js';

@@ -1,6 +1,6 @@
 import { bench, describe } from 'vitest';
-import { rectangularLattice } from '../../src/floquet/lattice.js';
-import { type InfiniteDipoleArrayOptions, infiniteArrayActiveImpedanceInto, infiniteDipoleArray } from '../../src/floquet/infinite-dipole-array.js';
+import { rectangularLattice } from '../../src/geometry/lattice.js';
+import { type InfiniteDipoleArrayOptions, infiniteArrayActiveImpedanceInto, infiniteDipoleArray } from '../../src/floquet/infiniteDipoleArray.js';
 import { seededRandom } from '../../test/helpers/matchers.js';
 
 const F_HZ = 1e9;

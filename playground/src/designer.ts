@@ -121,7 +121,9 @@ function update(): void {
   taperRow.hidden = inputs.taper === 'uniform';
   byId('designer-nbar-field').hidden = inputs.taper !== 'taylor';
   try {
-    if (!(inputs.count <= 40)) throw new RangeError(`elements per side must be at most 40 here (received ${inputs.count}); the library itself has no such limit.`);
+    if (!(Number.isInteger(inputs.count) && inputs.count >= 1 && inputs.count <= 40)) {
+      throw new RangeError(`elements per side must be a whole number from 1 to 40 here (received ${inputs.count}); the library itself has no upper limit.`);
+    }
     if (!(Math.abs(inputs.scanDeg) <= 90)) throw new RangeError(`the scan angle must lie in [−90°, 90°] (received ${inputs.scanDeg}°).`);
     const a = designArray(inputs);
     const f = inputs.frequencyHz;

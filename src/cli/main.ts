@@ -10,7 +10,8 @@ import { Command, CommanderError, InvalidArgumentError, Option } from 'commander
 import { UsageError, exitCodeFor } from './errors.js';
 import { TAPER_KINDS, formatTaper, runTaper } from './commands/taper.js';
 import { formatSpacing, runSpacing } from './commands/spacing.js';
-import { formatYFactor, noiseSourceSetting, runYFactor } from './commands/yfactor.js';
+import { formatOnOff, formatReceiverNoise, formatYFactor, noiseSourceSetting, runOnOff, runReceiverNoise, runYFactor, throwIfRejected } from './commands/yfactor.js';
+import type { FluxCorrections } from '../measure/index.js';
 import { failedChecksText, formatRun, parseShard, runEvaluate, runMerge, type ReportRun } from './commands/evaluate.js';
 import { FailedChecksError } from './errors.js';
 import { VERSION } from '../version.js';
@@ -98,14 +99,71 @@ export function buildProgram(io: { out: (s: string) => void; err: (s: string) =>
     .option('--t0-k <K>', 'ENR reference temperature T0 [K]', numberArg('--t0-k', { min: 1e-9 }), 290)
     .requiredOption('--cold-k <K>', 'cold-load (or noise source off) temperature [K]', numberArg('--cold-k', { min: 0 }))
     .option('--db', 'the power columns are in dB')
+    .option('--power-sigma <fraction>', 'one-sigma relative uncertainty of every power reading (0.01 = 1 %)', numberArg('--power-sigma', { min: 0 }))
+    .option('--hot-sigma-k <K>', 'one-sigma uncertainty of the hot-load temperature [K]', numberArg('--hot-sigma-k', { min: 0 }))
+    .option('--enr-sigma-db <dB>', 'one-sigma uncertainty of the ENR [dB] (noise-source form)', numberArg('--enr-sigma-db', { min: 0 }))
+    .option('--cold-sigma-k <K>', 'one-sigma uncertainty of the cold-load temperature [K]', numberArg('--cold-sigma-k', { min: 0 }))
     .option('--json', 'print JSON instead of tables')
-    .addHelpText('after', '\nExamples:\n  phasewise yfactor bench.csv --hot-k 295 --cold-k 77\n  phasewise yfactor diode.csv --enr-db 15.2 --cold-k 296')
+    .addHelpText('after', [
+      '',
+      'A row that cannot be reduced (a non-number, Y ≤ 1) is named with its line; the other channels are',
+      'still printed, and the command exits 2.',
+      '',
+      'Examples:',
+      '  phasewise yfactor bench.csv --hot-k 295 --cold-k 77',
+      '  phasewise yfactor bench.csv --hot-k 295 --cold-k 77 --power-sigma 0.005 --hot-sigma-k 0.5 --cold-sigma-k 1',
+      '  phasewise yfactor diode.csv --enr-db 15.2 --enr-sigma-db 0.1 --cold-k 296',
+    ].join('\n'))
     .action((file: string, o) => {
       if ((o.hotK === undefined) === (o.enrDb === undefined)) throw new UsageError('give exactly one of --hot-k (hot load) and --enr-db (noise source).');
-      const source = o.enrDb === undefined ? undefined : noiseSourceSetting(o.enrDb, o.t0K);
+      if (o.enrSigmaDb !== undefined && o.enrDb === undefined) throw new UsageError('--enr-sigma-db needs --enr-db (with a hot load, give --hot-sigma-k).');
+      if (o.hotSigmaK !== undefined && o.enrDb !== undefined) throw new UsageError('--hot-sigma-k is for a hot load; with --enr-db give --enr-sigma-db.');
+      const source = o.enrDb === undefined ? undefined : noiseSourceSetting(o.enrDb, o.t0K, o.enrSigmaDb ?? 0);
       const hotK = source ? source.onTemperatureK : o.hotK;
-      const rows = runYFactor(file, hotK, o.coldK, Boolean(o.db));
-      io.out((o.json ? JSON.stringify(source ? rows.map((r) => ({ ...r, ...source })) : rows, null, 2) : formatYFactor(rows, hotK, o.coldK, source)) + '\n');
+      const r = runYFactor({
+        file, hotTemperatureK: hotK, coldTemperatureK: o.coldK, db: Boolean(o.db),
+        powerRelativeSigma: o.powerSigma, hotTemperatureSigmaK: source ? source.onTemperatureSigmaK : o.hotSigmaK, coldTemperatureSigmaK: o.coldSigmaK,
+      });
+      if (r.results.length > 0 || r.rejected.length === 0) {
+        io.out((o.json ? JSON.stringify(source ? r.results.map((x) => ({ ...x, ...source })) : r.results, null, 2) : formatYFactor(r.results, hotK, o.coldK, source)) + '\n');
+      }
+      throwIfRejected(r, file, 'channel');
+    });
+
+  program.command('onoff')
+    .description('Sensitivity A_e/T_sys and SEFD per beam from on-source and off-source powers on a calibrator (CSV columns beam, on, off).')
+    .argument('<table.csv>', 'measurement table (linear powers)')
+    .requiredOption('--flux-jy <Jy>', 'calibrator flux density, total over both polarisations [Jy]', numberArg('--flux-jy', { min: 1e-12 }))
+    .option('--zenith-opacity-np <tau>', 'atmospheric zenith opacity τ [Np] (with --elevation-deg): S × exp(−τ/sin el)', numberArg('--zenith-opacity-np', { min: 0 }))
+    .option('--elevation-deg <deg>', 'calibrator elevation [deg]', numberArg('--elevation-deg', { min: 0.06, max: 90 }))
+    .option('--source-size-factor <K>', 'source-size correction K ≥ 1 for a partly resolved calibrator: S / K', numberArg('--source-size-factor', { min: 1 }))
+    .option('--power-sigma <fraction>', 'one-sigma relative uncertainty of every power reading', numberArg('--power-sigma', { min: 0 }))
+    .option('--flux-sigma <fraction>', 'one-sigma relative uncertainty of the calibrator flux density', numberArg('--flux-sigma', { min: 0 }))
+    .option('--json', 'print JSON instead of tables')
+    .addHelpText('after', '\nExample:\n  phasewise onoff drift-scan.csv --flux-jy 1500 --zenith-opacity-np 0.01 --elevation-deg 52 --power-sigma 0.002 --flux-sigma 0.05')
+    .action((file: string, o) => {
+      if ((o.zenithOpacityNp === undefined) !== (o.elevationDeg === undefined)) throw new UsageError('give --zenith-opacity-np and --elevation-deg together (the atmospheric correction needs both).');
+      const corrections: FluxCorrections = {
+        ...(o.zenithOpacityNp !== undefined ? { atmosphere: { zenithOpacityNp: o.zenithOpacityNp, elevationRad: (o.elevationDeg * Math.PI) / 180 } } : {}),
+        ...(o.sourceSizeFactor !== undefined ? { sourceSizeFactor: o.sourceSizeFactor } : {}),
+      };
+      const r = runOnOff({ file, fluxJy: o.fluxJy, corrections, powerRelativeSigma: o.powerSigma, fluxRelativeSigma: o.fluxSigma });
+      if (r.results.length > 0 || r.rejected.length === 0) io.out((o.json ? JSON.stringify(r.results, null, 2) : formatOnOff(r.results, o.fluxJy)) + '\n');
+      throwIfRejected(r, file, 'beam');
+    });
+
+  program.command('receiver-noise')
+    .description('Matrix Y-factor: receiver noise temperature of every channel (and of given beams) from hot and cold correlation matrices.')
+    .requiredOption('--hot <hot.json>', 'correlation matrix with the hot environment ({"rows", "cols", "re", "im"}, row-major)')
+    .requiredOption('--cold <cold.json>', 'correlation matrix with the cold environment, same form')
+    .requiredOption('--hot-k <K>', 'brightness temperature of the hot environment [K]', numberArg('--hot-k', { min: 0 }))
+    .requiredOption('--cold-k <K>', 'brightness temperature of the cold environment [K]', numberArg('--cold-k', { min: 0 }))
+    .option('--weights <w.json>', 'beam weights, one column per beam (same matrix form)')
+    .option('--json', 'print JSON instead of tables')
+    .addHelpText('after', '\nBoth environments must fill the whole pattern with the same angular shape (absorber around the array, uniform cold sky).\n\nExample:\n  phasewise receiver-noise --hot absorber.json --cold zenith.json --hot-k 293 --cold-k 12 --weights beams.json')
+    .action((o) => {
+      const r = runReceiverNoise(o.hot, o.cold, o.hotK, o.coldK, o.weights);
+      io.out((o.json ? JSON.stringify({ channels: r.perChannel, beams: r.beams }, null, 2) : formatReceiverNoise(r, o.hotK, o.coldK)) + '\n');
     });
 
   program.command('evaluate')

@@ -5,6 +5,7 @@
  * name the frequencies a data file covers.
  * @module
  */
+import { hzText } from '../internal/text.js';
 import type { NoiseParametersInput } from '../network/noise.js';
 import { noiseParametersFromFigure } from '../network/noise.js';
 import { parseTouchstone } from '../network/touchstone.js';
@@ -17,12 +18,6 @@ import { fieldError, type Design } from './schema.js';
 /** Reads a file named in a design (a path relative to the design file); supplied by the caller. @category Design */
 export type DesignFileReader = (name: string) => string;
 
-/** Short frequency text for messages: 1.4 GHz, 350 MHz. @internal */
-export function hzText(f: number): string {
-  const [s, u] = f >= 1e9 ? [f / 1e9, 'GHz'] : f >= 1e6 ? [f / 1e6, 'MHz'] : f >= 1e3 ? [f / 1e3, 'kHz'] : [f, 'Hz'];
-  return `${Number(s.toPrecision(7))} ${u}`;
-}
-
 /**
  * The design's frequency points, strictly increasing [Hz].
  * @throws DesignError for a list that does not increase or a range with toHz < fromHz.
@@ -33,12 +28,12 @@ export function designFrequencies(d: Design, file: string): Float64Array {
   if (typeof f === 'number') return Float64Array.of(f);
   if (!('fromHz' in f)) {
     for (let i = 1; i < f.length; i++) {
-      if (!(f[i] > f[i - 1])) throw fieldError(file, `frequencyHz[${i}]`, `expected frequencies in increasing order, received ${f[i]} Hz after ${f[i - 1]} Hz`);
+      if (!(f[i] > f[i - 1])) throw fieldError(file, `frequencyHz[${i}]`, `expected frequencies in increasing order, received ${hzText(f[i])} after ${hzText(f[i - 1])}`);
     }
     return Float64Array.from(f);
   }
-  if (f.count > 1 && !(f.toHz > f.fromHz)) throw fieldError(file, 'frequencyHz.toHz', `expected toHz > fromHz (${f.fromHz} Hz) for ${f.count} points, received ${f.toHz} Hz`);
-  if (f.count === 1 && f.toHz !== f.fromHz) throw fieldError(file, 'frequencyHz.count', `expected count ≥ 2 for a band from ${f.fromHz} Hz to ${f.toHz} Hz, received 1`);
+  if (f.count > 1 && !(f.toHz > f.fromHz)) throw fieldError(file, 'frequencyHz.toHz', `expected toHz > fromHz (${hzText(f.fromHz)}) for ${f.count} points, received ${hzText(f.toHz)}`);
+  if (f.count === 1 && f.toHz !== f.fromHz) throw fieldError(file, 'frequencyHz.count', `expected count ≥ 2 for a band from ${hzText(f.fromHz)} to ${hzText(f.toHz)}, received 1`);
   return Float64Array.from({ length: f.count }, (_, i) => (f.count === 1 ? f.fromHz : f.fromHz + ((f.toHz - f.fromHz) * i) / (f.count - 1)));
 }
 

@@ -7,13 +7,14 @@
  * design are read through a caller-supplied reader.
  * @module
  */
+import { hzText } from '../internal/text.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
 import { degToRad } from '../units/convert.js';
 import {
   arrayLayout, rectangularGridLayout, triangularLatticeLayout, uniformLineLayout, layoutCentroid,
   type ArrayLayout,
 } from '../geometry/index.js';
-import { planarLattice, rectangularLattice, type PlanarLattice } from '../floquet/lattice.js';
+import type { PlanarLattice } from '../geometry/lattice.js';
 import { parseTouchstone } from '../network/touchstone.js';
 import { interpolateMultiport } from '../network/interpolate.js';
 import { convertMultiport } from '../network/convert.js';
@@ -36,7 +37,7 @@ import { designFailedElements } from './failures.js';
 import { designSubarrays } from './imperfections.js';
 import type { SubarrayLayout } from '../imperfect/subarrays.js';
 import {
-  amplifierBand, assertCovered, designFrequencies, hzText, touchstoneOptions, wrapField,
+  amplifierBand, assertCovered, designFrequencies, touchstoneOptions, wrapField,
   type AmplifierBand, type DesignFileReader,
 } from './bandData.js';
 
@@ -110,21 +111,17 @@ function buildLayout(d: Design, file: string): { layout: ArrayLayout; lattice?: 
     switch (l.kind) {
       case 'line':
         return { layout: uniformLineLayout(l.count, l.spacingM, { axis: l.axis ?? 'x' }), spacingM: l.spacingM };
-      case 'rectangular':
-        return {
-          layout: rectangularGridLayout({ countX: l.countX, countY: l.countY, spacingXM: l.spacingXM, spacingYM: l.spacingYM }),
-          lattice: rectangularLattice(l.spacingXM, l.spacingYM), spacingM: Math.min(l.spacingXM, l.spacingYM),
-        };
+      case 'rectangular': {
+        const layout = rectangularGridLayout({ countX: l.countX, countY: l.countY, spacingXM: l.spacingXM, spacingYM: l.spacingYM });
+        return { layout, lattice: layout.lattice, spacingM: Math.min(l.spacingXM, l.spacingYM) };
+      }
       case 'triangular': {
         const b = l.boundary;
         const boundary = b.kind === 'circle'
           ? { kind: 'circle' as const, radiusM: b.radiusM }
           : { kind: 'hexagon' as const, circumradiusM: b.circumradiusM, rotationRad: degToRad(b.rotationDeg ?? 0) };
-        const dy = (l.spacingM * Math.sqrt(3)) / 2;
-        return {
-          layout: triangularLatticeLayout(l.spacingM, boundary),
-          lattice: planarLattice([l.spacingM, 0], [l.spacingM / 2, dy]), spacingM: l.spacingM,
-        };
+        const layout = triangularLatticeLayout(l.spacingM, boundary);
+        return { layout, lattice: layout.lattice, spacingM: l.spacingM };
       }
       case 'positions':
         return { layout: arrayLayout(l.positionsM) };

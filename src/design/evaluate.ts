@@ -5,13 +5,14 @@
  * report's figures — plain JSON-able data, browser-safe.
  * @module
  */
+import { hzText } from '../internal/text.js';
 import { zeros } from '../linalg/cmatrix.js';
 import type { PhysicalCheck } from '../checks.js';
 import type { WireArrayPortSource } from '../wire/patterns.js';
 import { NumericError } from '../errors.js';
 import { layoutDiameterM, sphereQuadrature, sphereQuadratureForLayout, sphereQuadratureOrder, type SphereQuadrature } from '../geometry/index.js';
 import { displayable } from '../display/attach.js';
-import { gratingLobeCircles } from '../floquet/grating-lobes.js';
+import { gratingLobeCircles } from '../geometry/gratingLobes.js';
 import { createMultiport } from '../network/multiport.js';
 import { convertMultiport } from '../network/convert.js';
 import { terminatePorts } from '../network/connect.js';
@@ -428,7 +429,7 @@ function receiveAt(p: PreparedDesign, f: number, ports: DesignLivePorts, environ
   } catch (err) {
     if (err instanceof NumericError && err.name !== 'DesignError') {
       const hint = e.kind === 'imported' ? ' (the noise integrals need embedded patterns over the whole sphere, θ from 0 to 180°)' : '';
-      throw fieldError(p.fileName, e.kind === 'imported' ? 'elements.patternFile' : 'elements', `cannot evaluate at ${f} Hz: ${err.message}${hint}`);
+      throw fieldError(p.fileName, e.kind === 'imported' ? 'elements.patternFile' : 'elements', `cannot evaluate at ${hzText(f)}: ${err.message}${hint}`);
     }
     throw err;
   }

@@ -8,7 +8,9 @@
  */
 import { z } from 'zod';
 import { T0_K } from '../units/constants.js';
-import { DesignError } from '../errors.js';
+import { noiseParameterProblem } from '../network/noise.js';
+import { DesignError, ParseError } from '../errors.js';
+import { parseJsonText } from '../internal/json.js';
 import type { Design } from './types.js';
 
 export type { Design } from './types.js';
@@ -109,17 +111,10 @@ const wireElements = z.strictObject({
 });
 const elements = z.discriminatedUnion('kind', [dipoleElements, crossedDipoleElements, importedElements, wireElements]);
 
-/** A physical two-port has T_min ≤ 4 T0 R_n Re Y_opt (M. W. Pospieszalski, IEEE Trans. MTT 37(9), 1989, from memory). */
+/** Realisable noise parameters: the network module's one rule ({@link noiseParameterProblem}). */
 function checkRealisable(ctx: z.RefinementCtx, path: PropertyKey[], tMin: number, rn: number, y: number | { re: number; im: number }): void {
-  const g = typeof y === 'number' ? y : y.re;
-  if (!(g > 0)) {
-    ctx.addIssue({ code: 'custom', path: [...path, 'optimumSourceAdmittanceS'], message: 'expected a real part > 0 [S]', input: y });
-  } else if (tMin > 4 * T0_K * rn * g) {
-    ctx.addIssue({
-      code: 'custom', path: [...path, 'minimumNoiseTemperatureK'], input: tMin,
-      message: `expected a physical amplifier, T_min ≤ 4·T0·R_n·Re(Y_opt) = ${(4 * T0_K * rn * g).toPrecision(4)} K`,
-    });
-  }
+  const bad = noiseParameterProblem(tMin, rn, typeof y === 'number' ? y : y.re);
+  if (bad) ctx.addIssue({ code: 'custom', path: [...path, bad.field], message: `expected ${bad.expected}`, input: bad.field === 'optimumSourceAdmittanceS' ? y : bad.field === 'noiseResistanceOhm' ? rn : tMin });
 }
 const backEnd = {
   gainDb: finite.optional(),
@@ -350,20 +345,6 @@ function issueText(issue: z.core.$ZodIssue): string {
   }
 }
 
-/** JSON.parse's message with its character offset turned into a 1-based line:column. */
-function jsonErrorText(text: string, message: string): string {
-  const m = /at position (\d+)/.exec(message);
-  let out = message.replace(/ in JSON at position \d+.*$/, '');
-  if (m) {
-    const pos = Number(m[1]);
-    const before = text.slice(0, pos);
-    const line = before.split('\n').length, column = pos - before.lastIndexOf('\n');
-    out += ` at line ${line}, column ${column}`;
-  }
-  if (/\bNaN\b|\bInfinity\b/.test(text)) out += ' (JSON has no NaN or Infinity: write a finite number)';
-  return out;
-}
-
 /**
  * A failed union (e.g. the three amplifier forms) reports the problems of the form that came
  * closest — the unique branch with the fewest problems — so the message names the field
@@ -390,9 +371,10 @@ function closestBranch(issue: z.core.$ZodIssue): z.core.$ZodIssue[] {
 export function parseDesign(text: string, fileName: string): Design {
   let data: unknown;
   try {
-    data = JSON.parse(text);
+    data = parseJsonText(text, 'the design file');
   } catch (e) {
-    throw new DesignError(fileName, [{ field: '(top level)', message: `not valid JSON: ${jsonErrorText(text, (e as Error).message)}` }]);
+    if (e instanceof ParseError) throw new DesignError(fileName, [{ field: '(top level)', message: e.message }]);
+    throw e;
   }
   return validateDesign(data, fileName);
 }

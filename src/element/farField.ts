@@ -3,7 +3,7 @@
  * phasewise convention.
  *
  * @remarks
- * Convention (DESIGN, "embedded pattern"): with port current I₀ (RMS) the
+ * Convention (conventions, "embedded pattern"): with port current I₀ (RMS) the
  * radiated field is E(r) = f(r̂) e^{−jkr}/r, time dependence e^{+jωt}, the
  * phase referred to the coordinate origin. For a current density J(r′) of
  * terminal current I₀ the radiation vector is N(r̂) = ∫ J(r′) e^{+jk r̂·r′} dV′
@@ -14,7 +14,7 @@
  * the transverse part of the vector potential (Balanis, Antenna Theory, 4th ed.,
  * 2016, §3.6 and eq. (4-26a), from memory). For a z-directed Hertzian element
  * this gives f_θ = +j η k I₀ L sinθ / 4π, the classic result. The sign agrees
- * with the DESIGN reception row: two far-apart elements give
+ * with the conventions' reception row: two far-apart elements give
  * −j(4π/(ηkI₀)) f₂·E_inc = Z₂₁ I₁ (tested against the induced-EMF mutual
  * impedance).
  * @module

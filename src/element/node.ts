@@ -3,8 +3,9 @@
  * the `phasewise/node` entry, never imported by the browser-safe core.
  * @module
  */
-import { readFileSync, writeFileSync } from 'node:fs';
+import { writeFileSync } from 'node:fs';
 import { ParseError } from '../errors.js';
+import { parseTextFile } from '../internal/node.js';
 import type { EmbeddedPatternSet } from './patternSet.js';
 import { formatPatternCsv, formatPatternJson, parsePatternCsv, parsePatternJson } from './patternFormats.js';
 
@@ -26,13 +27,7 @@ function formatOf(path: string, format: 'json' | 'csv' | undefined): 'json' | 'c
  */
 export function readPatternFile(path: string, format?: 'json' | 'csv'): EmbeddedPatternSet {
   const f = formatOf(path, format);
-  let text: string;
-  try {
-    text = readFileSync(path, 'utf8');
-  } catch (e) {
-    throw new ParseError(`cannot read "${path}": ${(e as Error).message}`);
-  }
-  return f === 'json' ? parsePatternJson(text) : parsePatternCsv(text);
+  return parseTextFile(path, f === 'json' ? parsePatternJson : parsePatternCsv);
 }
 
 /**

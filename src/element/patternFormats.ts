@@ -34,6 +34,7 @@
 import { z } from 'zod';
 import { ParseError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
+import { parseJsonText } from '../internal/json.js';
 import { embeddedPatternSet, type EmbeddedPatternSet, type PatternExcitation } from './patternSet.js';
 import { NumericError } from '../errors.js';
 import { matrixView } from '../linalg/cmatrix.js';
@@ -146,15 +147,7 @@ function assemble(parts: EmbeddedPatternSet, where: string): EmbeddedPatternSet 
  */
 export function parsePatternJson(text: string): EmbeddedPatternSet {
   if (typeof text !== 'string') throw new ParseError(`expected the JSON text as a string, received ${typeof text}.`);
-  let raw: unknown;
-  try {
-    raw = JSON.parse(text);
-  } catch (e) {
-    const m = /position (\d+)/.exec((e as Error).message);
-    let line = 0;
-    if (m) { line = 1; for (let i = 0; i < Number(m[1]); i++) if (text[i] === '\n') line++; }
-    throw new ParseError(`invalid JSON: ${(e as Error).message}`, line);
-  }
+  const raw = parseJsonText(text, 'the pattern file');
   const r = fileSchema.safeParse(raw);
   if (!r.success) {
     const issue = r.error.issues[0];

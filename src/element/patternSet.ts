@@ -23,7 +23,7 @@ import { assertAboveGround, dipoleGeometry, type WireDipole } from './types.js';
  *
  * @remarks
  * - `open-circuit-current`: port n driven by current I₀, all other ports open
- *   (the phasewise default, DESIGN "embedded pattern");
+ *   (the phasewise default, conventions "embedded pattern");
  * - `short-circuit-voltage`: port n driven by an ideal voltage source V₀, all
  *   other ports short-circuited;
  * - `loaded-voltage`: port n driven by a source of EMF V₀ in series with its
@@ -221,7 +221,7 @@ export function embeddedPatternSet(parts: EmbeddedPatternSet): EmbeddedPatternSe
  * terminal current (the model behind the induced-EMF impedance matrix). An
  * open-circuited port then carries no current at all, so the open-circuit
  * embedded pattern of dipole n is exactly its isolated pattern with the
- * position phase e^{+jk r̂·rₙ} (DESIGN "embedded pattern" row), including the
+ * position phase e^{+jk r̂·rₙ} (conventions, "embedded pattern" row), including the
  * ground-plane image when a plane is given. Real wires carry higher-order
  * currents when open; the assumption is good for thin dipoles up to about
  * λ/2 long (common practice). Phase centres are set to the dipole centres.

@@ -334,7 +334,7 @@ export function isotropicRadiation(radiator: IsotropicRadiator, frequencyHz: num
  * @remarks
  * With RMS phasors the radiated power of port currents I is
  * P = (1/η)∮|Σ Iₙfₙ/I₀|² dΩ = Iᴴ R I, and for a lossless reciprocal array
- * Re Z = R (the Twiss / brightness-integral identity of DESIGN: isotropic
+ * Re Z = R (the Twiss / brightness-integral identity of the conventions: isotropic
  * brightness T gives 4k_B T B R = 2k_B T B (Z + Zᴴ)). `weightsSr` are the
  * solid-angle weights of the set's grid columns — e.g. build the set on
  * `sphereQuadrature(...).thetaRad/phiRad` and pass its `weights` (same column

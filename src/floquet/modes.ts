@@ -4,12 +4,12 @@
  * impedances.
  * @module
  */
-import Complex from 'complex.js';
+import { Complex } from 'complex.js';
 import { DomainError } from '../errors.js';
 import { assertFinite, assertInRange, assertInteger, assertPositive } from '../internal/validate.js';
 import { ETA0_OHM } from '../units/constants.js';
 import { wavenumberRadPerM } from '../units/convert.js';
-import type { PlanarLattice } from './lattice.js';
+import type { PlanarLattice } from '../geometry/lattice.js';
 import type { SphericalAngles } from '../geometry/directions.js';
 
 /**
@@ -18,7 +18,7 @@ import type { SphericalAngles } from '../geometry/directions.js';
  * {@link anglesFromUv}).
  *
  * @remarks
- * The infinite array pointed at r̂₀ has receive weights wₙ = exp(+j k r̂₀·rₙ) (DESIGN steering
+ * The infinite array pointed at r̂₀ has receive weights wₙ = exp(+j k r̂₀·rₙ) (conventions: steering
  * convention) and the equivalent transmit excitation (port currents) Iₙ = conj(wₙ) =
  * exp(−j k r̂₀·rₙ); the (0,0) Floquet mode then has transverse wavenumber
  * k_t00 = k (sinθ₀cosφ₀, sinθ₀sinφ₀) and radiates toward r̂₀.

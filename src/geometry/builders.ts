@@ -6,6 +6,7 @@
 import { DomainError } from '../errors.js';
 import { assertInteger, assertPositive, assertFinite, describeValue } from '../internal/validate.js';
 import type { ArrayLayout, Vector3 } from './layout.js';
+import { planarLattice, rectangularLattice } from './lattice.js';
 
 /**
  * The axis of a line array: a coordinate axis name or any unit vector.
@@ -119,7 +120,7 @@ export function rectangularGridLayout(grid: RectangularGridSpec): ArrayLayout {
       pos[3 * n + 1] = (iy - cy) * spacingYM;
     }
   }
-  return { count, positionsM: pos };
+  return { count, positionsM: pos, lattice: rectangularLattice(spacingXM, spacingYM) };
 }
 
 /**
@@ -271,7 +272,7 @@ export function latticeLayout(
   pts.sort((p, q) => (Math.abs(p[1] - q[1]) > tol ? p[1] - q[1] : p[0] - q[0]));
   const pos = new Float64Array(3 * pts.length);
   pts.forEach(([x, y], i) => { pos[3 * i] = x; pos[3 * i + 1] = y; });
-  return { count: pts.length, positionsM: pos };
+  return { count: pts.length, positionsM: pos, lattice: planarLattice(basis1M, basis2M) };
 }
 
 /**

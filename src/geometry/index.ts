@@ -18,3 +18,7 @@ export type { GaussLegendreRule, SphereQuadrature, SphereQuadratureOptions, Sphe
 export { gaussLegendre, sphereQuadrature, sphereQuadratureOrder, sphereQuadratureForLayout } from './quadrature.js';
 export type { SplitSphereRuleOptions, SplitSphereRule } from './splitRule.js';
 export { splitSphereRule } from './splitRule.js';
+export type { PlanarLattice } from './lattice.js';
+export { planarLattice, rectangularLattice, triangularLattice, scaleLattice } from './lattice.js';
+export type { GratingLobe, GratingLobeCircle, ScanConeSpacing } from './gratingLobes.js';
+export { gratingLobes, lineGratingLobes, gratingLobeCircles, gratingLobeFreeScanConeRad, latticeScaleForScanCone, spacingForScanCone } from './gratingLobes.js';

@@ -6,6 +6,7 @@
 import { DimensionError, DomainError } from '../errors.js';
 import { describeValue } from '../internal/validate.js';
 import { wavelengthM } from '../units/convert.js';
+import { assertLattice, type PlanarLattice } from './lattice.js';
 
 /**
  * A point or direction in 3-D Cartesian coordinates `[x, y, z]`.
@@ -44,6 +45,13 @@ export interface ArrayLayout {
   readonly orientations?: Float64Array;
   /** Optional enable mask, length N: 1 = active, 0 = removed (thinned). */
   readonly enabled?: Uint8Array;
+  /**
+   * The planar lattice the positions lie on (every position is one lattice point plus a common
+   * offset, in the plane z = 0), when the layout was built on one: {@link latticeLayout},
+   * {@link triangularLatticeLayout} and {@link rectangularGridLayout} set it. Grating lobes,
+   * scan-cone spacing and Floquet analysis take it directly (`gratingLobes(layout.lattice, …)`).
+   */
+  readonly lattice?: PlanarLattice;
 }
 
 /**
@@ -55,6 +63,8 @@ export interface ArrayLayoutOptions {
   orientations?: Float64Array | ReadonlyArray<Vector3>;
   /** Enable mask, one entry per element (true/1 active). @defaultValue all active */
   enabled?: ArrayLike<number | boolean>;
+  /** The lattice the positions lie on (stated by the caller; see {@link ArrayLayout.lattice}). @defaultValue none */
+  lattice?: PlanarLattice;
 }
 
 function flatten(name: string, v: Float64Array | ReadonlyArray<Vector3>): Float64Array {
@@ -104,7 +114,8 @@ export function arrayLayout(positionsM: Float64Array | ReadonlyArray<Vector3>, o
   }
   checkCoordinates('positionsM', pos);
   const count = pos.length / 3;
-  const layout: { count: number; positionsM: Float64Array; orientations?: Float64Array; enabled?: Uint8Array } = { count, positionsM: pos };
+  const layout: { count: number; positionsM: Float64Array; orientations?: Float64Array; enabled?: Uint8Array; lattice?: PlanarLattice } = { count, positionsM: pos };
+  if (options.lattice !== undefined) layout.lattice = assertLattice('lattice', options.lattice);
   if (options.orientations !== undefined) {
     const o = flatten('orientations', options.orientations);
     if (o.length !== pos.length) {

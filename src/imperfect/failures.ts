@@ -107,7 +107,7 @@ export function randomFailures(count: number, fraction: number, seed: number): I
  * @remarks
  * Kept ports K, failed ports F terminated by Z_L (V_F = −Z_L I_F). Driving a
  * kept port k with I₀ (other kept ports open) makes the failed ports carry
- * I_F = −(Z_FF + Z_L)⁻¹ Z_Fk I₀, so the new embedded patterns (DESIGN
+ * I_F = −(Z_FF + Z_L)⁻¹ Z_Fk I₀, so the new embedded patterns (conventions,
  * "embedded pattern" convention, docs/conventions.md) are
  * f'_k = f_k − Σ_j [(Z_FF + Z_L)⁻¹ Z_FK]_{jk} f_{F_j}, and the new impedance matrix
  * is the Schur complement Z' = Z_KK − Z_KF (Z_FF + Z_L)⁻¹ Z_FK, computed by the

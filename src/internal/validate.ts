@@ -5,7 +5,7 @@
  * @module
  */
 import { DimensionError, DomainError } from '../errors.js';
-import type { CMatrix } from '../linalg/cmatrix.js';
+import type { CMatrix } from '../linalg/types.js';
 
 /** Short printable form of any received value. */
 export function describeValue(x: unknown): string {

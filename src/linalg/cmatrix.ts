@@ -6,6 +6,7 @@
 import { Complex } from 'complex.js';
 import { DimensionError, DomainError, ParseError } from '../errors.js';
 import { assertCMatrix, assertInteger, describeValue } from '../internal/validate.js';
+import type { CMatrix } from './types.js';
 import { displayPrototype } from '../display/attach.js';
 import { show } from '../display/format.js';
 
@@ -21,25 +22,7 @@ function makeMatrix(rows: number, cols: number, data: Float64Array): CMatrix {
   return m;
 }
 
-/**
- * Dense complex matrix, row-major, interleaved `[re, im]`.
- *
- * @remarks
- * Entry (i, j) has its real part at `data[2·(i·cols + j)]` and its imaginary
- * part at `data[2·(i·cols + j) + 1]`. Column vectors are `CMatrix` values with
- * `cols === 1`. Every phasewise module takes and returns this type; the
- * `data` buffer may be read and written directly in hot loops.
- * Conventions: docs/conventions.md.
- * @category Complex core
- */
-export interface CMatrix {
-  /** Number of rows, ≥ 0. */
-  readonly rows: number;
-  /** Number of columns, ≥ 0. */
-  readonly cols: number;
-  /** Length 2·rows·cols; element (i, j) starts at 2·(i·cols + j). */
-  readonly data: Float64Array;
-}
+export type { CMatrix } from './types.js';
 
 /**
  * A complex scalar as accepted at the API surface: a real number, a plain

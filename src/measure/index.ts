@@ -4,5 +4,5 @@ export type { HotColdCorrelationInput, HotColdCorrelationResult } from './hotcol
 export { receiverNoiseFromHotCold, beamReceiverTemperature } from './hotcold.js';
 export type { AtmosphereCorrection, FluxCorrections, OnOffInput, OnOffResult, OnOffCorrelationInput } from './sensitivity.js';
 export { onOffSensitivity, onOffSensitivityFromCorrelation, apertureEfficiencyFromSensitivity } from './sensitivity.js';
-export type { YFactorRow, OnOffRow, YFactorTableOptions, YFactorTableResult, OnOffTableResult } from './table.js';
-export { parseYFactorCsv, parseOnOffCsv, reduceYFactorTable, reduceOnOffTable } from './table.js';
+export type { YFactorRow, OnOffRow, YFactorTableOptions, OnOffTableOptions, YFactorTableResult, OnOffTableResult, RejectedRow, TableReduction } from './table.js';
+export { parseYFactorCsv, parseOnOffCsv, reduceYFactorTable, reduceOnOffTable, reduceYFactorCsv, reduceOnOffCsv } from './table.js';

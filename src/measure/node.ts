@@ -2,17 +2,10 @@
  * Node-only readers for measurement tables (uses `fs`).
  * @module
  */
-import { readFileSync } from 'node:fs';
-import { ParseError } from '../errors.js';
+import { parseTextFile } from '../internal/node.js';
+import { parseJsonText } from '../internal/json.js';
+import { matrixFromJSON, type CMatrix, type CMatrixJSON } from '../linalg/cmatrix.js';
 import { type OnOffRow, type YFactorRow, parseOnOffCsv, parseYFactorCsv } from './table.js';
-
-function readText(path: string): string {
-  try {
-    return readFileSync(path, 'utf8');
-  } catch (e) {
-    throw new ParseError(`cannot read "${path}": ${(e as Error).message}`);
-  }
-}
 
 /**
  * Reads a Y-factor CSV file (layout of `parseYFactorCsv`).
@@ -22,7 +15,7 @@ function readText(path: string): string {
  * @category Measurement
  */
 export function readYFactorCsv(path: string): YFactorRow[] {
-  return parseYFactorCsv(readText(path));
+  return parseTextFile(path, parseYFactorCsv);
 }
 
 /**
@@ -33,5 +26,18 @@ export function readYFactorCsv(path: string): YFactorRow[] {
  * @category Measurement
  */
 export function readOnOffCsv(path: string): OnOffRow[] {
-  return parseOnOffCsv(readText(path));
+  return parseTextFile(path, parseOnOffCsv);
+}
+
+/**
+ * Reads a correlation matrix (or any complex matrix, e.g. beam weights one column per beam)
+ * from a JSON file in the library's serialised matrix form `{"rows", "cols", "re", "im"}`
+ * (row-major real and imaginary parts; `matrixToJSON` writes it).
+ * @param path - File path.
+ * @returns The matrix.
+ * @throws `ParseError` naming the file (and line:column for malformed JSON) if it cannot be read or is malformed.
+ * @category Measurement
+ */
+export function readCorrelationMatrixFile(path: string): CMatrix {
+  return parseTextFile(path, (text) => matrixFromJSON(parseJsonText(text, 'the matrix file') as CMatrixJSON));
 }

@@ -3,7 +3,7 @@
  * @module
  */
 import { DimensionError, DomainError } from '../errors.js';
-import { assertColumn, assertFinite, assertFiniteCMatrix, assertInRange, assertPositive, assertSquare } from '../internal/validate.js';
+import { assertColumn, assertFinite, assertFiniteCMatrix, assertInRange, assertNonNegative, assertPositive, assertSquare } from '../internal/validate.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
 import { quadraticForm } from '../linalg/ops.js';
 import { JANSKY_W_PER_M2_HZ, K_BOLTZMANN_J_PER_K } from '../units/constants.js';
@@ -45,6 +45,12 @@ export interface OnOffInput {
   fluxDensityWPerM2Hz: number;
   /** Optional corrections (never applied silently). */
   corrections?: FluxCorrections;
+  /** One-sigma relative uncertainty of the on-source power (e.g. 0.01 for 1 %). @defaultValue 0 */
+  onPowerRelativeSigma?: number;
+  /** One-sigma relative uncertainty of the off-source power. @defaultValue 0 */
+  offPowerRelativeSigma?: number;
+  /** One-sigma relative uncertainty of the calibrator flux density. @defaultValue 0 */
+  fluxDensityRelativeSigma?: number;
 }
 
 /**
@@ -64,6 +70,10 @@ export interface OnOffResult {
   effectiveFluxDensityWPerM2Hz: number;
   /** Multiplicative factors applied to S, by name (empty when none). */
   appliedCorrections: Record<string, number>;
+  /** First-order one-sigma uncertainty of A_e/T_sys [m²/K] (uncorrelated inputs; 0 without input uncertainties). */
+  aeOverTsysSigmaM2PerK: number;
+  /** First-order one-sigma uncertainty of the SEFD [Jy] (same relative uncertainty as A_e/T_sys). */
+  sefdSigmaJy: number;
 }
 
 function effectiveFlux(s: number, c: FluxCorrections | undefined): { s: number; applied: Record<string, number> } {
@@ -97,8 +107,11 @@ function effectiveFlux(s: number, c: FluxCorrections | undefined): { s: number; 
  * (half the flux), the receiving-array form used with IEEE Std 149-2021
  * practice and in Warnick et al., IEEE Trans. Antennas Propag. 58(6), 2010
  * (from memory); SEFD = 2 k_B T_sys/A_e. Conventions: docs/conventions.md
- * (sensitivity row).
- * @param input - Powers, flux density and optional corrections.
+ * (sensitivity row). Uncertainty to first order for uncorrelated inputs (JCGM 100:2008, GUM
+ * eq. 10): with r = P_on/P_off − 1, (σ/(A_e/T_sys))² = ((r + 1)/r)²(σ_on² + σ_off²) + σ_S²
+ * (relative σ's); the SEFD has the same relative uncertainty. A weak source (r ≪ 1) magnifies
+ * the power errors by (r + 1)/r.
+ * @param input - Powers, flux density, optional corrections and uncertainties.
  * @returns A_e/T_sys [m²/K], SEFD [W m⁻² Hz⁻¹ and Jy], and the corrections used.
  * @throws {@link DomainError} for non-positive powers, P_on ≤ P_off, or invalid corrections.
  * @category Measurement
@@ -110,9 +123,14 @@ export function onOffSensitivity(input: OnOffInput): OnOffResult {
     throw new DomainError(`invalid measurement: on-source power ${input.onPower} does not exceed off-source power ${input.offPower}; check pointing and the on/off order.`);
   }
   const { s, applied } = effectiveFlux(input.fluxDensityWPerM2Hz, input.corrections);
+  const sOn = input.onPowerRelativeSigma ?? 0, sOff = input.offPowerRelativeSigma ?? 0, sS = input.fluxDensityRelativeSigma ?? 0;
+  assertNonNegative('onPowerRelativeSigma', sOn);
+  assertNonNegative('offPowerRelativeSigma', sOff);
+  assertNonNegative('fluxDensityRelativeSigma', sS);
   const ratio = (input.onPower - input.offPower) / input.offPower;
   const aeOverT = (2 * K_BOLTZMANN_J_PER_K * ratio) / s;
   const sefd = (2 * K_BOLTZMANN_J_PER_K) / aeOverT;
+  const rel = Math.sqrt(((ratio + 1) / ratio) ** 2 * (sOn * sOn + sOff * sOff) + sS * sS);
   return displayable<OnOffResult>({
     aeOverTsysM2PerK: aeOverT,
     sefdWPerM2Hz: sefd,
@@ -120,6 +138,8 @@ export function onOffSensitivity(input: OnOffInput): OnOffResult {
     sourceToSystemRatio: ratio,
     effectiveFluxDensityWPerM2Hz: s,
     appliedCorrections: applied,
+    aeOverTsysSigmaM2PerK: rel * aeOverT,
+    sefdSigmaJy: (rel * sefd) / JANSKY_W_PER_M2_HZ,
   }, 'OnOffResult');
 }
 

@@ -17,6 +17,7 @@
  * 1981, ch. on connection-scattering matrices (from memory).
  * @module
  */
+import { hzText } from '../internal/text.js';
 import { DimensionError, DomainError, SingularMatrixError } from '../errors.js';
 import { type CMatrix, type ComplexLike, complexParts } from '../linalg/cmatrix.js';
 import { adjoint, multiply, pick } from '../linalg/ops.js';
@@ -120,7 +121,7 @@ function reduce(
       }
     }
     if (solveSmallInPlace(m, e, w, 0, x, 0) >= 0) {
-      throw new SingularMatrixError(`connecting ports: I − S_ii Γ is singular at frequency index ${k} (${net.frequencyHz[k]} Hz); the connection has no unique solution there (e.g. a lossless resonance or two ideal opens joined); move the frequency or add loss.`, k);
+      throw new SingularMatrixError(`connecting ports: I − S_ii Γ is singular at frequency index ${k} (${hzText(net.frequencyHz[k])}); the connection has no unique solution there (e.g. a lossless resonance or two ideal opens joined); move the frequency or add loss.`, k);
     }
     const ok = 2 * k * e * e;
     for (let a = 0; a < e; a++) {

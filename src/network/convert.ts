@@ -10,6 +10,7 @@
  * transposed systems so that each frequency costs one LU solve of order N.
  * @module
  */
+import { hzText } from '../internal/text.js';
 import { DimensionError, DomainError, SingularMatrixError } from '../errors.js';
 import type { ComplexLike, CMatrix } from '../linalg/cmatrix.js';
 import { adjoint, multiply } from '../linalg/ops.js';
@@ -21,7 +22,7 @@ import {
 } from './multiport.js';
 
 function singular(what: string, idx: number, net: { frequencyHz: Float64Array }, remedy: string): SingularMatrixError {
-  return new SingularMatrixError(`${what} is singular at frequency index ${idx} (${net.frequencyHz[idx]} Hz); ${remedy}.`, idx);
+  return new SingularMatrixError(`${what} is singular at frequency index ${idx} (${hzText(net.frequencyHz[idx])}); ${remedy}.`, idx);
 }
 
 /** Scattering stack of `net` with respect to its own references and wave definition. @internal */
@@ -325,7 +326,7 @@ export function renormalizeStack(
   }
   const bad = batchedSolveInPlace(n, n, nf, a, b);
   if (bad >= 0) {
-    throw new SingularMatrixError(`renormalising: P + Sᵀ Q is singular at frequency index ${bad} (${freqForErrors[bad]} Hz); the network has no scattering matrix with the new reference impedances.`, bad);
+    throw new SingularMatrixError(`renormalising: P + Sᵀ Q is singular at frequency index ${bad} (${hzText(freqForErrors[bad])}); the network has no scattering matrix with the new reference impedances.`, bad);
   }
   batchedTransposeInPlace(n, nf, b);
   let outNoise: Float64Array | undefined;

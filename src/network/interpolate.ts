@@ -2,6 +2,7 @@
  * Frequency interpolation of a multiport.
  * @module
  */
+import { hzText } from '../internal/text.js';
 import { DomainError } from '../errors.js';
 import { describeValue } from '../internal/validate.js';
 import { type Multiport, assertMultiport, checkFrequencies, withFields } from './multiport.js';
@@ -40,7 +41,7 @@ export function interpolateMultiport(net: Multiport, frequencyHz: ArrayLike<numb
   const lo = f[0], hi = f[f.length - 1];
   for (let k = 0; k < fNew.length; k++) {
     if (fNew[k] < lo || fNew[k] > hi) {
-      throw new DomainError(`invalid argument "frequencyHz": entry ${k} (${fNew[k]} Hz) lies outside the network's range [${lo}, ${hi}] Hz; interpolation does not extrapolate.`);
+      throw new DomainError(`invalid argument "frequencyHz": entry ${k} (${hzText(fNew[k])}) lies outside the network's range [${hzText(lo)}, ${hzText(hi)}]; interpolation does not extrapolate.`);
     }
   }
   const nn = net.ports * net.ports;

@@ -4,9 +4,9 @@
  * from the Node subpath.
  * @module
  */
-import { readFileSync, writeFileSync } from 'node:fs';
+import { writeFileSync } from 'node:fs';
 import { basename } from 'node:path';
-import { ParseError } from '../errors.js';
+import { parseTextFile } from '../internal/node.js';
 import type { Multiport } from './multiport.js';
 import { type TouchstoneData, type TouchstoneFormatOptions, formatTouchstone, parseTouchstone } from './touchstone.js';
 
@@ -22,14 +22,8 @@ import { type TouchstoneData, type TouchstoneFormatOptions, formatTouchstone, pa
  * @category Network
  */
 export function readTouchstoneFile(path: string): TouchstoneData {
-  let text: string;
-  try {
-    text = readFileSync(path, 'latin1');
-  } catch (e) {
-    throw new ParseError(`cannot read "${path}": ${(e as Error).message}`);
-  }
   const m = /\.[sS](\d+)[pP]$/.exec(basename(path));
-  return parseTouchstone(text, m ? { ports: Number(m[1]) } : {});
+  return parseTextFile(path, (text) => parseTouchstone(text, m ? { ports: Number(m[1]) } : {}), 'latin1');
 }
 
 /**

@@ -13,6 +13,7 @@
  * Y_s sees T = T_min + T0·R_n·|Y_s − Y_opt|²/Re Y_s.
  * @module
  */
+import { hzText } from '../internal/text.js';
 import { Complex } from 'complex.js';
 import { DimensionError, DomainError, SingularMatrixError } from '../errors.js';
 import { type CMatrix, type ComplexLike, complexParts, identity, matrixView } from '../linalg/cmatrix.js';
@@ -46,19 +47,59 @@ export interface NoiseParametersInput {
   readonly minimumNoiseTemperatureK: number;
   /** Equivalent noise resistance R_n [Ω], ≥ 0. */
   readonly noiseResistanceOhm: number;
-  /** Optimum source admittance Y_opt [S], real part ≥ 0. */
+  /** Optimum source admittance Y_opt [S], real part > 0 (realisability: {@link noiseParameterProblem}). */
   readonly optimumSourceAdmittanceS: ComplexLike;
 }
 
-function readParams(name: string, p: NoiseParametersInput): { tMin: number; rn: number; gOpt: number; bOpt: number } {
+/**
+ * Noise parameters as numbers, validated (see {@link parseNoiseParameters}).
+ * @internal
+ */
+export interface ParsedNoiseParameters { tMin: number; rn: number; gOpt: number; bOpt: number }
+
+/**
+ * What makes a set of noise parameters unrealisable, or undefined when they are realisable: the
+ * one rule of the library, used by the network and reception modules and the design schema.
+ * A physical two-port has T_min ≥ 0, R_n ≥ 0, Re Y_opt > 0 and T_min ≤ 4·T0·R_n·Re Y_opt (the
+ * noise correlation matrix is positive semidefinite; M. W. Pospieszalski, IEEE Trans. MTT 37(9),
+ * 1989, from memory), the last with a relative tolerance of 1e-12 for rounding.
+ * @param tMin - T_min [K].
+ * @param rn - R_n [Ω].
+ * @param gOpt - Re Y_opt [S].
+ * @returns The offending field and what it should be, or undefined.
+ * @internal
+ */
+export function noiseParameterProblem(tMin: number, rn: number, gOpt: number): { field: 'minimumNoiseTemperatureK' | 'noiseResistanceOhm' | 'optimumSourceAdmittanceS'; expected: string } | undefined {
+  if (!(Number.isFinite(tMin) && tMin >= 0)) return { field: 'minimumNoiseTemperatureK', expected: 'a temperature ≥ 0 [K]' };
+  if (!(Number.isFinite(rn) && rn >= 0)) return { field: 'noiseResistanceOhm', expected: 'a resistance ≥ 0 [Ω]' };
+  if (!(Number.isFinite(gOpt) && gOpt > 0)) return { field: 'optimumSourceAdmittanceS', expected: 'a real part > 0 [S] (a passive optimum source)' };
+  const bound = 4 * T0_K * rn * gOpt;
+  if (tMin > bound * (1 + 1e-12)) {
+    return { field: 'minimumNoiseTemperatureK', expected: `a physical amplifier, T_min ≤ 4·T0·R_n·Re(Y_opt) = ${bound.toPrecision(4)} K (else the noise correlation matrix is indefinite; check the units of R_n [Ω] and Y_opt [S])` };
+  }
+  return undefined;
+}
+
+/**
+ * Reads and validates noise parameters with {@link noiseParameterProblem}.
+ * @param name - Argument name for messages.
+ * @param p - The parameters.
+ * @returns T_min [K], R_n [Ω], G_opt and B_opt [S].
+ * @throws {@link DomainError} naming the field for unrealisable or malformed parameters.
+ * @internal
+ */
+export function parseNoiseParameters(name: string, p: NoiseParametersInput): ParsedNoiseParameters {
   if (p === null || typeof p !== 'object') {
     throw new DomainError(`invalid argument "${name}": expected {minimumNoiseTemperatureK, noiseResistanceOhm, optimumSourceAdmittanceS}, received ${describeValue(p)}.`);
   }
-  assertNonNegative(`${name}.minimumNoiseTemperatureK`, p.minimumNoiseTemperatureK, 'K');
-  assertNonNegative(`${name}.noiseResistanceOhm`, p.noiseResistanceOhm, 'Ω');
+  const tMin = p.minimumNoiseTemperatureK, rn = p.noiseResistanceOhm;
   const [gOpt, bOpt] = complexParts(`${name}.optimumSourceAdmittanceS`, p.optimumSourceAdmittanceS);
-  if (!(gOpt >= 0)) throw new DomainError(`invalid argument "${name}.optimumSourceAdmittanceS": expected a real part ≥ 0 [S], received ${gOpt}.`);
-  return { tMin: p.minimumNoiseTemperatureK, rn: p.noiseResistanceOhm, gOpt, bOpt };
+  const bad = noiseParameterProblem(typeof tMin === 'number' ? tMin : Number.NaN, typeof rn === 'number' ? rn : Number.NaN, gOpt);
+  if (bad) {
+    const given = bad.field === 'optimumSourceAdmittanceS' ? `${gOpt} + ${bOpt}j` : describeValue(p[bad.field]);
+    throw new DomainError(`invalid argument "${name}.${bad.field}": expected ${bad.expected}, received ${given}.`);
+  }
+  return { tMin, rn, gOpt, bOpt };
 }
 
 /**
@@ -76,7 +117,7 @@ function readParams(name: string, p: NoiseParametersInput): { tMin: number; rn: 
  * @category Network
  */
 export function noiseTemperatureK(params: NoiseParametersInput, sourceAdmittanceS: ComplexLike): number {
-  const { tMin, rn, gOpt, bOpt } = readParams('params', params);
+  const { tMin, rn, gOpt, bOpt } = parseNoiseParameters('params', params);
   const [gs, bs] = complexParts('sourceAdmittanceS', sourceAdmittanceS);
   if (!(gs > 0)) throw new DomainError(`invalid argument "sourceAdmittanceS": expected a real part > 0 [S], received ${gs}.`);
   return tMin + (T0_K * rn * ((gs - gOpt) ** 2 + (bs - bOpt) ** 2)) / gs;
@@ -139,7 +180,7 @@ export function noiseParametersFromFigure(
  * @category Network
  */
 export function chainNoiseCorrelation(params: NoiseParametersInput, bandwidthHz: number): CMatrix {
-  const { tMin, rn, gOpt, bOpt } = readParams('params', params);
+  const { tMin, rn, gOpt, bOpt } = parseNoiseParameters('params', params);
   assertPositive('bandwidthHz', bandwidthHz, 'Hz');
   const k4 = 4 * K_BOLTZMANN_J_PER_K * bandwidthHz;
   const cross = (sign: number): [number, number] => [k4 * (tMin / 2 - T0_K * rn * gOpt), k4 * (-T0_K * rn * sign * bOpt)];
@@ -280,7 +321,7 @@ export function cascadeNoiseTemperatureK(stages: ReadonlyArray<CascadeStage>): n
  * E[v vᴴ] = 2 k_B T B (Z + Zᴴ).
  *
  * @remarks
- * RMS phasors (DESIGN conventions). Source: R. Q. Twiss, "Nyquist's and Thevenin's theorems
+ * RMS phasors (docs/conventions.md). Source: R. Q. Twiss, "Nyquist's and Thevenin's theorems
  * generalized for nonreciprocal linear networks", J. Appl. Phys. 26(5), 1955 (from memory).
  * @param impedanceOhm - Z [Ω], N×N.
  * @param temperatureK - Physical temperature T [K], ≥ 0.
@@ -386,7 +427,7 @@ export function impedanceNoiseOf(net: Multiport): CMatrix[] {
   return waveFromVoltageMaps(net).map((m, k) => {
     let mi: CMatrix;
     try { mi = inverse(m); } catch (e) {
-      if (e instanceof SingularMatrixError) throw new SingularMatrixError(`the network has no impedance matrix at frequency index ${k} (${net.frequencyHz[k]} Hz), so no impedance-form noise.`, k);
+      if (e instanceof SingularMatrixError) throw new SingularMatrixError(`the network has no impedance matrix at frequency index ${k} (${hzText(net.frequencyHz[k])}), so no impedance-form noise.`, k);
       throw e;
     }
     return multiply(multiply(mi, stackMatrix(noise, n, k)), adjoint(mi));

@@ -15,7 +15,7 @@ import { inverse, solve } from '../linalg/lu.js';
 import { choleskyFactor, choleskySolve } from '../linalg/cholesky.js';
 import { assertColumn, assertFiniteCMatrix, assertSquare } from '../internal/validate.js';
 import { gemmKernel } from '../internal/gemm.js';
-import { scatteringStack } from './convert.js';
+import { convertMultiport, scatteringStack } from './convert.js';
 import { type Multiport, assertMultiport } from './multiport.js';
 import type { PortLoad } from './connect.js';
 import { checkPortList } from './ports.js';
@@ -325,56 +325,92 @@ export function mismatchFactor(sourceOhm: ComplexLike, loadOhm: ComplexLike): nu
 }
 
 /**
- * Active reflection coefficient of every port for one or many fixed excitations: Γₙ = (S a)ₙ / aₙ.
+ * How the ports of an array are driven, for {@link activeReflection}.
+ * - `incidentWaves`: incident waves a (N×K, one excitation per column) in the network's own wave
+ *   definition and references [√W].
+ * - `portCurrents`: port currents I (N×K) [A], currents into the ports (multiport convention,
+ *   docs/conventions.md); the voltages are V = Z I with the network's impedance matrix, and the
+ *   waves follow from V and I by the network's wave definition (Kurokawa power waves or
+ *   pseudo-waves). A scanned transmit excitation is Iₙ = exp(−j k r̂₀·rₙ).
+ * @category Network
+ */
+export type PortExcitation =
+  | { readonly kind: 'incidentWaves'; readonly waves: CMatrix }
+  | { readonly kind: 'portCurrents'; readonly currents: CMatrix };
+
+/**
+ * Active reflection coefficient of every port for one or many fixed excitations: Γₙ = bₙ/aₙ,
+ * the reflection a port sees while all ports are driven (scan reflection of an array).
  *
  * @remarks
- * S is the network's scattering matrix with its own references and wave definition; each
- * column of `incidentWaves` is one vector of incident waves a (the same at every frequency).
- * The reflection a port sees while all ports are driven (scan reflection of an array).
- * The conversion to S is done once per call and the excitations are applied with one matrix
- * product S·A per frequency, so pass every scan excitation in one call (K columns) rather than
- * calling once per beam. Source: D. M. Pozar, "The active element pattern", IEEE Trans. AP
- * 42(8), 1994 (from memory).
+ * The one active-reflection function of the library. Driven by incident waves a, b = S a with
+ * the network's scattering matrix (its own references and wave definition). Driven by port
+ * currents I, V = Z I and a, b follow from V and I: power waves a = (V + Z_r I)/(2√Re Z_r),
+ * b = (V − Z_r* I)/(2√Re Z_r) (K. Kurokawa, IEEE Trans. MTT 13(2), 1965), so that
+ * Γ = (Z_a − Z_r*)/(Z_a + Z_r) with the active impedance Z_a = Vₙ/Iₙ; pseudo-waves
+ * a, b = (√Re Z_r/(2|Z_r|))(V ± Z_r I) (R. B. Marks, D. F. Williams, J. Res. NIST 97(5),
+ * 1992). The conversion of the network is done once per call and the excitations are applied
+ * with one matrix product per frequency, so pass every scan excitation in one call (K columns).
+ * Source of the quantity: D. M. Pozar, "The active element pattern", IEEE Trans. AP 42(8), 1994
+ * (from memory).
  * @param net - The network.
- * @param incidentWaves - Incident waves, N×K [√W] (one excitation per column), every entry ≠ 0.
+ * @param excitation - A {@link PortExcitation}; a bare N×K matrix means incident waves (the
+ *   form of earlier versions).
  * @returns Γ, (F·K)×N CMatrix, dimensionless: row f·K + k holds frequency index f, excitation k
  *   (for one excitation, row f is frequency f).
- * @throws {@link DimensionError} on a wrong number of rows; {@link DomainError} if some aₙ = 0.
+ * @throws {@link DimensionError} on a wrong number of rows; {@link DomainError} if some port is
+ *   not driven (aₙ = 0, or Iₙ = 0 for currents).
  * @example
  * ```ts
  * // two scan excitations of a 2-port at one frequency in one call: rows = frequencies × excitations
  * const net = createMultiport('scattering', [1e9], [fromRows([[0.1, 0.2], [0.2, 0.1]])]);
- * activeReflection(net, fromRows([[1, 1], [1, -1]])).rows; // 2
+ * activeReflection(net, { kind: 'incidentWaves', waves: fromRows([[1, 1], [1, -1]]) }).rows; // 2
  * ```
  * @category Network
  */
-export function activeReflection(net: Multiport, incidentWaves: CMatrix): CMatrix {
+export function activeReflection(net: Multiport, excitation: PortExcitation | CMatrix): CMatrix {
   assertMultiport('net', net);
-  const n = net.ports;
-  assertFiniteCMatrix('incidentWaves', incidentWaves);
-  if (incidentWaves.rows !== n || incidentWaves.cols < 1) {
-    throw new DimensionError(`invalid argument "incidentWaves": expected ${n}×K (one incident wave per port, one column per excitation), received ${incidentWaves.rows}×${incidentWaves.cols}.`);
+  const byCurrents = 'kind' in excitation && excitation.kind === 'portCurrents';
+  const name = byCurrents ? 'excitation.currents' : 'kind' in excitation ? 'excitation.waves' : 'incidentWaves';
+  const x = 'kind' in excitation ? (excitation.kind === 'portCurrents' ? excitation.currents : excitation.waves) : excitation;
+  if ('kind' in excitation && excitation.kind !== 'portCurrents' && excitation.kind !== 'incidentWaves') {
+    throw new DomainError(`invalid argument "excitation.kind": expected 'incidentWaves' or 'portCurrents', received ${String((excitation as { kind: unknown }).kind)}.`);
   }
-  const kx = incidentWaves.cols;
-  const a = incidentWaves.data;
+  const n = net.ports;
+  assertFiniteCMatrix(name, x);
+  if (x.rows !== n || x.cols < 1) {
+    throw new DimensionError(`invalid argument "${name}": expected ${n}×K (one value per port, one column per excitation), received ${x.rows}×${x.cols}.`);
+  }
+  const kx = x.cols;
   for (let i = 0; i < n * kx; i++) {
-    if (a[2 * i] === 0 && a[2 * i + 1] === 0) {
-      throw new DomainError(`invalid argument "incidentWaves": entry (${Math.floor(i / kx)}, ${i % kx}) is 0, so the active reflection of port ${Math.floor(i / kx)} is undefined; excite every port.`);
+    if (x.data[2 * i] === 0 && x.data[2 * i + 1] === 0) {
+      throw new DomainError(`invalid argument "${name}": entry (${Math.floor(i / kx)}, ${i % kx}) is 0, so the active reflection of port ${Math.floor(i / kx)} is undefined; drive every port.`);
     }
   }
-  const s = scatteringStack(net);
+  const m = byCurrents ? convertMultiport(net, 'impedance').data : scatteringStack(net);
   const nf = net.frequencyHz.length;
   const out = new Float64Array(2 * nf * kx * n);
-  const sa = new Float64Array(2 * n * kx);
+  const mx = new Float64Array(2 * n * kx);
+  const ref = net.referenceOhm, power = net.waves === 'power';
   for (let f = 0; f < nf; f++) {
-    gemmKernel(n, kx, n, s, f * n * n, n, a, 0, kx, sa, 0, kx, false);
+    gemmKernel(n, kx, n, m, f * n * n, n, x.data, 0, kx, mx, 0, kx, false);
     for (let i = 0; i < n; i++) {
+      const zr = ref[2 * i], zi = ref[2 * i + 1];
       for (let k = 0; k < kx; k++) {
-        const q = 2 * (i * kx + k), re = sa[q], im = sa[q + 1];
-        const ar = a[q], ai = a[q + 1], m = ar * ar + ai * ai;
+        const q = 2 * (i * kx + k);
+        let ar = x.data[q], ai = x.data[q + 1], br = mx[q], bi = mx[q + 1];
+        if (byCurrents) {
+          // mx holds V = Z I; b/a with a ∝ V + Z_r I and b ∝ V − Z_r* I (power) or V − Z_r I (pseudo); the scale cancels.
+          const ir = ar, ii = ai, vr = br, vi = bi;
+          ar = vr + zr * ir - zi * ii; ai = vi + zr * ii + zi * ir;
+          const sgn = power ? -1 : 1;
+          br = vr - zr * ir + sgn * zi * ii; bi = vi - zr * ii - sgn * zi * ir;
+          if (ar === 0 && ai === 0) throw new DomainError(`port ${i}: no incident wave for excitation ${k} at frequency index ${f} (V = −Z_r I), so the active reflection is undefined.`);
+        }
+        const d = ar * ar + ai * ai;
         const o = 2 * ((f * kx + k) * n + i);
-        out[o] = (re * ar + im * ai) / m;
-        out[o + 1] = (im * ar - re * ai) / m;
+        out[o] = (br * ar + bi * ai) / d;
+        out[o + 1] = (bi * ar - br * ai) / d;
       }
     }
   }

@@ -9,6 +9,7 @@
  * (IBIS Touchstone Issue Resolution Document 4.1, 2022).
  * @module
  */
+import { hzText } from '../internal/text.js';
 import { DomainError, ParseError } from '../errors.js';
 import { describeValue } from '../internal/validate.js';
 import { convertMultiport } from './convert.js';
@@ -260,7 +261,7 @@ function readNoise(sc: Scanner, opt: OptionLine, firstFreq: number | null, expec
     }
     const fr = pending;
     pending = null;
-    if (f.length > 0 && !(fr > f[f.length - 1])) throw new ParseError(`noise data: frequencies must increase strictly; ${fr} Hz follows ${f[f.length - 1]} Hz`, sc.line);
+    if (f.length > 0 && !(fr > f[f.length - 1])) throw new ParseError(`noise data: frequencies must increase strictly; ${hzText(fr)} follows ${hzText(f[f.length - 1])}`, sc.line);
     sc.skipSpace(comments);
     const a = sc.number('the minimum noise figure [dB]');
     sc.skipSpace(comments);
@@ -280,6 +281,19 @@ function readNoise(sc: Scanner, opt: OptionLine, firstFreq: number | null, expec
 }
 
 /** Reads network data blocks. v1: until end (or noise start for 2-ports); v2: exactly `count` blocks. */
+/**
+ * When every data line holds 1 + 2m² numbers — one frequency and m² complex values, the
+ * one-line-per-frequency layout of m-port data — but the file is read as n-port, say so:
+ * the usual cause is a file name whose .sNp extension disagrees with its data.
+ */
+function portCountHint(block: string, n: number): string {
+  const counts = block.split(/\r\n|\n|\r/).map((l) => l.replace(/!.*$/, '').trim()).filter((l) => l !== '' && !l.startsWith('#') && !l.startsWith('[')).map((l) => l.split(/[\s,]+/).length);
+  if (counts.length < 2 || counts.some((c) => c !== counts[0])) return '';
+  const m = Math.round(Math.sqrt((counts[0] - 1) / 2));
+  if (m === n || 1 + 2 * m * m !== counts[0]) return '';
+  return `; every data line holds ${counts[0] - 1} numbers after its frequency, as ${m}-port data does, but the file is read as ${n}-port (from its .s${n}p name or the ports option); name ${m}-port data .s${m}p`;
+}
+
 function readNetworkData(sc: Scanner, layout: Layout, opt: OptionLine, count: number | null, allowNoise: boolean, comments: string[]): DataResult {
   const n = layout.n;
   const nn = n * n;
@@ -306,7 +320,7 @@ function readNetworkData(sc: Scanner, layout: Layout, opt: OptionLine, count: nu
       if (allowNoise && nf > 0) {
         return { freq, data, nf, noise: readNoise(sc, opt, fr, null, comments) };
       }
-      throw new ParseError(`frequencies must increase strictly; ${fr} Hz follows ${last} Hz`, sc.line);
+      throw new ParseError(`frequencies must increase strictly; ${hzText(fr)} follows ${hzText(last)}`, sc.line);
     }
     if (fr < 0) throw new ParseError(`expected a frequency ≥ 0, found ${fr}`, sc.line);
     last = fr;
@@ -316,10 +330,10 @@ function readNetworkData(sc: Scanner, layout: Layout, opt: OptionLine, count: nu
     const base = 2 * nn * nf;
     for (let v = 0; v < per; v++) {
       sc.skipSpace(comments);
-      if (sc.pos >= sc.text.length) throw new ParseError(`unexpected end of file inside the data of frequency ${fr} Hz: expected ${2 * per} numbers after the frequency, found ${2 * v}`, sc.eofLine());
+      if (sc.pos >= sc.text.length) throw new ParseError(`unexpected end of file inside the data of frequency ${hzText(fr)}: expected ${2 * per} numbers after the frequency, found ${2 * v}${portCountHint(sc.text.slice(blockStart), n)}`, sc.eofLine());
       const a = sc.number('a network-data value');
       sc.skipSpace(comments);
-      if (sc.pos >= sc.text.length) throw new ParseError(`unexpected end of file inside the data of frequency ${fr} Hz`, sc.eofLine());
+      if (sc.pos >= sc.text.length) throw new ParseError(`unexpected end of file inside the data of frequency ${hzText(fr)}`, sc.eofLine());
       const b = sc.number('a network-data value');
       if (ri) { pair[0] = a; pair[1] = b; } else pairToComplex(a, b, opt.format, pair, 0);
       const q = layout.order[v];
@@ -368,7 +382,7 @@ function finishData(d: DataResult, n: number, parameter: TouchstoneParameter, re
     }
     const [a, b, c, e, f, g, h, i] = data.subarray(o, o + 8);
     const m = h * h + i * i;
-    if (!(m > 0)) throw new ParseError(`${parameter}22 = 0 at frequency ${d.freq[k]} Hz: the network has no ${parameter === 'H' ? 'impedance' : 'admittance'} matrix`, line);
+    if (!(m > 0)) throw new ParseError(`${parameter}22 = 0 at frequency ${hzText(d.freq[k])}: the network has no ${parameter === 'H' ? 'impedance' : 'admittance'} matrix`, line);
     const dr = a * h - b * i - (c * f - e * g), di = a * i + b * h - (c * g + e * f);
     const div = (xr: number, xi: number): [number, number] => [(xr * h + xi * i) / m, (xi * h - xr * i) / m];
     const [p11r, p11i] = div(dr, di);
@@ -385,7 +399,7 @@ function build(d: DataResult, n: number, parameter: TouchstoneParameter, refs: F
   for (let q = 0; q < data.length; q++) {
     if (!Number.isFinite(data[q])) {
       const k = Math.floor(q / (2 * n * n));
-      throw new ParseError(`a value at frequency ${d.freq[k]} Hz is not finite after conversion (e.g. a dB magnitude too large)`, line);
+      throw new ParseError(`a value at frequency ${hzText(d.freq[k])} is not finite after conversion (e.g. a dB magnitude too large)`, line);
     }
   }
   const referenceOhm = new Float64Array(2 * n);

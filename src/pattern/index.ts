@@ -10,8 +10,9 @@ export type { LinearArrayFigures } from './linearArray.js';
 export { linearArrayField, linearArrayFigures } from './linearArray.js';
 export type { DirectivityResult, DirectivityOptions } from './directivity.js';
 export { directivity, isotropicDirectivity, scanLossDb } from './directivity.js';
-export type { GratingLobe } from './gratingLobes.js';
-export { gratingLobes, lineGratingLobes } from './gratingLobes.js';
+// Grating lobes live in geometry with the lattice; re-exported here for existing imports.
+export type { GratingLobe } from '../geometry/gratingLobes.js';
+export { gratingLobes, lineGratingLobes } from '../geometry/gratingLobes.js';
 export type { UvPatternFigures } from './uvFigures.js';
 export { uvPatternFigures } from './uvFigures.js';
 export type { FftGridArrayFactor } from './gridPaths.js';

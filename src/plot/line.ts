@@ -39,6 +39,12 @@ export interface LinePlotOptions extends PlotFrameOptions {
   yRange?: [number, number];
   /** Explicit x tick positions (in x units); default: d3-scale ticks. */
   xTicks?: number[];
+  /**
+   * Start the automatic y range at zero (for ratio-scale quantities such as A_e/T_sys, where a
+   * truncated axis makes a small relative change look large). Ignored with `yRange`.
+   * @defaultValue false
+   */
+  yFromZero?: boolean;
 }
 
 function dataRange(traces: readonly LineTrace[], key: 'x' | 'y'): [number, number] {
@@ -53,6 +59,10 @@ function dataRange(traces: readonly LineTrace[], key: 'x' | 'y'): [number, numbe
   if (!Number.isFinite(lo)) throw new DomainError(`invalid argument "traces": no finite ${key} values to plot.`);
   if (lo === hi) { lo -= 1; hi += 1; }
   return [lo, hi];
+}
+
+function withZero(r: [number, number], on: boolean): [number, number] {
+  return on ? [Math.min(0, r[0]), Math.max(0, r[1])] : r;
 }
 
 function checkRange(name: string, r: [number, number] | undefined): void {
@@ -93,7 +103,7 @@ export function linePlotSvg(options: LinePlotOptions): string {
   checkRange('xRange', options.xRange);
   checkRange('yRange', options.yRange);
   const f = resolveFrame(options, { width: 640, height: 400 });
-  const a = makeArea(f, options.xRange ?? dataRange(traces, 'x'), options.yRange ?? dataRange(traces, 'y'), options.xRange === undefined, options.yRange === undefined);
+  const a = makeArea(f, options.xRange ?? dataRange(traces, 'x'), options.yRange ?? withZero(dataRange(traces, 'y'), options.yFromZero === true), options.xRange === undefined, options.yRange === undefined);
   const clip = clipId('plot-area', [a.left, a.top, a.right - a.left, a.bottom - a.top]);
   const body: string[] = [`<clipPath id="${clip}"><rect x="${fmt(a.left)}" y="${fmt(a.top)}" width="${fmt(a.right - a.left)}" height="${fmt(a.bottom - a.top)}"/></clipPath>`];
   // Points in x order (an unsorted angle list would draw zig-zags), in pixels.

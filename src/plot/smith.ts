@@ -75,17 +75,26 @@ export function smithChartSvg(options: SmithChartOptions): string {
     }
   }
   parts.push('</g><g class="tick-labels" fill="#555" font-size="' + fmt(f.fontSize * 0.8) + '">');
-  for (const r of values) parts.push(`<text x="${fmt(X((r - 1) / (r + 1)) + 2)}" y="${fmt(cy - 3)}">${r}</text>`);
+  // Scale labels are obstacles for the end labels placed below.
+  const scaleBoxes: { x: number; y: number; w: number; h: number }[] = [];
+  for (const r of values) {
+    const lx = X((r - 1) / (r + 1)) + 2;
+    scaleBoxes.push({ x: lx, y: cy - 3 - f.fontSize * 0.8, w: String(r).length * f.fontSize * 0.5 + 2, h: f.fontSize * 0.8 });
+    parts.push(`<text x="${fmt(lx)}" y="${fmt(cy - 3)}">${r}</text>`);
+  }
   for (const x of values) {
     // The reactance arc x meets the unit circle at Γ = (x² − 1 + 2jx)/(x² + 1).
     const gr = (x * x - 1) / (x * x + 1), gi = (2 * x) / (x * x + 1);
-    parts.push(`<text x="${fmt(X(gr * 1.07))}" y="${fmt(Y(gi * 1.07) + 3)}" text-anchor="middle">+j${x}</text>`);
-    parts.push(`<text x="${fmt(X(gr * 1.07))}" y="${fmt(Y(-gi * 1.07) + 3)}" text-anchor="middle">−j${x}</text>`);
+    for (const [sign, gy] of [['+', gi], ['−', -gi]] as const) {
+      const text = `${sign}j${x}`, w = text.length * f.fontSize * 0.5 + 2;
+      scaleBoxes.push({ x: X(gr * 1.07) - w / 2, y: Y(gy * 1.07) + 3 - f.fontSize * 0.8, w, h: f.fontSize * 0.8 });
+      parts.push(`<text x="${fmt(X(gr * 1.07))}" y="${fmt(Y(gy * 1.07) + 3)}" text-anchor="middle">${text}</text>`);
+    }
   }
   parts.push('</g>');
   // Pixel samples along every locus and its end labels: the legend avoids them.
   const taken: number[] = [];
-  const placed: { x: number; y: number; w: number; h: number }[] = [];
+  const placed: { x: number; y: number; w: number; h: number }[] = [...scaleBoxes];
   const requests: { x: number; y: number; dx: number; dy: number; text: string; cls: string; c: string }[] = [];
   options.traces.forEach((t, i) => {
     checkSeries(`traces[${i}].gammaRe`, t.gammaRe);
@@ -143,13 +152,16 @@ export function smithChartSvg(options: SmithChartOptions): string {
     }
     dirs.sort((p, q) => Math.hypot(p[0] - r.dx, p[1] - r.dy) - Math.hypot(q[0] - r.dx, q[1] - r.dy));
     let box: { x: number; lx: number; ly: number; anchor: string } | undefined;
-    for (const [ux, uy] of dirs) {
-      const lx = r.x + ux * 9, ly = r.y + uy * 9 + f.fontSize * 0.35 + (uy > 0.3 ? f.fontSize * 0.3 : 0);
-      const anchor = ux > 0.3 ? 'start' : ux < -0.3 ? 'end' : 'middle';
-      const bx = anchor === 'start' ? lx : anchor === 'end' ? lx - w : lx - w / 2;
-      const free = !placed.some((b) => b.x < bx + w && bx < b.x + b.w && b.y < ly && ly - hh < b.y + b.h) && pointsInBox(lines, bx, ly - hh, w, hh) === 0;
-      if (!box) box = { x: bx, lx, ly, anchor };
-      if (free) { box = { x: bx, lx, ly, anchor }; break; }
+    // Nearest first; a label crowded out at 9 px moves out to 20 and 34 px (further from its end marker, still beside it).
+    search: for (const dist of [9, 20, 34]) {
+      for (const [ux, uy] of dirs) {
+        const lx = r.x + ux * dist, ly = r.y + uy * dist + f.fontSize * 0.35 + (uy > 0.3 ? f.fontSize * 0.3 : 0);
+        const anchor = ux > 0.3 ? 'start' : ux < -0.3 ? 'end' : 'middle';
+        const bx = anchor === 'start' ? lx : anchor === 'end' ? lx - w : lx - w / 2;
+        const free = !placed.some((b) => b.x < bx + w && bx < b.x + b.w && b.y < ly && ly - hh < b.y + b.h) && pointsInBox(lines, bx, ly - hh, w, hh) === 0;
+        if (!box) box = { x: bx, lx, ly, anchor };
+        if (free) { box = { x: bx, lx, ly, anchor }; break search; }
+      }
     }
     const bb = box as { x: number; lx: number; ly: number; anchor: string };
     placed.push({ x: bb.x, y: bb.ly - hh, w, h: hh });

@@ -85,13 +85,27 @@ export function clipId(prefix: string, geometry: readonly number[]): string {
   return `${prefix}-${geometry.map((x) => fmt(x).replace('-', 'm').replace('.', 'p')).join('_')}`;
 }
 
+/**
+ * Title font size: 1.2 × the base size, reduced (down to 0.8 ×) so that a long title fits the
+ * width; average glyph width of a bold sans-serif face taken as 0.6 em. @internal
+ */
+function titleFontSize(f: Frame): number {
+  const fit = (f.width - 16) / (0.6 * (f.title ?? '').length);
+  return Math.max(0.8 * f.fontSize, Math.min(1.2 * f.fontSize, fit));
+}
+
+/** Tick text with a true minus sign (U+2212), as the line plots' d3 formatter writes it. @internal */
+export function tickText(s: string): string {
+  return s.replace(/^-/, '−');
+}
+
 /** Opening tag of a plot SVG with background and font. @internal */
 export function openSvg(f: Frame, role: string): string {
   return (
     `<svg xmlns="http://www.w3.org/2000/svg" width="${f.width}" height="${f.height}" viewBox="0 0 ${f.width} ${f.height}" ` +
     `font-family="${esc(f.font)}" font-size="${fmt(f.fontSize)}" role="img" aria-label="${esc(f.title ?? role)}">` +
     `<rect x="0" y="0" width="${f.width}" height="${f.height}" fill="#ffffff"/>` +
-    (f.title ? `<text class="title" x="${fmt(f.width / 2)}" y="${fmt(f.fontSize * 1.6)}" text-anchor="middle" font-size="${fmt(f.fontSize * 1.2)}" font-weight="600">${esc(f.title)}</text>` : '')
+    (f.title ? `<text class="title" x="${fmt(f.width / 2)}" y="${fmt(f.fontSize * 1.6)}" text-anchor="middle" font-size="${fmt(titleFontSize(f))}" font-weight="600">${esc(f.title)}</text>` : '')
   );
 }
 

@@ -8,7 +8,7 @@ import { interpolateViridis } from 'd3-scale-chromatic';
 import { color as parseColor } from 'd3-color';
 import { DimensionError, DomainError } from '../errors.js';
 import { assertFinite } from '../internal/validate.js';
-import { type PlotFrameOptions, base64, checkSeries, esc, fmt, openSvg, resolveFrame } from './svg.js';
+import { type PlotFrameOptions, base64, checkSeries, esc, fmt, openSvg, resolveFrame, tickText } from './svg.js';
 
 /**
  * Options of {@link uvMapSvg}.
@@ -88,7 +88,8 @@ export function uvMapSvg(options: UvMapOptions): string {
   }
   const png = encode({ width: nu, height: nv, data: rgba, channels: 4, depth: 8 });
   const f = resolveFrame(options, { width: 560, height: 480 });
-  const top = f.title ? f.fontSize * 3 : f.fontSize * 1.5;
+  // Room for the title and, below it, the colour bar's unit label.
+  const top = f.title ? f.fontSize * 3.6 : f.fontSize * 1.8;
   const barW = f.fontSize * 1.2;
   const side = Math.min(f.width - f.fontSize * 11 - barW, f.height - top - f.fontSize * 4);
   const left = f.fontSize * 4.5;
@@ -103,8 +104,8 @@ export function uvMapSvg(options: UvMapOptions): string {
     parts.push(`<ellipse class="visible-circle" cx="${fmt(sx(0))}" cy="${fmt(sy(0))}" rx="${fmt(Math.abs(sx(1) - sx(0)))}" ry="${fmt(Math.abs(sy(1) - sy(0)))}" fill="none" stroke="#ffffff" stroke-dasharray="4 3"/>`);
   }
   const ticks = [u0, (u0 + u1) / 2, u1];
-  for (const t of ticks) parts.push(`<text class="tick-x" data-value="${t}" x="${fmt(sx(t))}" y="${fmt(bottom + f.fontSize * 1.3)}" text-anchor="middle" fill="#333">${t.toFixed(2)}</text>`);
-  for (const t of [v0, (v0 + v1) / 2, v1]) parts.push(`<text class="tick-y" data-value="${t}" x="${fmt(left - 4)}" y="${fmt(sy(t) + f.fontSize * 0.35)}" text-anchor="end" fill="#333">${t.toFixed(2)}</text>`);
+  for (const t of ticks) parts.push(`<text class="tick-x" data-value="${t}" x="${fmt(sx(t))}" y="${fmt(bottom + f.fontSize * 1.3)}" text-anchor="middle" fill="#333">${tickText(t.toFixed(2))}</text>`);
+  for (const t of [v0, (v0 + v1) / 2, v1]) parts.push(`<text class="tick-y" data-value="${t}" x="${fmt(left - 4)}" y="${fmt(sy(t) + f.fontSize * 0.35)}" text-anchor="end" fill="#333">${tickText(t.toFixed(2))}</text>`);
   parts.push(`<text class="label-x" x="${fmt(left + side / 2)}" y="${fmt(bottom + f.fontSize * 2.8)}" text-anchor="middle">u = sinθ cosφ</text>`);
   parts.push(`<text class="label-y" x="${fmt(f.fontSize * 1.2)}" y="${fmt(top + side / 2)}" text-anchor="middle" transform="rotate(-90 ${fmt(f.fontSize * 1.2)} ${fmt(top + side / 2)})">v = sinθ sinφ</text>`);
   // Colour bar: vertical gradient of discrete steps, labelled in dB.
@@ -119,7 +120,7 @@ export function uvMapSvg(options: UvMapOptions): string {
   }
   for (const lv of scaleLinear().domain([floor, ceil]).ticks(5)) {
     const y = bottom - ((lv - floor) / (ceil - floor)) * side;
-    parts.push(`<text class="colorbar-tick" data-value="${lv}" x="${fmt(bx + barW + 4)}" y="${fmt(y + f.fontSize * 0.35)}" fill="#333">${esc(String(lv))}</text>`);
+    parts.push(`<text class="colorbar-tick" data-value="${lv}" x="${fmt(bx + barW + 4)}" y="${fmt(y + f.fontSize * 0.35)}" fill="#333">${esc(tickText(String(lv)))}</text>`);
   }
   parts.push(`<text class="colorbar-label" x="${fmt(bx + barW / 2)}" y="${fmt(top - 4)}" text-anchor="middle" fill="#222">dB</text></g>`);
   parts.push('</svg>');

@@ -6,7 +6,7 @@
  */
 import { DimensionError, DomainError } from '../errors.js';
 import { complexParts, type CMatrix, matrixView } from '../linalg/cmatrix.js';
-import type { NoiseParametersInput } from '../network/noise.js';
+import { parseNoiseParameters, type NoiseParametersInput } from '../network/noise.js';
 import { assertFiniteCMatrix, assertPositive, assertSquare, describeValue } from '../internal/validate.js';
 import { K_BOLTZMANN_J_PER_K, T0_K } from '../units/constants.js';
 import { herkLowerKernel, herkLowerWeighted } from '../internal/herk.js';
@@ -14,31 +14,10 @@ import { herkLowerKernel, herkLowerWeighted } from '../internal/herk.js';
 /** @internal Parsed noise parameters. */
 export interface ParsedAmplifier { tMin: number; rn: number; yr: number; yi: number }
 
-/**
- * @internal Validates noise parameters, including physical realizability
- * T_min ≤ 4 T0 R_n Re Y_opt (the noise-wave correlation matrix must be positive
- * semidefinite).
- */
+/** @internal Noise parameters validated by the network module's one rule ({@link parseNoiseParameters}). */
 export function parseAmplifier(name: string, a: NoiseParametersInput): ParsedAmplifier {
-  if (a === null || typeof a !== 'object') {
-    throw new DomainError(`invalid argument "${name}": expected NoiseParametersInput {minimumNoiseTemperatureK, noiseResistanceOhm, optimumSourceAdmittanceS}, received ${describeValue(a)}.`);
-  }
-  const tMin = a.minimumNoiseTemperatureK, rn = a.noiseResistanceOhm;
-  if (typeof tMin !== 'number' || !Number.isFinite(tMin) || tMin < 0) {
-    throw new DomainError(`invalid argument "${name}.minimumNoiseTemperatureK": expected a temperature ≥ 0 [K], received ${describeValue(tMin)}.`);
-  }
-  if (typeof rn !== 'number' || !Number.isFinite(rn) || rn < 0) {
-    throw new DomainError(`invalid argument "${name}.noiseResistanceOhm": expected a resistance ≥ 0 [Ω], received ${describeValue(rn)}.`);
-  }
-  const [yr, yi] = complexParts(`${name}.optimumSourceAdmittanceS`, a.optimumSourceAdmittanceS);
-  if (!(yr > 0)) {
-    throw new DomainError(`invalid argument "${name}.optimumSourceAdmittanceS": expected a positive real part (a passive optimum source) [S], received ${yr} + ${yi}j.`);
-  }
-  const bound = 4 * T0_K * rn * yr;
-  if (tMin > bound * (1 + 1e-12)) {
-    throw new DomainError(`invalid argument "${name}": non-physical noise parameters, T_min = ${tMin} K exceeds 4·T0·R_n·Re Y_opt = ${bound} K (the noise correlation matrix would be indefinite); check the units of R_n [Ω] and Y_opt [S].`);
-  }
-  return { tMin, rn, yr, yi };
+  const p = parseNoiseParameters(name, a);
+  return { tMin: p.tMin, rn: p.rn, yr: p.gOpt, yi: p.bOpt };
 }
 
 /**
@@ -46,7 +25,7 @@ export function parseAmplifier(name: string, a: NoiseParametersInput): ParsedAmp
  * array's open-circuit terminals.
  *
  * @remarks
- * DESIGN, "coupled amplifiers": amplifier n has a series EMF eₙ and a shunt
+ * conventions, "coupled amplifiers": amplifier n has a series EMF eₙ and a shunt
  * current iₙ driven into its array port with E|e|² = 4k_B B T0 R_n,
  * E|i|² = 4k_B B T0 R_n |Y_opt|², E[i e*] = 4k_B B (T_min/2 − T0 R_n Y_opt);
  * amplifiers are mutually uncorrelated. Referred to the open-circuit terminals,

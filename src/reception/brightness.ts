@@ -84,7 +84,7 @@ function asSource(name: string, p: PortPatternSource | SampledPortPatterns): Por
  * brightness distributions, sharing one pass over the pattern blocks.
  *
  * @remarks
- * DESIGN, "brightness noise": R_mn = (4 k_B B / (η |I₀|²)) ∮ T(r̂) fₘ(r̂)·fₙ*(r̂) dΩ,
+ * conventions, "brightness noise": R_mn = (4 k_B B / (η |I₀|²)) ∮ T(r̂) fₘ(r̂)·fₙ*(r̂) dΩ,
  * evaluated as Σₖ wₖ Tₖ (f_θ f_θᴴ + f_φ f_φᴴ)ₖ. Each block of directions is
  * packed, with the columns scaled by √(wₖTₖ) and directions of zero weight
  * skipped, into G = [F_θ F_φ] (N × 2·block) and accumulated as the Hermitian

@@ -180,12 +180,12 @@ function asSource(p: PortPatternSource | SampledPortPatterns): PortPatternSource
  * Computes the noise budget of a receiving array at its open-circuit terminals.
  *
  * @remarks
- * One blocked pass over the quadrature gives four brightness integrals (DESIGN,
+ * One blocked pass over the quadrature gives four brightness integrals (conventions,
  * "brightness noise"): T·1_sky, T·1_ground, 1_sky and 1_ground (each direction
  * enters two of them, so the cost is that of two full integrals). Loss noise:
- * 2k_B T_phys B (Z + Zᴴ) − T_phys·R_rad,1K (DESIGN, "thermal noise"), or the
+ * 2k_B T_phys B (Z + Zᴴ) − T_phys·R_rad,1K (conventions, "thermal noise"), or the
  * per-element efficiency model, or zero. Receiver noise: the coupled-amplifier
- * model (DESIGN, "coupled amplifiers"). Reference: K. F. Warnick, M. V.
+ * model (conventions, "coupled amplifiers"). Reference: K. F. Warnick, M. V.
  * Ivashina, R. Maaskant, B. Woestenburg, "Unified definitions of efficiencies
  * and system noise temperature for receiving antenna arrays", IEEE Trans.
  * Antennas Propag. 58(6), 2010 (from memory).

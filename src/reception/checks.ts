@@ -50,7 +50,7 @@ export interface ReceivingArrayCheckInput {
  *
  * @remarks
  * For a lossless array the brightness integral at uniform T equals the Twiss
- * matrix 2k_B T B (Z + Zᴴ) (DESIGN, "thermal noise" and "brightness noise";
+ * matrix 2k_B T B (Z + Zᴴ) (conventions, "thermal noise" and "brightness noise";
  * docs/conventions.md), so the residual is the sphere rule's error for this
  * array's patterns: it cannot see a brightness discontinuity (use a refined
  * rule for that), but it grows quickly when the rule under-resolves the

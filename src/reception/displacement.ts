@@ -12,7 +12,7 @@ import type { PortPatternSource, QuadratureDirections } from './patterns.js';
 
 /**
  * Ports whose patterns are one element pattern shifted by the phase of each
- * port's position: fₙ(r̂) = g(r̂)·exp(+j k r̂·dₙ) (DESIGN "embedded pattern" and
+ * port's position: fₙ(r̂) = g(r̂)·exp(+j k r̂·dₙ) (conventions, "embedded pattern" and
  * "steering vector" conventions; docs/conventions.md).
  *
  * @remarks

@@ -33,7 +33,7 @@ import { displayable } from '../display/attach.js';
  * @category Reception
  */
 export interface ArrayPorts {
-  /** Embedded patterns (DESIGN "embedded pattern" convention). */
+  /** Embedded patterns (conventions, "embedded pattern"). */
   readonly patterns: PortPatternSource | SampledPortPatterns;
   /** Impedance matrix Z_A [Ω], N×N. */
   readonly impedanceOhm: CMatrix;

@@ -110,7 +110,7 @@ function signalPower(w: Float64Array, wOff: number, ldw: number, p: SampledPortP
  * - T_sys = wᴴR_n w / P_iso, split into sky, spillover (ground), loss and receiver parts;
  * - η_rad = wᴴR_rad,1K w / P_iso; η_sp = wᴴR_sky-region,1K w / wᴴR_rad,1K w;
  * - A_e = λ² wᴴ(f_θ f_θᴴ + f_φ f_φᴴ)w / (η |I₀|² P_iso / (4 k_B B)), which makes
- *   A_e / T_sys = 2 k_B SNR / S exactly (DESIGN, "sensitivity") and A_e = λ²G/4π;
+ *   A_e / T_sys = 2 k_B SNR / S exactly (conventions, "sensitivity") and A_e = λ²G/4π;
  * - η_ap = A_e / A_phys; η_nm = T_rec,min / T_rec.
  *
  * @param budget - The noise budget (arrayNoiseBudget).

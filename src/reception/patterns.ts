@@ -14,7 +14,7 @@ import type { ShiftedElementPattern } from './displacement.js';
  * Embedded open-circuit patterns of N ports sampled at M directions.
  *
  * @remarks
- * Convention (DESIGN, "embedded pattern"): with port n driven by the RMS
+ * Convention (conventions, "embedded pattern"): with port n driven by the RMS
  * current I₀ and every other port open, the radiated field is
  * Eₙ(r) = fₙ(r̂)·e^{−jkr}/r, time dependence e^{+jωt}, phase referred to the
  * coordinate origin. Row n of `thetaComponentV` holds fₙ·θ̂ and row n of

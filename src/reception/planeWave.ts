@@ -116,7 +116,7 @@ export function parsePolarization(name: string, pol: IncidentPolarization): Fiel
 }
 
 /**
- * Reciprocity factor −j·4π/(η k I₀) of the DESIGN reception row, returned as
+ * Reciprocity factor −j·4π/(η k I₀) of the conventions' reception row, returned as
  * the positive real 4π/(η k I₀) (the −j is applied by the caller).
  * @internal
  */
@@ -130,7 +130,7 @@ export function receptionScale(frequencyHz: number, driveCurrentA: number): numb
  * sampled direction.
  *
  * @remarks
- * Reciprocity (DESIGN, "reception"): vₙ = −j (4π/(η k I₀)) fₙ(r̂)·E_inc, with
+ * Reciprocity (conventions, "reception"): vₙ = −j (4π/(η k I₀)) fₙ(r̂)·E_inc, with
  * E_inc the incident field at the origin, r̂ the direction the wave arrives
  * from, and no conjugation in the dot product. With this sign a far-zone pair
  * of elements gives v₂ = Z₂₁ I₁ (tested). References: R. F. Harrington,

@@ -106,7 +106,7 @@ export interface DipoleArrayPortsOptions extends InducedEmfOptions {
  *
  * @remarks
  * The pattern source evaluates the element module's far field block by block
- * (nothing is stored per direction), in the DESIGN "embedded pattern"
+ * (nothing is stored per direction), in the conventions' "embedded pattern"
  * convention with every other port open. With the single-mode sinusoidal
  * current the open-port embedded pattern of each dipole is its isolated
  * pattern (an open thin dipole carries no current in this model), and Z and

@@ -14,7 +14,7 @@ import { assertFiniteCMatrix, assertSquare } from '../internal/validate.js';
  *
  * @remarks
  * With V = Z_A I + v_oc at the array ports and loads V = −Z_L I (currents into
- * the ports, DESIGN "multiport"), the load voltages are
+ * the ports, conventions "multiport"), the load voltages are
  * V_L = Q v_oc, Q = Z_L (Z_A + Z_L)⁻¹. Amplifier noise sources referred as in
  * receiverNoiseCorrelation ride on v_oc and transfer the same way.
  * @param arrayImpedanceOhm - Z_A [Ω], N×N.

@@ -33,7 +33,7 @@ export interface PointSourceOptions {
  * in one sampled direction.
  *
  * @remarks
- * Unpolarized (DESIGN, "point source"):
+ * Unpolarized (conventions, "point source"):
  * R_s,mn = (2 S B λ² / (η |I₀|²)) fₘ·fₙ*, the sum over θ̂ and φ̂ components.
  * Fully polarized with unit polarization vector ê: the field has |E|² = η S B,
  * so R_s = (4 S B λ² / (η |I₀|²)) (fₘ·ê)(fₙ·ê)*; averaging two orthogonal

@@ -44,7 +44,7 @@ export interface OhmicLossOptions {
  * @remarks
  * The part of the Twiss matrix not accounted for by radiation:
  * R_loss = 2 k_B T_phys B (Z + Zᴴ) − T_phys·R_iso,1K, where R_iso,1K is the
- * isotropic brightness integral at 1 K (DESIGN, "brightness noise"); a
+ * isotropic brightness integral at 1 K (conventions, "brightness noise"); a
  * lossless array gives zero. With per-element radiation efficiencies eₙ
  * instead: R_loss = 4 k_B T_phys B diag((1 − eₙ) Re Zₙₙ); with a loss resistance
  * matrix: 4 k_B T_phys B · herm(R_loss) (Twiss for the lossy part alone). References: K. F.

@@ -13,6 +13,7 @@ import { dirname, extname, join, normalize, resolve, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { AddressInfo } from 'node:net';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { inspectFigure } from '../helpers/figureGeometry.js';
 import {
   uniformLineLayout, dolphChebyshevTaper, fromParts, hadamard, steeringVector, directivity, linearArrayFigures,
   patternEvaluator, cutFigures, wavelengthM, radToDeg, parseTouchstone, ParseError, dipoleArrayPorts,
@@ -197,6 +198,13 @@ describe('playground page in chromium', () => {
       .catch(() => undefined);
     expect(await figure(page, 'designer-count-out')).toBe(36);
     expect(await page.locator('#designer-status').textContent()).toBe('');
+
+    // Zero elements per side: a message about that input, not about a library argument (issue 21).
+    await page.fill('#designer-count', '0');
+    await expectText(page, '#designer-status', 'elements per side must be a whole number from 1 to 40 here (received 0)');
+    expect(await page.locator('#designer-status').textContent()).not.toMatch(/boundary|widthM/);
+    await page.fill('#designer-count', '6');
+    await page.waitForFunction(() => document.querySelector('#designer-status')?.textContent === '', undefined, { timeout: 5000 });
   });
 
   it('network viewer: draws the sample and shows a malformed paste\'s parse error with its line number', async () => {
@@ -307,6 +315,19 @@ describe('playground page in chromium', () => {
       return document.getElementById(id)?.closest('svg') !== el.closest('svg');
     }).length);
     expect(strayClips).toBe(0);
+    // Every plot on the page passes the same layout check as the report's figures.
+    const count = await page.evaluate(() => document.querySelectorAll('svg[role="img"]').length);
+    expect(count).toBeGreaterThanOrEqual(3);
+    const failures: string[] = [];
+    for (let i = 0; i < count; i++) {
+      await page.evaluate((k) => document.querySelectorAll('svg[role="img"]')[k].setAttribute('data-check', 'yes'), i);
+      const p = await page.evaluate(inspectFigure, 'svg[data-check="yes"]');
+      await page.evaluate(() => document.querySelector('svg[data-check="yes"]')?.removeAttribute('data-check'));
+      for (const [kind, list] of [['overlapping labels', p.textOverlaps], ['labels outside the figure', p.textOutside], ['points under the legend', p.underLegend], ['hidden traces', p.hiddenTraces]] as const) {
+        if (list.length > 0) failures.push(`plot ${i + 1}: ${kind}: ${list.slice(0, 4).join('; ')}`);
+      }
+    }
+    expect(failures, failures.join('\n')).toEqual([]);
     expect(consoleErrors).toEqual([]);
     expect(foreignRequests).toEqual([]);
   });

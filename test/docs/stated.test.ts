@@ -1,6 +1,6 @@
 /** The stated-value grammar and comparison of the doc-test harness can fail, and fail right. */
 import { describe, it, expect } from 'vitest';
-import Complex from 'complex.js';
+import { Complex } from 'complex.js';
 import { compareStated, parseAssertions, parseStated } from './stated.js';
 import { instrument } from './doctest.js';
 

@@ -42,7 +42,8 @@ describe('JSON layout', () => {
     const text = formatPatternJson(set).replace('"version": 1', '"version": 1,,');
     const e = parseErr(() => parsePatternJson(text));
     expect(e.line).toBe(3);
-    expect(e.message).toMatch(/^line 3: invalid JSON/);
+    // The second comma: column 15 of ' "version": 1,,' (one-space indent; counted by hand).
+    expect(e.message).toMatch(/^line 3, column 15: the pattern file is not valid JSON: expected a property name in double quotes/);
   });
   it('schema errors name the field path and its line', () => {
     const obj = JSON.parse(formatPatternJson(set));

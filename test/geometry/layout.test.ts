@@ -1,7 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import {
   arrayLayout, withEnabledMask, activeLayout, activeCount, metresFromWavelengths, wavelengthsFromMetres,
-  layoutCentroid, layoutDiameterM, uniformLineLayout, rectangularGridLayout, latticeLayout, triangularLatticeLayout, ringLayout,
+  layoutCentroid, layoutDiameterM, uniformLineLayout, rectangularGridLayout, latticeLayout, triangularLatticeLayout, ringLayout, rectangularLattice,
 } from '../../src/geometry/index.js';
 import { DimensionError, DomainError } from '../../src/errors.js';
 
@@ -87,5 +87,33 @@ describe('builders', () => {
     expect(r.count).toBe(19);
     for (let n = 1; n < 7; n++) expect(Math.hypot(r.positionsM[3 * n], r.positionsM[3 * n + 1])).toBeCloseTo(0.1, 15);
     expect(() => ringLayout([])).toThrow(DomainError);
+  });
+});
+
+describe('lattice layouts carry their lattice (issue 20)', () => {
+  it('every position is the offset plus an integer combination of the primitive vectors', () => {
+    const layouts = [
+      rectangularGridLayout({ countX: 5, countY: 3, spacingXM: 0.1, spacingYM: 0.12 }),
+      triangularLatticeLayout(0.1, { kind: 'circle', radiusM: 0.35 }),
+      latticeLayout([0.1, 0.02], [0.03, 0.09], { kind: 'circle', radiusM: 0.3 }, { offsetM: [0.01, -0.02] }),
+    ];
+    for (const layout of layouts) {
+      const l = layout.lattice!;
+      expect(l).toBeDefined();
+      // Solve r − r₀ = m a₁ + n a₂ for each element; m and n must be integers (Cramer's rule).
+      const det = l.a1xM * l.a2yM - l.a1yM * l.a2xM;
+      const x0 = layout.positionsM[0], y0 = layout.positionsM[1];
+      for (let i = 0; i < layout.count; i++) {
+        const dx = layout.positionsM[3 * i] - x0, dy = layout.positionsM[3 * i + 1] - y0;
+        const m = (dx * l.a2yM - dy * l.a2xM) / det, n = (l.a1xM * dy - l.a1yM * dx) / det;
+        expect(Math.abs(m - Math.round(m)) + Math.abs(n - Math.round(n))).toBeLessThan(1e-9);
+      }
+      // Reciprocal vectors: aᵢ·bⱼ = 2π δᵢⱼ.
+      expect(l.a1xM * l.b1xRadPerM + l.a1yM * l.b1yRadPerM).toBeCloseTo(2 * Math.PI, 12);
+      expect(l.a1xM * l.b2xRadPerM + l.a1yM * l.b2yRadPerM).toBeCloseTo(0, 12);
+    }
+    expect(uniformLineLayout(4, 0.1).lattice).toBeUndefined();
+    expect(arrayLayout([[0, 0, 0], [0.1, 0, 0]], { lattice: rectangularLattice(0.1, 0.1) }).lattice?.cellAreaM2).toBeCloseTo(0.01, 15);
+    expect(() => arrayLayout([[0, 0, 0]], { lattice: { a1xM: 1 } as never })).toThrow(/PlanarLattice/);
   });
 });

@@ -5,10 +5,11 @@ import { join } from 'node:path';
 import {
   yFactorReceiverTemperature, noiseSourceReceiverTemperature, noiseSourceOnTemperature, receiverNoiseFromHotCold, beamReceiverTemperature,
   onOffSensitivity, onOffSensitivityFromCorrelation, apertureEfficiencyFromSensitivity, parseYFactorCsv, parseOnOffCsv,
-  reduceYFactorTable, reduceOnOffTable,
+  reduceYFactorTable, reduceOnOffTable, reduceYFactorCsv, reduceOnOffCsv,
 } from '../../src/measure/index.js';
-import { readYFactorCsv } from '../../src/measure/node.js';
-import { zeros, columnVector } from '../../src/linalg/cmatrix.js';
+import { readCorrelationMatrixFile, readYFactorCsv } from '../../src/measure/node.js';
+import { matrixToJSON } from '../../src/linalg/cmatrix.js';
+import { zeros, columnVector, fromRows } from '../../src/linalg/cmatrix.js';
 import { add, scale, multiply, adjoint } from '../../src/linalg/ops.js';
 import { K_BOLTZMANN_J_PER_K, T0_K } from '../../src/units/constants.js';
 import { janskyToSi } from '../../src/units/convert.js';
@@ -131,7 +132,21 @@ describe('on/off sensitivity', () => {
     expect(r.aeOverTsysM2PerK).toBeCloseTo((2 * K_BOLTZMANN_J_PER_K * (pOn - pOff)) / (1e-25 * pOff), 30);
     expect(() => onOffSensitivityFromCorrelation({ on, off: zeros(3, 3), weights: w, fluxDensityWPerM2Hz: 1e-25 })).toThrow(DimensionError);
   });
+  it('first-order uncertainty matches a finite-difference propagation (GUM eq. 10)', () => {
+    const base = { onPower: 1.08, offPower: 1, fluxDensityWPerM2Hz: janskyToSi(200) };
+    const sOn = 0.003, sOff = 0.002, sS = 0.04;
+    const r = onOffSensitivity({ ...base, onPowerRelativeSigma: sOn, offPowerRelativeSigma: sOff, fluxDensityRelativeSigma: sS });
+    // Numerical partial derivatives of A_e/T_sys with respect to each input, scaled by its σ.
+    const f = (p: typeof base) => onOffSensitivity(p).aeOverTsysM2PerK;
+    const h = 1e-7;
+    const d = (key: keyof typeof base, rel: number) => ((f({ ...base, [key]: base[key] * (1 + h) }) - f({ ...base, [key]: base[key] * (1 - h) })) / (2 * h)) * rel;
+    const sigma = Math.hypot(d('onPower', sOn), d('offPower', sOff), d('fluxDensityWPerM2Hz', sS));
+    expect(r.aeOverTsysSigmaM2PerK / sigma).toBeCloseTo(1, 6);
+    expect(r.sefdSigmaJy / r.sefdJy).toBeCloseTo(r.aeOverTsysSigmaM2PerK / r.aeOverTsysM2PerK, 12);
+    expect(onOffSensitivity(base).aeOverTsysSigmaM2PerK).toBe(0);
+  });
   it('bad input', () => {
+    expect(() => onOffSensitivity({ onPower: 1.1, offPower: 1, fluxDensityWPerM2Hz: 1e-26, onPowerRelativeSigma: -0.1 })).toThrow(/onPowerRelativeSigma/);
     expect(() => onOffSensitivity({ onPower: 1, offPower: 1.1, fluxDensityWPerM2Hz: 1e-26 })).toThrow(DomainError);
     expect(() => onOffSensitivity({ onPower: 1.1, offPower: 1, fluxDensityWPerM2Hz: -1 })).toThrow(DomainError);
     expect(() => onOffSensitivity({ onPower: 1.1, offPower: 1, fluxDensityWPerM2Hz: 1e-26, corrections: { sourceSizeFactor: 0.5 } })).toThrow(DomainError);
@@ -142,10 +157,10 @@ describe('measurement tables', () => {
   const csv = '# bench test, loads at 295 K and 77 K\nChannel,Hot,Cold,notes\nA,2.0,1.0,first\n\nB,3.0,1.2,\n';
   it('parses CSV with comments, blank lines and extra columns', () => {
     const rows = parseYFactorCsv(csv);
-    expect(rows).toEqual([{ channel: 'A', hot: 2, cold: 1 }, { channel: 'B', hot: 3, cold: 1.2 }]);
+    expect(rows).toEqual([{ channel: 'A', hot: 2, cold: 1, line: 3 }, { channel: 'B', hot: 3, cold: 1.2, line: 5 }]);
     const red = reduceYFactorTable(rows, { hotTemperatureK: 295, coldTemperatureK: 77 });
     expect(red[0].receiverTemperatureK).toBeCloseTo(295 - 2 * 77, 12);
-    expect(parseOnOffCsv('beam,on,off\nb0,1.5,1\n')[0]).toEqual({ beam: 'b0', on: 1.5, off: 1 });
+    expect(parseOnOffCsv('beam,on,off\nb0,1.5,1\n')[0]).toEqual({ beam: 'b0', on: 1.5, off: 1, line: 2 });
     expect(reduceOnOffTable([{ beam: 'b0', on: 1.5, off: 1 }], 1e-26)[0].beam).toBe('b0');
   });
   it('errors name the missing column or the line', () => {
@@ -169,10 +184,38 @@ describe('measurement tables', () => {
     }
     expect(() => reduceYFactorTable([{ channel: 'Q', hot: -1, cold: 2 }], { hotTemperatureK: 295, coldTemperatureK: 77 })).toThrow(DomainError);
   });
-  it('reads files in the Node entry', () => {
+  it('reads files in the Node entry; errors name the file and line', () => {
     const dir = mkdtempSync(join(tmpdir(), 'pw-'));
     writeFileSync(join(dir, 't.csv'), csv);
     expect(readYFactorCsv(join(dir, 't.csv')).length).toBe(2);
     expect(() => readYFactorCsv(join(dir, 'missing.csv'))).toThrow(ParseError);
+    writeFileSync(join(dir, 'b.csv'), 'channel,hot,cold\nA,1,1\n# c\nB,x,1\n');
+    expect(() => readYFactorCsv(join(dir, 'b.csv'))).toThrow(`${join(dir, 'b.csv')}:4: column "hot": expected a finite number, found "x"`);
+    const m = fromRows([[2, { re: 0.1, im: 0.2 }], [{ re: 0.1, im: -0.2 }, 3]]);
+    writeFileSync(join(dir, 'm.json'), JSON.stringify(matrixToJSON(m)));
+    expect(readCorrelationMatrixFile(join(dir, 'm.json')).data).toEqual(m.data);
+    writeFileSync(join(dir, 'n.json'), '{"rows": 2,\n  "cols": NaN}');
+    expect(() => readCorrelationMatrixFile(join(dir, 'n.json'))).toThrow(`${join(dir, 'n.json')}:2:11: the matrix file is not valid JSON: NaN is not a JSON value`);
+  });
+  it('row-by-row reduction: bad rows are rejected with their line and reason, good rows reduced', () => {
+    const text = '# loads 295 K / 77 K\nchannel,hot,cold\nA,2,1\nB,x,1\n\nC,1,2\nD,3,1\n';
+    const r = reduceYFactorCsv(text, { hotTemperatureK: 295, coldTemperatureK: 77 });
+    expect(r.results.map((x) => x.channel)).toEqual(['A', 'D']);
+    expect(r.results[1].receiverTemperatureK).toBeCloseTo((295 - 3 * 77) / 2, 12);
+    expect(r.rejected.map((x) => [x.name, x.row, x.line])).toEqual([['B', 2, 4], ['C', 3, 6]]);
+    expect(r.rejected[0].reason).toBe('column "hot": expected a finite number, found "x"');
+    expect(r.rejected[1].reason).toMatch(/Y = P_hot\/P_cold = 0.500000 ≤ 1/);
+    // The strict form names the first bad row by its CSV line.
+    expect(() => reduceYFactorTable(parseYFactorCsv('channel,hot,cold\n# c\nA,1,2\n'), { hotTemperatureK: 295, coldTemperatureK: 77 })).toThrow(/^line 3 \(channel "A"\)/);
+    const o = reduceOnOffCsv('beam,on,off\nb1,1.2,1\nb2,0.9,1\n', { fluxDensityWPerM2Hz: janskyToSi(100) });
+    expect([o.results.length, o.rejected[0].name, o.rejected[0].line]).toEqual([1, 'b2', 3]);
+    expect(() => reduceYFactorCsv('', { hotTemperatureK: 295, coldTemperatureK: 77 })).toThrow(ParseError);
+  });
+  it('table uncertainties propagate per channel as the single-channel reduction does', () => {
+    const opts = { hotTemperatureK: 295, coldTemperatureK: 77, powerRelativeSigma: 0.01, hotTemperatureSigmaK: 0.5, coldTemperatureSigmaK: 1 };
+    const [row] = reduceYFactorTable([{ channel: 'A', hot: 2.5, cold: 1 }], opts);
+    const one = yFactorReceiverTemperature({ hotPower: 2.5, coldPower: 1, hotTemperatureK: 295, coldTemperatureK: 77, hotPowerRelativeSigma: 0.01, coldPowerRelativeSigma: 0.01, hotTemperatureSigmaK: 0.5, coldTemperatureSigmaK: 1 });
+    expect(row.receiverTemperatureSigmaK).toBe(one.receiverTemperatureSigmaK);
+    expect(row.receiverTemperatureSigmaK).toBeGreaterThan(0);
   });
 });

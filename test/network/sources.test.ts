@@ -56,6 +56,30 @@ describe('Thevenin / Norton, loads, available power', () => {
     for (let i = 0; i < 3; i++) expect(entry(g, 0, i).sub(entry(sa, i).div(entry(a, i))).abs()).toBeLessThan(1e-15);
     expect(() => activeReflection(net, columnVector([1, 0, 1]))).toThrow(DomainError);
   });
+  it('one function, two excitation kinds: port currents give the reflection of the waves they launch (power and pseudo-waves)', () => {
+    // Independent route: from I, V = Z I, the waves by their definitions (Kurokawa 1965 power waves;
+    // Marks & Williams 1992 pseudo-waves), then Γ = (S a)/a with the network's own S.
+    const n = 4, kx = 3;
+    const z = randomPassiveImpedance(n, 70);
+    const cur = randomMatrix(n, kx, 71);
+    for (const waves of ['power', 'pseudo'] as const) {
+      const refs = [{ re: 50, im: 0 }, { re: 40, im: 15 }, { re: 75, im: -20 }, { re: 50, im: 5 }];
+      const net = createMultiport('impedance', [1e9], [z], { referenceOhm: refs, waves });
+      const g = activeReflection(net, { kind: 'portCurrents', currents: cur });
+      const v = multiply(z, cur);
+      const a = zeros(n, kx);
+      for (let i = 0; i < n; i++) for (let k = 0; k < kx; k++) {
+        const zr = entry(fromRows([[refs[i]]]), 0, 0);
+        const ai = entry(v, i, k).add(zr.mul(entry(cur, i, k))).mul(waves === 'power' ? 1 / (2 * Math.sqrt(zr.re)) : Math.sqrt(zr.re) / (2 * zr.abs()));
+        a.data[2 * (i * kx + k)] = ai.re; a.data[2 * (i * kx + k) + 1] = ai.im;
+      }
+      const viaWaves = activeReflection(convertMultiport(net, 'scattering'), { kind: 'incidentWaves', waves: a });
+      expectCMatrixClose(g, viaWaves, { rtol: 1e-10 });
+      // The bare-matrix form of earlier versions still means incident waves.
+      expectCMatrixClose(activeReflection(net, a), viaWaves, { rtol: 1e-12 });
+    }
+    expect(() => activeReflection(createMultiport('impedance', [1e9], [z]), { kind: 'portCurrents', currents: columnVector([1, 0, 1, 1]) })).toThrow(/excitation\.currents/);
+  });
   it('active reflection for K excitations in one call: row f·K + k is (S_f a_k)ₙ / a_k,n (40 ports, 7 scan excitations)', () => {
     const n = 40, kx = 7;
     const s = randomMatrix(n, n, 61);

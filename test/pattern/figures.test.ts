@@ -10,6 +10,7 @@ import { columnVector, fromParts } from '../../src/linalg/index.js';
 import { C0_M_PER_S } from '../../src/units/index.js';
 import { DimensionError, DomainError } from '../../src/errors.js';
 import { randomMatrix } from '../helpers/matchers.js';
+import { planarLattice, rectangularLattice } from '../../src/geometry/lattice.js';
 
 const F = 3e9;
 const L = C0_M_PER_S / F;
@@ -166,6 +167,10 @@ describe('grating lobes', () => {
     const ev = patternEvaluator(layout, steeringVector(layout, [0, 0, 1], F), F);
     for (const g of tri) expect(ev.magnitudeAt(...g.direction)).toBeCloseTo(49, 9);
     expect(() => gratingLobes([1, 0], [2, 0], F, 0, 0)).toThrow(DomainError);
+    // The lattice form (one grating-lobe API, issue 20) gives the same lobes as the deprecated basis-pair form.
+    expect(gratingLobes(planarLattice([1.2 * L, 0], [0.6 * L, 0.6 * Math.sqrt(3) * L]), F, 0, 0)).toEqual(tri);
+    expect(gratingLobes(rectangularLattice(0.6 * L, 0.6 * L), F, 0.7, 0)).toEqual(sq);
+    expect(() => gratingLobes({ a1xM: 1 } as never, F, 0, 0)).toThrow(/PlanarLattice/);
     expect(() => gratingLobes([1, 0], [0, 1], F, 0.9, 0.9)).toThrow(DomainError);
   });
 });

@@ -60,3 +60,14 @@ describe('linePlotSvg legend and traces', () => {
     expect(xs).toEqual([...xs].sort((p, q) => p - q));
   });
 });
+
+describe('linePlotSvg yFromZero', () => {
+  it('a ratio-scale axis starts at zero, so an 8 % swing does not fill the plot', () => {
+    const y = x.map((v) => 0.07 + 0.006 * Math.sin(v / 6)); // 0.064 … 0.076, an ~17 % swing
+    const ticks = (svg: string) => [...svg.matchAll(/<text class="tick-y" data-value="([^"]*)"/g)].map((m) => Number(m[1]));
+    const plain = linePlotSvg({ xLabel: 'x [1]', yLabel: 'y [1]', traces: [{ label: 'A_e/T_sys', x, y }] });
+    const zero = linePlotSvg({ xLabel: 'x [1]', yLabel: 'y [1]', yFromZero: true, traces: [{ label: 'A_e/T_sys', x, y }] });
+    expect(Math.min(...ticks(plain))).toBeGreaterThan(0.05);
+    expect(Math.min(...ticks(zero))).toBe(0);
+  });
+});

@@ -16,7 +16,8 @@ import {
   assembleDesignEvaluation, estimateDesignCost, frequencyBlock, parseDesign, prepareDesign, validateDesign,
   type Design, type DesignEvaluation, type FailedCheck, type FrequencyEvaluation,
 } from '../../design/index.js';
-import { CapacityError } from '../../errors.js';
+import { CapacityError, ParseError } from '../../errors.js';
+import { parseJsonText } from '../../internal/json.js';
 import { UsageError } from '../errors.js';
 import { outputFolder } from '../output.js';
 import { num } from '../format.js';
@@ -207,9 +208,9 @@ export async function runMerge(partFiles: readonly string[], outDir: string): Pr
     const text = readText(f, 'part file');
     let p: ShardPart;
     try {
-      p = JSON.parse(text) as ShardPart;
+      p = parseJsonText(text, 'the part file') as ShardPart;
     } catch (e) {
-      throw new UsageError(`part file "${f}" is not valid JSON: ${(e as Error).message}`);
+      throw e instanceof ParseError ? new UsageError(e.inFile(f).message) : e;
     }
     if (p === null || typeof p !== 'object' || p.format !== 'phasewise-shard') throw new UsageError(`part file "${f}": expected a shard part written by "phasewise evaluate --shard i/n", received something else.`);
     return { file: f, part: p };

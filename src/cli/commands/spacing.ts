@@ -3,7 +3,7 @@
  * @internal
  * @module
  */
-import { spacingForScanCone } from '../../floquet/grating-lobes.js';
+import { spacingForScanCone } from '../../geometry/gratingLobes.js';
 import { degToRad } from '../../units/convert.js';
 import { wavelengthM } from '../../units/convert.js';
 import { num, table } from '../format.js';

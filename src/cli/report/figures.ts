@@ -57,7 +57,7 @@ export function reportFigureList(ev: DesignEvaluation): ReportFigure[] {
     const perBeam = (key: keyof DesignBeamFigures) => shown.map((k) => ({ label: beamLabel(ev, k), x: fx, y: ev.frequencies.map((r) => r.beams[k][key] as number) }));
     out.push({
       file: 'sensitivity-vs-frequency.svg', caption: `A_e/T_sys versus frequency for ${shown.length} beams (m²/K).`,
-      svg: linePlotSvg({ title: 'Sensitivity A_e/T_sys across the band', xLabel: `frequency [${unit}]`, yLabel: 'A_e/T_sys [m²/K]', traces: perBeam('sensitivityM2PerK') }),
+      svg: linePlotSvg({ title: 'Sensitivity A_e/T_sys across the band', xLabel: `frequency [${unit}]`, yLabel: 'A_e/T_sys [m²/K]', yFromZero: true, traces: perBeam('sensitivityM2PerK') }),
     });
     out.push({
       file: 'gt-vs-frequency.svg', caption: 'G/T versus frequency (dB/K, gain and T_sys referred to the beamformer output).',
@@ -90,7 +90,7 @@ export function reportFigureList(ev: DesignEvaluation): ReportFigure[] {
     out.push({
       file: 'sensitivity.svg', caption: `A_e/T_sys over the scan${band ? ' at the report frequencies' : ''} (m²/K).`,
       svg: linePlotSvg({
-        title: 'Sensitivity A_e/T_sys over the scan', xLabel, yLabel: 'A_e/T_sys [m²/K]',
+        title: 'Sensitivity A_e/T_sys over the scan', xLabel, yLabel: 'A_e/T_sys [m²/K]', yFromZero: true,
         traces: ev.reportFrequencyIndices.map((i) => ({ label: band ? fText(ev, i) : 'A_e/T_sys', x: scan, y: col(ev.frequencies[i], 'sensitivityM2PerK') })),
       }),
     });

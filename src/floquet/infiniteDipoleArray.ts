@@ -3,15 +3,15 @@
  * summation, with an accelerated sum for the slowly converging reactive part.
  * @module
  */
-import Complex from 'complex.js';
+import { Complex } from 'complex.js';
 import { DomainError } from '../errors.js';
 import { assertFiniteArray, assertInRange } from '../internal/validate.js';
 import { wavenumberRadPerM } from '../units/convert.js';
-import { type DipoleSpectrum, type StripDipole, currentSpectrum, dipoleSpectrum, widthSpectrum } from './dipole-spectrum.js';
+import { type DipoleSpectrum, type StripDipole, currentSpectrum, dipoleSpectrum, widthSpectrum } from './dipoleSpectrum.js';
 import { type GaussLegendreRule, gaussLegendre } from '../geometry/quadrature.js';
-import type { PlanarLattice } from './lattice.js';
+import type { PlanarLattice } from '../geometry/lattice.js';
 import { type ScanDirection, assertScan } from './modes.js';
-import { type ArrayBacking, type SpectralMedium, assertBacking, layeredImpedancesInto, spectralMedium } from './spectral-green.js';
+import { type ArrayBacking, type SpectralMedium, assertBacking, layeredImpedancesInto, spectralMedium } from './spectralGreen.js';
 
 /**
  * Description of an infinite planar array of identical x-directed strip dipoles.
@@ -588,7 +588,7 @@ export interface ActiveImpedanceResult {
  *
  * @remarks
  * Every element is fed with current Iₙ = exp(−j k r̂₀·rₙ), the transmit excitation equivalent to
- * the receive weights wₙ = exp(+j k r̂₀·rₙ) pointing at r̂₀ (DESIGN conventions); Z_a = Vₙ/Iₙ.
+ * the receive weights wₙ = exp(+j k r̂₀·rₙ) pointing at r̂₀ (docs/conventions.md); Z_a = Vₙ/Iₙ.
  * Method and sources: {@link infiniteDipoleArray}.
  * @param array - Prepared array.
  * @param scan - Scan direction, θ ∈ [0, π/2).

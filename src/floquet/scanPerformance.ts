@@ -2,13 +2,13 @@
  * Active reflection coefficient and embedded element gain of an infinite dipole array.
  * @module
  */
-import Complex from 'complex.js';
+import { Complex } from 'complex.js';
 import { wavelengthM } from '../units/convert.js';
-import { currentSpectrum, widthSpectrum } from './dipole-spectrum.js';
-import { type InfiniteDipoleArray, infiniteArrayActiveImpedance } from './infinite-dipole-array.js';
+import { currentSpectrum, widthSpectrum } from './dipoleSpectrum.js';
+import { type InfiniteDipoleArray, infiniteArrayActiveImpedance } from './infiniteDipoleArray.js';
 import { type ScanDirection, assertScan } from './modes.js';
-import { reflectionFromImpedance, toReferenceImpedance } from './finite-array.js';
-import { layeredImpedancesInto } from './spectral-green.js';
+import { reflectionFromImpedance, toReferenceImpedance } from './finiteArray.js';
+import { layeredImpedancesInto } from './spectralGreen.js';
 
 /**
  * Scan performance of one element of the infinite array.

@@ -2,20 +2,20 @@ import { describe, expect, it } from 'vitest';
 import { DomainError } from '../../src/errors.js';
 import {
   planarLattice, rectangularLattice, triangularLattice, scaleLattice,
-} from '../../src/floquet/lattice.js';
+} from '../../src/geometry/lattice.js';
 import {
   axialWavenumber, floquetModes, propagatingFloquetModes, teModeImpedance, tmModeImpedance,
 } from '../../src/floquet/modes.js';
 import {
   gratingLobeCircles, gratingLobeFreeScanConeRad, latticeScaleForScanCone, spacingForScanCone,
-} from '../../src/floquet/grating-lobes.js';
-import { gratingLobes as patternGratingLobes } from '../../src/pattern/gratingLobes.js';
-import type { PlanarLattice } from '../../src/floquet/lattice.js';
+} from '../../src/geometry/gratingLobes.js';
+import { gratingLobes as latticeGratingLobes } from '../../src/geometry/gratingLobes.js';
+import type { PlanarLattice } from '../../src/geometry/lattice.js';
 
-/** Grating lobes at a scan from the pattern module (identity between two modules). */
+/** Grating lobes at a scan (θ, φ), strictly inside visible space. */
 function gratingLobes(l: PlanarLattice, f: number, scan: { thetaRad: number; phiRad: number }) {
   const s = Math.sin(scan.thetaRad);
-  return patternGratingLobes([l.a1xM, l.a1yM], [l.a2xM, l.a2yM], f, s * Math.cos(scan.phiRad), s * Math.sin(scan.phiRad)).filter((g) => g.u * g.u + g.v * g.v < 1 - 1e-12);
+  return latticeGratingLobes(l, f, s * Math.cos(scan.phiRad), s * Math.sin(scan.phiRad)).filter((g) => g.u * g.u + g.v * g.v < 1 - 1e-12);
 }
 import { C0_M_PER_S, ETA0_OHM } from '../../src/units/constants.js';
 

@@ -1,12 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import fixture from './fixtures/floquet_brute.json';
 import { DomainError } from '../../src/errors.js';
-import { planarLattice, rectangularLattice, triangularLattice } from '../../src/floquet/lattice.js';
+import { planarLattice, rectangularLattice, triangularLattice } from '../../src/geometry/lattice.js';
 import {
   type InfiniteDipoleArray, infiniteArrayActiveImpedance, infiniteArrayActiveImpedanceInto, infiniteDipoleArray,
-} from '../../src/floquet/infinite-dipole-array.js';
-import type { ArrayBacking } from '../../src/floquet/spectral-green.js';
-import { infiniteArrayScanPerformance } from '../../src/floquet/scan-performance.js';
+} from '../../src/floquet/infiniteDipoleArray.js';
+import type { ArrayBacking } from '../../src/floquet/spectralGreen.js';
+import { infiniteArrayScanPerformance } from '../../src/floquet/scanPerformance.js';
 import { C0_M_PER_S, ETA0_OHM } from '../../src/units/constants.js';
 
 const F = 1e9;
@@ -179,7 +179,7 @@ describe('energy conservation and embedded element gain', () => {
 
 describe('layered-medium impedances at a grating-lobe onset', () => {
   it('β = k₀ exactly gives a large finite TE impedance, not NaN (Wood anomaly of a free-standing array)', async () => {
-    const { layeredImpedancesInto, spectralMedium } = await import('../../src/floquet/spectral-green.js');
+    const { layeredImpedancesInto, spectralMedium } = await import('../../src/floquet/spectralGreen.js');
     const out = new Float64Array(8);
     for (const backing of [{ kind: 'freeSpace' }, { kind: 'groundPlane', heightM: 0.1 }, { kind: 'groundedSlab', relativePermittivity: 3, thicknessM: 0.01 }] as ArrayBacking[]) {
       layeredImpedancesInto(out, spectralMedium(backing, K), K);

@@ -1,11 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import Complex from 'complex.js';
+import { Complex } from 'complex.js';
 import { dipoleArrayImpedanceMatrix, dipoleMutualImpedance, dipoleSelfImpedance } from '../../src/element/mutualImpedance.js';
 import type { WireDipole } from '../../src/element/types.js';
 import { zeros } from '../../src/linalg/cmatrix.js';
-import { rectangularLattice } from '../../src/floquet/lattice.js';
-import { infiniteArrayActiveImpedance, infiniteDipoleArray } from '../../src/floquet/infinite-dipole-array.js';
-import { finiteArrayActiveImpedances } from '../../src/floquet/finite-array.js';
+import { rectangularLattice } from '../../src/geometry/lattice.js';
+import { infiniteArrayActiveImpedance, infiniteDipoleArray } from '../../src/floquet/infiniteDipoleArray.js';
+import { finiteArrayActiveImpedances } from '../../src/floquet/finiteArray.js';
 import { C0_M_PER_S } from '../../src/units/constants.js';
 
 // Identity between two modules: the centre element of growing finite arrays of thin-wire dipoles

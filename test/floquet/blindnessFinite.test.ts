@@ -1,13 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import Complex from 'complex.js';
+import { Complex } from 'complex.js';
 import slab from './fixtures/slab_modes.json';
 import { DimensionError, DomainError } from '../../src/errors.js';
 import { fromRows } from '../../src/linalg/cmatrix.js';
-import { rectangularLattice } from '../../src/floquet/lattice.js';
-import { infiniteDipoleArray } from '../../src/floquet/infinite-dipole-array.js';
-import { findScanBlindness } from '../../src/floquet/scan-blindness.js';
-import { groundedSlabSurfaceWaves, phaseMatchedScanAngles } from '../../src/floquet/surface-waves.js';
-import { finiteArrayActiveImpedances, finiteArrayActiveReflections } from '../../src/floquet/finite-array.js';
+import { rectangularLattice } from '../../src/geometry/lattice.js';
+import { infiniteDipoleArray } from '../../src/floquet/infiniteDipoleArray.js';
+import { findScanBlindness } from '../../src/floquet/scanBlindness.js';
+import { groundedSlabSurfaceWaves, phaseMatchedScanAngles } from '../../src/floquet/surfaceWaves.js';
+import { finiteArrayActiveImpedances, finiteArrayActiveReflections } from '../../src/floquet/finiteArray.js';
 import { C0_M_PER_S } from '../../src/units/constants.js';
 
 const F = 1e9;

@@ -4,7 +4,7 @@
  * @module
  */
 import { DomainError } from '../errors.js';
-import { assertFinite, assertPositive } from '../internal/validate.js';
+import { assertFinite, assertPositive, describeValue } from '../internal/validate.js';
 
 /**
  * A 2-D Bravais lattice in the xy-plane (the plane of a planar array).
@@ -12,7 +12,7 @@ import { assertFinite, assertPositive } from '../internal/validate.js';
  * @remarks
  * Element positions are rₘₙ = m·a₁ + n·a₂. The reciprocal vectors obey
  * aᵢ·bⱼ = 2π δᵢⱼ, so exp(−j (m b₁ + n b₂)·r) = 1 at every element.
- * @category Floquet
+ * @category Geometry
  */
 export interface PlanarLattice {
   /** First primitive vector, x component [m]. */
@@ -51,7 +51,7 @@ export interface PlanarLattice {
  * ```ts
  * planarLattice([0.05, 0], [0.025, 0.0433]).cellAreaM2; // ≈ 2.165e-3
  * ```
- * @category Floquet
+ * @category Geometry
  */
 export function planarLattice(a1M: readonly [number, number], a2M: readonly [number, number]): PlanarLattice {
   assertFinite('a1M[0]', a1M[0]);
@@ -83,7 +83,7 @@ export function planarLattice(a1M: readonly [number, number], a2M: readonly [num
  * @param dyM - Spacing along y [m], > 0.
  * @returns Lattice with a₁ = (dx, 0), a₂ = (0, dy).
  * @throws {@link DomainError} if a spacing is not positive.
- * @category Floquet
+ * @category Geometry
  */
 export function rectangularLattice(dxM: number, dyM: number): PlanarLattice {
   assertPositive('dxM', dxM, 'm');
@@ -96,7 +96,7 @@ export function rectangularLattice(dxM: number, dyM: number): PlanarLattice {
  * @param sideM - Nearest-neighbour distance d [m], > 0.
  * @returns Lattice with a₁ = (d, 0), a₂ = (d/2, d√3/2); cell area (√3/2) d².
  * @throws {@link DomainError} if `sideM` is not positive.
- * @category Floquet
+ * @category Geometry
  */
 export function triangularLattice(sideM: number): PlanarLattice {
   assertPositive('sideM', sideM, 'm');
@@ -109,7 +109,7 @@ export function triangularLattice(sideM: number): PlanarLattice {
  * @param factor - Scale factor (dimensionless), > 0.
  * @returns Lattice with primitive vectors factor·a₁, factor·a₂.
  * @throws {@link DomainError} if `factor` is not positive.
- * @category Floquet
+ * @category Geometry
  */
 export function scaleLattice(lattice: PlanarLattice, factor: number): PlanarLattice {
   assertPositive('factor', factor);
@@ -136,4 +136,18 @@ export function shortestReciprocalVector(lattice: PlanarLattice): number {
     vy -= mu * uy;
   }
   return Math.min(Math.hypot(ux, uy), Math.hypot(vx, vy));
+}
+
+/**
+ * Validates a lattice value given by a caller (as {@link planarLattice} returns it): every field
+ * finite, non-collinear primitive vectors; recomputes the reciprocal vectors from a₁, a₂ so that
+ * a hand-built object cannot carry inconsistent ones.
+ * @internal
+ */
+export function assertLattice(name: string, lattice: unknown): PlanarLattice {
+  const l = lattice as Partial<PlanarLattice> | null;
+  if (l === null || typeof l !== 'object' || typeof l.a1xM !== 'number' || typeof l.a1yM !== 'number' || typeof l.a2xM !== 'number' || typeof l.a2yM !== 'number') {
+    throw new DomainError(`invalid argument "${name}": expected a PlanarLattice (planarLattice, rectangularLattice, triangularLattice or a lattice layout's "lattice"), received ${describeValue(lattice)}.`);
+  }
+  return planarLattice([l.a1xM, l.a1yM], [l.a2xM, l.a2yM]);
 }

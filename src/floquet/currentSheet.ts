@@ -6,9 +6,9 @@
 import { DomainError } from '../errors.js';
 import { assertPositive } from '../internal/validate.js';
 import { wavenumberRadPerM } from '../units/convert.js';
-import type { PlanarLattice } from './lattice.js';
+import type { PlanarLattice } from '../geometry/lattice.js';
 import { assertScan, propagatingFloquetModes, type ScanDirection } from './modes.js';
-import { assertBacking, layeredImpedancesInto, spectralMedium, type ArrayBacking } from './spectral-green.js';
+import { assertBacking, layeredImpedancesInto, spectralMedium, type ArrayBacking } from './spectralGreen.js';
 
 /**
  * Options of {@link currentSheetScanResistance}.

@@ -3,12 +3,14 @@
  * impedance matrix and excitation.
  * @module
  */
-import Complex from 'complex.js';
+import { Complex } from 'complex.js';
 import { DomainError } from '../errors.js';
 import { assertColumn, assertFiniteCMatrix, assertSquare } from '../internal/validate.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
 import { zeros } from '../linalg/cmatrix.js';
-import { multiply } from '../linalg/ops.js';
+import { multiply, transpose } from '../linalg/ops.js';
+import { createMultiport } from '../network/multiport.js';
+import { activeReflection } from '../network/sources.js';
 
 /** Validates and converts a reference impedance. @internal */
 export function toReferenceImpedance(z0: number | Complex): Complex {
@@ -29,7 +31,7 @@ export function reflectionFromImpedance(z: Complex, z0: Complex): Complex {
  * Active impedance of every element of a finite array: Z_a,n = (Z I)ₙ / Iₙ.
  *
  * @remarks
- * V = Z I with currents into the ports (DESIGN multiport convention). For a scanned transmit
+ * V = Z I with currents into the ports (multiport convention, docs/conventions.md). For a scanned transmit
  * excitation use Iₙ = exp(−j k r̂₀·rₙ), the conjugate of the receive weights wₙ = exp(+j k r̂₀·rₙ).
  * Reference: R. C. Hansen, *Phased Array Antennas*, 2nd ed., Wiley, 2009, ch. 7 (scan impedance; from memory).
  * @param z - Open-circuit impedance matrix, N×N [Ω].
@@ -61,9 +63,12 @@ export function finiteArrayActiveImpedances(z: CMatrix, currents: CMatrix): CMat
 /**
  * Active reflection coefficient of every element of a finite array: Γₙ = (Z_a,n − Z₀*)/(Z_a,n + Z₀).
  *
+ * @deprecated Use the network module's one active-reflection function,
+ * `activeReflection(net, { kind: 'portCurrents', currents })`, with the impedance matrix as a
+ * multiport (`createMultiport('impedance', [f], [z], { referenceOhm })`); this alias calls it and
+ * stays for one minor version.
  * @remarks
- * Power waves with reference impedance Z₀ (Kurokawa 1965, DESIGN default 50 Ω). Equals bₙ/aₙ for the
- * port state with currents I.
+ * Power waves with reference impedance Z₀ (Kurokawa 1965, default 50 Ω, docs/conventions.md).
  * @param z - Open-circuit impedance matrix, N×N [Ω].
  * @param currents - Port currents, N×1 [A].
  * @param referenceImpedanceOhm - Reference impedance Z₀ [Ω], Re Z₀ > 0; default 50.
@@ -73,12 +78,9 @@ export function finiteArrayActiveImpedances(z: CMatrix, currents: CMatrix): CMat
  */
 export function finiteArrayActiveReflections(z: CMatrix, currents: CMatrix, referenceImpedanceOhm: number | Complex = 50): CMatrix {
   const z0 = toReferenceImpedance(referenceImpedanceOhm);
-  const za = finiteArrayActiveImpedances(z, currents);
-  const out = zeros(za.rows, 1);
-  for (let n = 0; n < za.rows; n++) {
-    const g = reflectionFromImpedance(new Complex(za.data[2 * n], za.data[2 * n + 1]), z0);
-    out.data[2 * n] = g.re;
-    out.data[2 * n + 1] = g.im;
-  }
-  return out;
+  assertSquare('z', z);
+  assertColumn('currents', currents, z.rows, 'one current per port of "z"');
+  finiteArrayActiveImpedances(z, currents); // same validation and messages as before
+  const net = createMultiport('impedance', [0], [z], { referenceOhm: { re: z0.re, im: z0.im } });
+  return transpose(activeReflection(net, { kind: 'portCurrents', currents }));
 }

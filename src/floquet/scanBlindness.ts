@@ -2,11 +2,11 @@
  * Search for scan blindness of an infinite dipole array in a scan plane.
  * @module
  */
-import type Complex from 'complex.js';
+import type { Complex } from 'complex.js';
 import { assertFinite, assertInRange } from '../internal/validate.js';
-import { type InfiniteDipoleArray, infiniteArrayActiveImpedance } from './infinite-dipole-array.js';
-import { infiniteArrayScanPerformance } from './scan-performance.js';
-import { type PhaseMatchPrediction, groundedSlabSurfaceWaves, phaseMatchedScanAngles } from './surface-waves.js';
+import { type InfiniteDipoleArray, infiniteArrayActiveImpedance } from './infiniteDipoleArray.js';
+import { infiniteArrayScanPerformance } from './scanPerformance.js';
+import { type PhaseMatchPrediction, groundedSlabSurfaceWaves, phaseMatchedScanAngles } from './surfaceWaves.js';
 
 /**
  * Options of {@link findScanBlindness}.

@@ -6,7 +6,7 @@
 import { assertFinite, assertInteger, assertPositive } from '../internal/validate.js';
 import { DomainError } from '../errors.js';
 import { wavenumberRadPerM } from '../units/convert.js';
-import type { PlanarLattice } from './lattice.js';
+import type { PlanarLattice } from '../geometry/lattice.js';
 
 /**
  * A bound surface-wave mode of a grounded dielectric slab.
