@@ -8,7 +8,7 @@
 import { ConvergenceError } from '../errors.js';
 import { gemmKernel } from './gemm.js';
 import { rotationWorkspace } from './rotations-wasm.js';
-import { rank2Workspace } from './tridiagonal-wasm.js';
+import { type TridiagWorkspace, tridiagWorkspace } from './tridiagonal-wasm.js';
 
 /** Result of {@link reduceHermitianToTridiagonal}. */
 export interface TridiagonalReduction {
@@ -40,16 +40,12 @@ export interface TridiagonalReduction {
  * Automatic Computation II, 1971, contribution II/2 "htridi", from memory).
  */
 export function reduceHermitianToTridiagonal(house: Float64Array, n: number): TridiagonalReduction {
-  // With WebAssembly SIMD the matrix is worked on in the module memory and the
-  // rank-two update runs there (tridiagonal-wasm.ts); copied back at the end.
-  const ws = n > 8 ? rank2Workspace(n) : null;
-  let w = house;
-  if (ws !== null) {
-    ws.view.set(house.subarray(0, 2 * n * n), 0);
-    w = ws.view;
-  }
+  // With WebAssembly SIMD the matrix is worked on in the module memory by fused
+  // passes (tridiagonal-wasm.ts); otherwise by the scalar loops below.
+  const ws = n > 8 ? tridiagWorkspace(n) : null;
+  if (ws !== null) return reduceFused(house, n, ws);
+  const w = house;
   const d = new Float64Array(n);
-  const e = new Float64Array(n);
   const er = new Float64Array(n); // complex sub-diagonal before the phase fix
   const ei = new Float64Array(n);
   const beta = new Float64Array(n);
@@ -115,22 +111,6 @@ export function reduceHermitianToTridiagonal(house: Float64Array, n: number): Tr
       p[2 * i + 1] -= kk * w[ui + 1];
     }
     // A ← A − u qᴴ − q uᴴ on the lower triangle of the trailing block.
-    if (ws !== null) {
-      const v = ws.view;
-      for (let i = k1; i < n; i++) {
-        const ui = 2 * (i * n + k);
-        const ur = w[ui], uim = w[ui + 1], qr = p[2 * i], qi = p[2 * i + 1];
-        const t = 2 * i;
-        v[ws.qc + t] = qr; v[ws.qc + t + 1] = -qi; v[ws.qs + t] = qi; v[ws.qs + t + 1] = qr;
-        v[ws.uc + t] = ur; v[ws.uc + t + 1] = -uim; v[ws.us + t] = uim; v[ws.us + t + 1] = ur;
-        v[ws.u + t] = ur; v[ws.u + t + 1] = uim; v[ws.q + t] = qr; v[ws.q + t + 1] = qi;
-        const a = 2 * (i * n + i);
-        w[a] -= 2 * (ur * qr + uim * qi);
-        w[a + 1] = 0;
-      }
-      ws.update(k1);
-      continue;
-    }
     for (let i = k1; i < n; i++) {
       const ui = 2 * (i * n + k);
       const uir = w[ui], uii = w[ui + 1];
@@ -151,7 +131,113 @@ export function reduceHermitianToTridiagonal(house: Float64Array, n: number): Tr
     }
   }
   if (n > 0) d[n - 1] = w[2 * ((n - 1) * n + (n - 1))];
-  if (ws !== null) house.set(w.subarray(0, 2 * n * n), 0);
+  return withRealOffDiagonal(n, d, er, ei, house, beta);
+}
+
+/**
+ * The same reduction on the SIMD kernel: the rank-two update of step k is not
+ * applied at once but kept pending; step k+1 first applies it to column k+1
+ * and to the diagonal (O(n)), forms its reflector, and then one fused pass
+ * applies the pending update to the rest of the trailing block while forming
+ * p = A u for the new reflector, so the block is read once per step instead of
+ * twice. The arithmetic is that of the scalar loops, in another order.
+ */
+function reduceFused(house: Float64Array, n: number, ws: TridiagWorkspace): TridiagonalReduction {
+  const w = ws.view, { qc, qs, uc, us, u: pu, q: pq, vrr, vis, vpr, vii, p: pp } = ws;
+  w.set(house.subarray(0, 2 * n * n), 0);
+  const d = new Float64Array(n), er = new Float64Array(n), ei = new Float64Array(n), beta = new Float64Array(n);
+  let pending = false;
+  const clearPending = (from: number): void => {
+    for (const off of [qc, qs, uc, us, pu, pq]) w.fill(0, off + 2 * from, off + 2 * n);
+    pending = false;
+  };
+  for (let k = 0; k < n - 1; k++) {
+    const k1 = k + 1;
+    if (pending) {
+      // the pending update on column k (rows > k) and on the diagonal from k on
+      const ukr = w[pu + 2 * k], uki = w[pu + 2 * k + 1], qkr = w[pq + 2 * k], qki = w[pq + 2 * k + 1];
+      for (let i = k1; i < n; i++) {
+        const a = 2 * (i * n + k);
+        const uir = w[pu + 2 * i], uii = w[pu + 2 * i + 1], qir = w[pq + 2 * i], qii = w[pq + 2 * i + 1];
+        w[a] -= uir * qkr + uii * qki + qir * ukr + qii * uki;
+        w[a + 1] -= uii * qkr - uir * qki + qii * ukr - qir * uki;
+      }
+      for (let i = k; i < n; i++) {
+        const a = 2 * (i * n + i);
+        w[a] -= 2 * (w[pu + 2 * i] * w[pq + 2 * i] + w[pu + 2 * i + 1] * w[pq + 2 * i + 1]);
+        w[a + 1] = 0;
+      }
+    }
+    const x0 = 2 * (k1 * n + k);
+    let sigma = 0;
+    for (let i = k1 + 1; i < n; i++) {
+      const t = 2 * (i * n + k);
+      sigma += w[t] * w[t] + w[t + 1] * w[t + 1];
+    }
+    const xr = w[x0], xi = w[x0 + 1];
+    d[k] = w[2 * (k * n + k)];
+    if (sigma === 0) {
+      er[k] = xr; ei[k] = xi;
+      if (pending) {
+        // apply the pending update to the rest of the block; the product (v = 0) is unused
+        for (const off of [vrr, vis, vpr, vii]) w.fill(0, off + 2 * k1, off + 2 * n);
+        ws.pass(k1);
+        clearPending(k1);
+      }
+      continue;
+    }
+    const ax0 = Math.sqrt(xr * xr + xi * xi);
+    const alpha = Math.sqrt(ax0 * ax0 + sigma);
+    let phr = 1, phi = 0;
+    if (ax0 > 0) { phr = xr / ax0; phi = xi / ax0; }
+    w[x0] = xr + phr * alpha;
+    w[x0 + 1] = xi + phi * alpha;
+    const b = 1 / (alpha * (alpha + ax0));
+    beta[k] = b;
+    er[k] = -phr * alpha; ei[k] = -phi * alpha;
+    // v = u (column k below the diagonal) in the kernel's four forms; p = 0
+    for (let i = k1; i < n; i++) {
+      const a = 2 * (i * n + k), vr = w[a], vi = w[a + 1], t = 2 * i;
+      w[vrr + t] = vr; w[vrr + t + 1] = vr;
+      w[vis + t] = -vi; w[vis + t + 1] = vi;
+      w[vpr + t] = vr; w[vpr + t + 1] = -vr;
+      w[vii + t] = vi; w[vii + t + 1] = vi;
+    }
+    w.fill(0, pp + 2 * k1, pp + 2 * n);
+    // pending update (if any) on the strict lower triangle of the block, and p += (strict lower + its adjoint) u
+    ws.pass(k1);
+    // p += diag·u (the diagonal is real after the update); then p ← β p, K = (β/2) Re(uᴴ p), q = p − K u
+    let upr = 0;
+    for (let i = k1; i < n; i++) {
+      const a = 2 * (i * n + k), dii = w[2 * (i * n + i)], t = pp + 2 * i;
+      w[t] = b * (w[t] + dii * w[a]);
+      w[t + 1] = b * (w[t + 1] + dii * w[a + 1]);
+      upr += w[a] * w[t] + w[a + 1] * w[t + 1];
+    }
+    const kk = 0.5 * b * upr;
+    // the new pending update: U = u, Q = q, and the kernel's forms QC, QS, UC, US
+    for (let i = k1; i < n; i++) {
+      const a = 2 * (i * n + k), t = 2 * i;
+      const ur = w[a], uim = w[a + 1];
+      const qr = w[pp + t] - kk * ur, qi = w[pp + t + 1] - kk * uim;
+      w[qc + t] = qr; w[qc + t + 1] = -qi; w[qs + t] = qi; w[qs + t + 1] = qr;
+      w[uc + t] = ur; w[uc + t + 1] = -uim; w[us + t] = uim; w[us + t + 1] = ur;
+      w[pu + t] = ur; w[pu + t + 1] = uim; w[pq + t] = qr; w[pq + t + 1] = qi;
+    }
+    pending = true;
+  }
+  if (n > 0) {
+    const last = 2 * ((n - 1) * n + (n - 1)), t = 2 * (n - 1);
+    if (pending) { w[last] -= 2 * (w[pu + t] * w[pq + t] + w[pu + t + 1] * w[pq + t + 1]); w[last + 1] = 0; }
+    d[n - 1] = w[last];
+  }
+  house.set(w.subarray(0, 2 * n * n), 0);
+  return withRealOffDiagonal(n, d, er, ei, house, beta);
+}
+
+/** The diagonal phase fix-up shared by both reductions, and the result record. */
+function withRealOffDiagonal(n: number, d: Float64Array, er: Float64Array, ei: Float64Array, house: Float64Array, beta: Float64Array): TridiagonalReduction {
+  const e = new Float64Array(n);
   // Phase fix-up: δ_0 = 1, δ_{i+1} = δ_i e_i / |e_i| makes T′ = Dᴴ T D real.
   const phase = new Float64Array(2 * n);
   if (n > 0) phase[0] = 1;
@@ -275,10 +361,7 @@ export function tridiagonalQl(d: Float64Array, e: Float64Array, n: number, z: Fl
       e[m] = 0;
     }
   }
-  if (ws !== null && z !== null) {
-    const v = ws.view, st = ws.stride;
-    for (let k = 0; k < n; k++) for (let t = 0; t < n; t++) z[k * n + t] = v[t * st + k];
-  }
+  if (ws !== null && z !== null) ws.readInto(z);
 }
 
 /** Reflectors per block of the back-transformation. */
