@@ -5,6 +5,7 @@ export {
   conjugateFieldWeights, maxSnrWeights, maxSnrWeightsForDirections, minimumVarianceWeights,
   constrainedMinimumVarianceWeights, maxDirectivityWeights, maxGainWeights,
 } from './weights.js';
+export { maxSnrWeightsUnpolarizedSource, matchedFieldWeightsUnpolarizedSource } from './unpolarized.js';
 export type { ProjectionBeamResult, CorrelationBeamResult } from './projection.js';
 export { projectionWeights, estimateInterferenceSubspace, maxSnrWeightsForCorrelation } from './projection.js';
 export type { InterferenceRejectionResult } from './evaluate.js';

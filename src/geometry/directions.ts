@@ -219,3 +219,72 @@ export function unitVectorsFromAngles(thetaRad: ArrayLike<number>, phiRad: Array
   }
   return out;
 }
+
+/**
+ * A set of directions, one entry per direction: the one direction vocabulary of the library.
+ *
+ * @remarks
+ * `thetaRad[k]`, `phiRad[k]` are the angles of direction k (θ from +z, φ from +x toward +y;
+ * docs/conventions.md), both of length M. Sampled port patterns, secondary patterns and
+ * weighted quadrature directions extend this shape. Grid types — a product rule
+ * (`SphereQuadrature`), a θ-φ grid, an embedded-pattern set — hold axes instead (`thetaRad` of
+ * length nθ); {@link weightedDirections} expands a product rule into per-direction form.
+ * @category Geometry
+ */
+export interface Directions {
+  /** Polar angle of each direction [rad], length M. */
+  readonly thetaRad: Float64Array;
+  /** Azimuth of each direction [rad], length M. */
+  readonly phiRad: Float64Array;
+}
+
+/**
+ * Directions with solid-angle quadrature weights: ∮ g dΩ ≈ Σₖ weightSr[k]·g(θₖ, φₖ).
+ * @category Geometry
+ */
+export interface WeightedDirections extends Directions {
+  /** Solid-angle weight of each direction [sr], ≥ 0, length M (summing to 4π for a full-sphere rule). */
+  readonly weightSr: Float64Array;
+}
+
+/** The product-rule shape {@link weightedDirections} expands (a `SphereQuadrature` has it). */
+interface ProductRule {
+  readonly thetaRad: Float64Array;
+  readonly phiRad: Float64Array;
+  readonly weights: Float64Array;
+  readonly thetaCount: number;
+  readonly phiCount: number;
+  readonly count: number;
+}
+
+/**
+ * Per-direction form of a sphere rule: a product rule (θ and φ axes and a weight per node) is
+ * expanded into one (θ, φ, weight) triple per direction, in the rule's own order (direction
+ * k = j·thetaCount + i, θ fastest); weighted directions are returned as they are. The one place
+ * that tells the two forms apart.
+ * @param rule - A product rule (`sphereQuadrature`, `sphereQuadratureForLayout`) or weighted directions.
+ * @returns Per-direction angles [rad] and weights [sr].
+ * @throws {@link DimensionError} if the rule's arrays are inconsistent.
+ * @example
+ * ```ts
+ * const q = weightedDirections(sphereQuadrature(8, 16));
+ * q.weightSr.length, q.weightSr.reduce((a, b) => a + b); // 128, 12.566371 (4π)
+ * ```
+ * @category Geometry
+ */
+export function weightedDirections(rule: ProductRule | WeightedDirections): WeightedDirections {
+  if (rule === null || typeof rule !== 'object') throw new DomainError(`invalid argument "rule": expected a sphere rule or weighted directions, received ${describeValue(rule)}.`);
+  if ('weightSr' in rule) return rule;
+  const { thetaCount, phiCount, count } = rule;
+  if (rule.thetaRad.length !== thetaCount || rule.phiRad.length !== phiCount || rule.weights.length !== count || count !== thetaCount * phiCount) {
+    throw new DimensionError(`invalid argument "quadrature": expected thetaRad of length thetaCount, phiRad of length phiCount and count = thetaCount·phiCount weights, received ${rule.thetaRad.length}, ${rule.phiRad.length}, ${rule.weights.length}.`);
+  }
+  const thetaRad = new Float64Array(count), phiRad = new Float64Array(count);
+  for (let j = 0; j < phiCount; j++) {
+    for (let i = 0; i < thetaCount; i++) {
+      thetaRad[j * thetaCount + i] = rule.thetaRad[i];
+      phiRad[j * thetaCount + i] = rule.phiRad[j];
+    }
+  }
+  return { thetaRad, phiRad, weightSr: rule.weights };
+}

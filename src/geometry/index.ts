@@ -7,10 +7,10 @@ export type {
   LineAxis, UniformLineOptions, RectangularGridSpec, LatticeBoundary, RectangleBoundary, CircleBoundary, HexagonBoundary, LatticeOptions, RingSpec,
 } from './builders.js';
 export { uniformLineLayout, rectangularGridLayout, latticeLayout, triangularLatticeLayout, ringLayout } from './builders.js';
-export type { SphericalAngles, AzimuthElevation, DirectionCosines } from './directions.js';
+export type { SphericalAngles, AzimuthElevation, DirectionCosines, Directions, WeightedDirections } from './directions.js';
 export {
   UNIT_VECTOR_TOLERANCE, unitVectorFromAngles, unitVectorFromDegrees, anglesFromUnitVector, uvFromAngles, unitVectorFromUv,
-  anglesFromUv, unitVectorFromAzEl, azElFromUnitVector, unitVectorsFromAngles,
+  anglesFromUv, unitVectorFromAzEl, azElFromUnitVector, unitVectorsFromAngles, weightedDirections,
 } from './directions.js';
 export type { ThetaPhiGrid, UvGrid, PlaneCut, VisibleDirections } from './grids.js';
 export { evenlySpaced, thetaPhiGrid, uvGrid, visibleDirections, planeCut } from './grids.js';

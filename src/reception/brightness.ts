@@ -10,7 +10,7 @@ import { assertInteger, assertPositive, describeValue } from '../internal/valida
 import { C0_M_PER_S, ETA0_OHM, K_BOLTZMANN_J_PER_K } from '../units/constants.js';
 import { displacementStructure, shiftedBrightnessCorrelations } from './displacement.js';
 import {
-  assertPatternSource, assertQuadrature, sampledPatternSource,
+  assertQuadrature, asPatternSource, isPatternSource,
   type PortPatternSource, type QuadratureDirections, type SampledPortPatterns,
 } from './patterns.js';
 import { matrixView } from '../linalg/cmatrix.js';
@@ -71,13 +71,7 @@ export function brightnessValues(name: string, b: Brightness, q: QuadratureDirec
   return t;
 }
 
-function asSource(name: string, p: PortPatternSource | SampledPortPatterns): PortPatternSource {
-  if (p !== null && typeof p === 'object' && 'fill' in p) {
-    assertPatternSource(name, p);
-    return p;
-  }
-  return sampledPatternSource(p as SampledPortPatterns);
-}
+const asSource = asPatternSource;
 
 /**
  * Correlation matrices E[v vᴴ] at the open-circuit terminals for several
@@ -129,7 +123,7 @@ export function brightnessCorrelations(
   }
   const block = options.blockSize ?? 128;
   assertInteger('options.blockSize', block, 1, 1 << 20);
-  if (!(patterns !== null && 'fill' in patterns)) {
+  if (!isPatternSource(patterns)) {
     const sp = patterns as SampledPortPatterns;
     if (sp.thetaRad.length !== m) {
       throw new DimensionError(`invalid argument "patterns": sampled at ${sp.thetaRad.length} directions but the quadrature has ${m}; sample the patterns on the quadrature's directions.`);

@@ -13,7 +13,7 @@ import {
   type Brightness, type BrightnessOptions, type HorizonOrientation,
 } from './brightness.js';
 import {
-  assertPatternSource, assertQuadrature, sampledPatternSource,
+  assertQuadrature, asPatternSource,
   type PortPatternSource, type QuadratureDirections, type SampledPortPatterns,
 } from './patterns.js';
 import { ohmicLossNoiseCorrelation } from './thermal.js';
@@ -171,10 +171,7 @@ export interface NoiseBudget {
   readonly total: CMatrix;
 }
 
-function asSource(p: PortPatternSource | SampledPortPatterns): PortPatternSource {
-  if (p !== null && typeof p === 'object' && 'fill' in p) { assertPatternSource('input.patterns', p); return p; }
-  return sampledPatternSource(p as SampledPortPatterns);
-}
+const asSource = (p: PortPatternSource | SampledPortPatterns): PortPatternSource => asPatternSource('input.patterns', p);
 
 /**
  * Computes the noise budget of a receiving array at its open-circuit terminals.

@@ -21,9 +21,10 @@ import type { CholeskyResult } from '../linalg/cholesky.js';
 import type { PortGeometry } from './ports.js';
 import { K_BOLTZMANN_J_PER_K } from '../units/constants.js';
 import {
-  assertPatternSource, quadratureDirections, samplePatterns, sampledPatternSource,
+  assertPatternSource, samplePatterns, asPatternSource,
   type PortPatternSource, type QuadratureDirections, type SampledPortPatterns,
 } from './patterns.js';
+import { weightedDirections } from '../geometry/directions.js';
 import { displayable } from '../display/attach.js';
 
 /**
@@ -124,10 +125,12 @@ export interface ReceivingArrayDescription {
 }
 
 /**
- * Result of {@link evaluateReceivingArray}; every dimensional field carries its unit in its name.
+ * What every array evaluation returns — the direct receiving array ({@link evaluateReceivingArray})
+ * and the reflector with an array feed (`evaluateReflectorArrayFeed`) alike: one result shape, so
+ * code that reads beams, checks and units serves both pipelines.
  * @category Reception
  */
-export interface ReceivingArrayEvaluation {
+export interface ArrayEvaluation {
   /** The open-circuit noise budget [V²]. */
   readonly budget: NoiseBudget;
   /** Open-circuit weights used, N×K. */
@@ -136,26 +139,34 @@ export interface ReceivingArrayEvaluation {
   readonly beams: BeamFigures[];
   /** The array's minimum receiver temperature T_rec,min [K]; NaN exactly when the check `minimumReceiverTemperature` failed or array figures were not requested. */
   readonly minimumReceiverTemperatureK: number;
-  /** Embedded element efficiency of each port (linear); empty when they could not be computed (failed check `embeddedElementEfficiency`) or were not requested. */
-  readonly embeddedElementEfficiency: Float64Array;
   /** Physical self-checks (receivingArrayChecks); a failed check marks the figures it names as untrustworthy. */
   readonly checks: PhysicalCheck[];
+  /** The sphere rule of the noise integrals [rad, sr]. */
+  readonly quadrature: QuadratureDirections;
+  /** Unit of every figure, by field name of {@link BeamFigures}. */
+  readonly units: Readonly<Record<keyof BeamFigures, string>>;
+}
+
+/**
+ * Result of {@link evaluateReceivingArray}: the shared {@link ArrayEvaluation} fields and the
+ * direct array's own; every dimensional field carries its unit in its name.
+ * @category Reception
+ */
+export interface ReceivingArrayEvaluation extends ArrayEvaluation {
+  /** Embedded element efficiency of each port (linear); empty when they could not be computed (failed check `embeddedElementEfficiency`) or were not requested. */
+  readonly embeddedElementEfficiency: Float64Array;
   /**
    * Integration error of every figure of every beam: |figure on the evaluation's rule − figure
    * on the refined adaptive rule| with the same weights, in the figure's unit. Empty objects
    * when the ports carry no geometry (no refinement possible).
    */
   readonly integrationErrors: Array<Partial<Record<keyof BeamFigures, number>>>;
-  /** The sphere rule used [rad, sr]. */
-  readonly quadrature: QuadratureDirections;
-  /** Unit of every figure, by field name of {@link BeamFigures}. */
-  readonly units: Readonly<Record<keyof BeamFigures, string>>;
   /** Wall-clock time of the stages [ms]. */
   readonly timingsMs: EvaluationTimings;
 }
 
-/** Units of the BeamFigures fields. */
-const FIGURE_UNITS: Readonly<Record<keyof BeamFigures, string>> = {
+/** Units of the BeamFigures fields. @internal */
+export const FIGURE_UNITS: Readonly<Record<keyof BeamFigures, string>> = {
   systemTemperatureK: 'K', skyTemperatureK: 'K', spilloverTemperatureK: 'K', lossTemperatureK: 'K',
   receiverTemperatureK: 'K', effectiveAreaM2: 'm²', sensitivityM2PerK: 'm²/K', gain: 'linear', directivity: 'linear',
   radiationEfficiency: 'linear', spilloverEfficiency: 'linear', apertureEfficiency: 'linear', snr: 'linear',
@@ -169,8 +180,7 @@ function toQuadrature(q: SphereQuadrature | QuadratureDirections | 'adaptive', d
     }
     return adaptiveSphereRule(d.ports.geometry, frequencyHz, { edgeNormals: d.environment?.edgeNormals });
   }
-  if (q !== null && typeof q === 'object' && 'weights' in q && 'thetaCount' in q) return quadratureDirections(q);
-  return q as QuadratureDirections;
+  return weightedDirections(q);
 }
 
 /** Refinement factor of the node counts of the check rule (common practice: a clearly finer rule). */
@@ -236,7 +246,7 @@ export function evaluateReceivingArray(description: ReceivingArrayDescription): 
   if (d.ports === null || typeof d.ports !== 'object') {
     throw new DomainError(`invalid argument "description.ports": expected {patterns, impedanceOhm}, received ${describeValue(d.ports)}.`);
   }
-  const source = 'fill' in d.ports.patterns ? d.ports.patterns : sampledPatternSource(d.ports.patterns as SampledPortPatterns);
+  const source = asPatternSource('description.ports.patterns', d.ports.patterns);
   assertPatternSource('description.ports.patterns', source);
   if (d.beams === null || typeof d.beams !== 'object') {
     throw new DomainError(`invalid argument "description.beams": expected {thetaRad, phiRad}, received ${describeValue(d.beams)}.`);

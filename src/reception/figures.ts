@@ -6,7 +6,7 @@
  */
 import { ConvergenceError, DimensionError, DomainError, NotPositiveDefiniteError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
-import { choleskyFactor, choleskySolve, type CholeskyResult } from '../linalg/cholesky.js';
+import { choleskyFactor, type CholeskyResult } from '../linalg/cholesky.js';
 import { inverse } from '../linalg/lu.js';
 import { lanczosExtremes } from '../internal/lanczos.js';
 import { solveLowerInPlace, solveUpperInPlace } from '../internal/triangular.js';
@@ -17,7 +17,7 @@ import { wavelengthM } from '../units/convert.js';
 import type { NoiseBudget } from './budget.js';
 import { assertSampledPatterns, type SampledPortPatterns } from './patterns.js';
 import { displayable } from '../display/attach.js';
-import { matrixView } from '../linalg/cmatrix.js';
+import { maxSnrWeightsUnpolarizedSource } from '../beamform/unpolarized.js';
 
 /**
  * Figures of merit of one beam. Temperatures are referred to the isotropic
@@ -226,7 +226,8 @@ function figuresFromForms(
  * Array Processing*, Wiley, 2002, §6.2 (from memory).
  * Argument order (beamPatterns, noise): the response first, the correlation second, as in
  * every weight function (beamform module); the former (noise, beamPatterns) order is still
- * accepted (deprecated overload).
+ * accepted (deprecated overload). The beamformer itself is the beamform module's
+ * {@link maxSnrWeightsUnpolarizedSource}, called with the patterns' θ̂ and φ̂ components.
  * @param beamPatterns - Patterns at the K beam directions, N×K.
  * @param noise - Total noise correlation R_n [V²], N×N Hermitian positive definite.
  * @returns Weights, N×K, each column of unit 2-norm.
@@ -250,50 +251,7 @@ export function maxSnrWeightsUnpolarized(first: SampledPortPatterns | CMatrix, s
   if (noise.rows !== n || noise.cols !== n) {
     throw new DimensionError(`invalid argument "noise": expected ${n}×${n} (the port count of "beamPatterns"), received ${noise.rows}×${noise.cols}.`);
   }
-  const f = choleskyFactor(noise);
-  if (!f.positiveDefinite) {
-    throw new NotPositiveDefiniteError(`invalid argument "noise": the noise correlation is not positive definite (Cholesky pivot ${f.failedPivot}); add receiver or loss noise, or check the budget.`, f.failedPivot);
-  }
-  const kb = beamPatterns.thetaRad.length;
-  // right-hand sides [f_θ(k), f_φ(k)] for every beam: N × 2K
-  const rhs = new Float64Array(2 * n * 2 * kb);
-  const ft = beamPatterns.thetaComponentV.data, fp = beamPatterns.phiComponentV.data;
-  for (let i = 0; i < n; i++) {
-    for (let k = 0; k < kb; k++) {
-      const s = 2 * (i * kb + k), d = 2 * (i * 2 * kb + 2 * k);
-      rhs[d] = ft[s]; rhs[d + 1] = ft[s + 1]; rhs[d + 2] = fp[s]; rhs[d + 3] = fp[s + 1];
-    }
-  }
-  const y = choleskySolve(f, { rows: n, cols: 2 * kb, data: rhs }).data;
-  const out = new Float64Array(2 * n * kb);
-  for (let k = 0; k < kb; k++) {
-    // B = Pᴴ Y (2×2 Hermitian): a = f_θᴴ y_θ, d = f_φᴴ y_φ, b = f_θᴴ y_φ
-    let a = 0, d = 0, br = 0, bi = 0;
-    for (let i = 0; i < n; i++) {
-      const s = 2 * (i * kb + k), t = 2 * (i * 2 * kb + 2 * k);
-      a += ft[s] * y[t] + ft[s + 1] * y[t + 1];
-      d += fp[s] * y[t + 2] + fp[s + 1] * y[t + 3];
-      br += ft[s] * y[t + 2] + ft[s + 1] * y[t + 3];
-      bi += ft[s] * y[t + 3] - ft[s + 1] * y[t + 2];
-    }
-    const bAbs = Math.hypot(br, bi);
-    const lam = (a + d) / 2 + Math.sqrt(((a - d) / 2) ** 2 + bAbs * bAbs);
-    // principal eigenvector u = [b, λ − a] (or a basis vector when b = 0)
-    let u0r: number, u0i: number, u1r: number;
-    if (bAbs > 1e-300 * Math.max(Math.abs(a), Math.abs(d), 1e-300)) { u0r = br; u0i = bi; u1r = lam - a; } else if (a >= d) { u0r = 1; u0i = 0; u1r = 0; } else { u0r = 0; u0i = 0; u1r = 1; }
-    let norm = 0;
-    for (let i = 0; i < n; i++) {
-      const t = 2 * (i * 2 * kb + 2 * k);
-      const wr = y[t] * u0r - y[t + 1] * u0i + y[t + 2] * u1r;
-      const wi = y[t] * u0i + y[t + 1] * u0r + y[t + 3] * u1r;
-      out[2 * (i * kb + k)] = wr; out[2 * (i * kb + k) + 1] = wi;
-      norm += wr * wr + wi * wi;
-    }
-    norm = Math.sqrt(norm);
-    if (!(norm > 0)) throw new DomainError(`beam ${k}: the array has no response in this direction (all patterns are zero); choose another beam direction.`);
-    for (let i = 0; i < n; i++) { out[2 * (i * kb + k)] /= norm; out[2 * (i * kb + k) + 1] /= norm; }
-  }
-  return matrixView(n, kb, out);
+  return maxSnrWeightsUnpolarizedSource(beamPatterns.thetaComponentV, beamPatterns.phiComponentV, noise);
 }
 
 /**

@@ -6,10 +6,10 @@
  */
 import { DimensionError } from '../errors.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
-import { zeros } from '../linalg/cmatrix.js';
 import { adjoint, multiply } from '../linalg/ops.js';
 import { assertFiniteCMatrix, describeValue } from '../internal/validate.js';
 import { assertSampledPatterns, type SampledPortPatterns } from './patterns.js';
+import { matchedFieldWeightsUnpolarizedSource } from '../beamform/unpolarized.js';
 
 /**
  * Conjugate-field (matched-field) open-circuit weights of each beam for an
@@ -24,7 +24,8 @@ import { assertSampledPatterns, type SampledPortPatterns } from './patterns.js';
  * (R_n ∝ I) — the conjugate-field match of the principal polarization — and
  * weighting the match by a taper gives the tapered beam. Convention: y = wᴴx,
  * docs/conventions.md. Source: generalized Rayleigh quotient (H. L. Van Trees,
- * *Optimum Array Processing*, Wiley, 2002, §6.2, from memory).
+ * *Optimum Array Processing*, Wiley, 2002, §6.2, from memory). The beamformer itself is the
+ * beamform module's {@link matchedFieldWeightsUnpolarizedSource}.
  * @param beamPatterns - Patterns at the K beam directions [V], N×K.
  * @param amplitude - Real taper gₙ ≥ 0 per port (dimensionless), length N. @defaultValue all ones
  * @returns Weights, N×K, each column of unit 2-norm (a zero column where the beam pattern vanishes).
@@ -36,42 +37,7 @@ export function matchedFieldWeightsUnpolarized(beamPatterns: SampledPortPatterns
   if (amplitude !== undefined && (amplitude === null || typeof amplitude.length !== 'number' || amplitude.length !== n)) {
     throw new DimensionError(`invalid argument "amplitude": expected ${n} real values (one per port of "beamPatterns"), received ${describeValue(amplitude)}.`);
   }
-  const m = beamPatterns.thetaRad.length;
-  const t = beamPatterns.thetaComponentV.data, f = beamPatterns.phiComponentV.data;
-  const w = zeros(n, m);
-  for (let k = 0; k < m; k++) {
-    let gtt = 0, gff = 0, gre = 0, gim = 0; // Gram matrix [gtt g; g* gff], g = f_θᴴ f_φ
-    for (let i = 0; i < n; i++) {
-      const o = 2 * (i * m + k);
-      gtt += t[o] ** 2 + t[o + 1] ** 2;
-      gff += f[o] ** 2 + f[o + 1] ** 2;
-      gre += t[o] * f[o] + t[o + 1] * f[o + 1];
-      gim += t[o] * f[o + 1] - t[o + 1] * f[o];
-    }
-    // Principal eigenvector (cT, cF) of the 2×2 Hermitian Gram matrix, cF real.
-    const half = (gtt - gff) / 2, gAbs = Math.hypot(gre, gim);
-    const lam = (gtt + gff) / 2 + Math.hypot(half, gAbs);
-    let cTr: number, cTi: number, cF: number;
-    if (gAbs <= 1e-300) {
-      cTr = gtt >= gff ? 1 : 0; cTi = 0; cF = gtt >= gff ? 0 : 1;
-    } else {
-      const s = Math.hypot(gre, gim, lam - gtt);
-      cTr = gre / s; cTi = gim / s; cF = (lam - gtt) / s;
-    }
-    let norm = 0;
-    for (let i = 0; i < n; i++) {
-      const o = 2 * (i * m + k), g = amplitude === undefined ? 1 : amplitude[i];
-      const re = g * (t[o] * cTr - t[o + 1] * cTi + f[o] * cF);
-      const im = g * (t[o] * cTi + t[o + 1] * cTr + f[o + 1] * cF);
-      w.data[o] = re; w.data[o + 1] = im;
-      norm += re * re + im * im;
-    }
-    if (norm > 0) {
-      const s = 1 / Math.sqrt(norm);
-      for (let i = 0; i < n; i++) { const o = 2 * (i * m + k); w.data[o] *= s; w.data[o + 1] *= s; }
-    }
-  }
-  return w;
+  return matchedFieldWeightsUnpolarizedSource(beamPatterns.thetaComponentV, beamPatterns.phiComponentV, amplitude);
 }
 
 /**

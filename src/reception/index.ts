@@ -20,7 +20,7 @@ export type { NoiseEnvironment, SkyAndGroundEnvironmentOptions, LossModel, Eleme
 export { isotropicEnvironment, skyAndGroundEnvironment, arrayNoiseBudget } from './budget.js';
 export type { BeamFigures, BeamFigureOptions, ScanSweepOptions, ScanSweepResult } from './figures.js';
 export { beamFigures, maxSnrWeightsUnpolarized, scanSweep, embeddedElementEfficiencies, minimumReceiverTemperature } from './figures.js';
-export type { ArrayPorts, ReceivingArrayDescription, ReceivingArrayEvaluation, BeamDirections, EvaluationTimings } from './evaluate.js';
+export type { ArrayPorts, ReceivingArrayDescription, ReceivingArrayEvaluation, ArrayEvaluation, BeamDirections, EvaluationTimings } from './evaluate.js';
 export { evaluateReceivingArray } from './evaluate.js';
 export type { ReceivingArrayCheckInput } from './checks.js';
 export { receivingArrayChecks, twissResidual } from './checks.js';

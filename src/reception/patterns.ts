@@ -9,6 +9,7 @@ import type { CMatrix } from '../linalg/cmatrix.js';
 import { assertCMatrix, assertFiniteArray, assertPositive, describeValue } from '../internal/validate.js';
 import type { SphereQuadrature } from '../geometry/quadrature.js';
 import type { ShiftedElementPattern } from './displacement.js';
+import { type Directions, type WeightedDirections, weightedDirections } from '../geometry/directions.js';
 
 /**
  * Embedded open-circuit patterns of N ports sampled at M directions.
@@ -21,11 +22,7 @@ import type { ShiftedElementPattern } from './displacement.js';
  * `phiComponentV` holds fₙ·φ̂ at the M directions (θ from +z, φ from +x toward +y).
  * @category Reception
  */
-export interface SampledPortPatterns {
-  /** Polar angle of each sample direction [rad], length M. */
-  readonly thetaRad: Float64Array;
-  /** Azimuth of each sample direction [rad], length M. */
-  readonly phiRad: Float64Array;
+export interface SampledPortPatterns extends Directions {
   /** fₙ·θ̂ [V], N×M (row = port, column = direction). */
   readonly thetaComponentV: CMatrix;
   /** fₙ·φ̂ [V], N×M. */
@@ -48,6 +45,8 @@ export interface SampledPortPatterns {
  * @category Reception
  */
 export interface PortPatternSource {
+  /** Tells a source from sampled patterns; optional for sources written before it existed (a `fill` method identifies them too). */
+  readonly kind?: 'source';
   /** Number of ports N. */
   readonly portCount: number;
   /** RMS drive current I₀ the patterns are referred to [A]. */
@@ -77,16 +76,32 @@ export interface PortPatternSource {
 }
 
 /**
- * Directions with solid-angle quadrature weights, ∮ g dΩ ≈ Σₖ weightSr[k]·g(θₖ, φₖ).
+ * Directions with solid-angle quadrature weights, ∮ g dΩ ≈ Σₖ weightSr[k]·g(θₖ, φₖ): the
+ * geometry module's {@link WeightedDirections} under the name this module has used.
  * @category Reception
  */
-export interface QuadratureDirections {
-  /** Polar angle of each node [rad], length M. */
-  readonly thetaRad: Float64Array;
-  /** Azimuth of each node [rad], length M. */
-  readonly phiRad: Float64Array;
-  /** Solid-angle weight of each node [sr], ≥ 0, length M (summing to 4π for a full-sphere rule). */
-  readonly weightSr: Float64Array;
+export type QuadratureDirections = WeightedDirections;
+
+/**
+ * Whether port patterns are a {@link PortPatternSource} (computed on demand) rather than
+ * {@link SampledPortPatterns}: the one place that tells the two forms apart.
+ * @internal
+ */
+export function isPatternSource(p: SampledPortPatterns | PortPatternSource): p is PortPatternSource {
+  return p !== null && typeof p === 'object' && ((p as PortPatternSource).kind === 'source' || typeof (p as PortPatternSource).fill === 'function');
+}
+
+/**
+ * Port patterns as a validated {@link PortPatternSource}: a source as it is, sampled patterns
+ * wrapped by {@link sampledPatternSource}.
+ * @internal
+ */
+export function asPatternSource(name: string, p: SampledPortPatterns | PortPatternSource): PortPatternSource {
+  if (isPatternSource(p)) {
+    assertPatternSource(name, p);
+    return p;
+  }
+  return sampledPatternSource(p);
 }
 
 /** @internal Full validation of sampled patterns; returns N. */
@@ -150,9 +165,9 @@ export function assertQuadrature(name: string, q: QuadratureDirections): number 
  * their own sample directions.
  *
  * @remarks
- * Direction k of a request is looked up by its angles; when a request uses the
- * very arrays of the samples (the usual case: the quadrature of the samples)
- * the lookup is an index copy. Requests for directions that are not samples
+ * Direction k of a request is looked up by its angles (a binary search over the samples
+ * sorted by θ); when a request uses the very arrays of the samples (the usual case: the
+ * quadrature of the samples) the lookup is an index copy. Requests for directions that are not samples
  * (within 1e-9 rad, φ modulo 2π) throw: this wrapper never interpolates.
  *
  * @param patterns - The samples (validated here).
@@ -165,21 +180,29 @@ export function sampledPatternSource(patterns: SampledPortPatterns): PortPattern
   const n = assertSampledPatterns('patterns', patterns);
   const m = patterns.thetaRad.length;
   const th = patterns.thetaComponentV.data, ph = patterns.phiComponentV.data;
-  let lookup: Map<string, number> | null = null;
-  const key = (t: number, p: number): string => {
-    const pp = ((p % (2 * Math.PI)) + 2 * Math.PI) % (2 * Math.PI);
-    return `${Math.round(t * 1e9)}:${Math.round(pp * 1e9) % Math.round(2 * Math.PI * 1e9)}`;
+  // Lookup of a requested direction among the samples: sample indices sorted by θ, a binary
+  // search for the θ window (±1e-9 rad), then the φ match modulo 2π inside it. Built on first use.
+  let order: Uint32Array | null = null;
+  const TOL = 1e-9, TWO_PI = 2 * Math.PI;
+  const samePhi = (a: number, b: number): boolean => {
+    const d = Math.abs((((a - b) % TWO_PI) + TWO_PI) % TWO_PI);
+    return d <= TOL || TWO_PI - d <= TOL;
   };
   const indexOf = (t: number, p: number): number => {
-    if (lookup === null) {
-      lookup = new Map();
-      for (let k = 0; k < m; k++) lookup.set(key(patterns.thetaRad[k], patterns.phiRad[k]), k);
+    if (order === null) {
+      order = Uint32Array.from({ length: m }, (_, k) => k).sort((a, b) => patterns.thetaRad[a] - patterns.thetaRad[b]);
     }
-    const k = lookup.get(key(t, p));
-    if (k === undefined) {
-      throw new DomainError(`pattern request at θ = ${t} rad, φ = ${p} rad: this direction is not one of the ${m} sampled directions; include it in the sampled grid (sampled patterns are never interpolated).`);
+    const o = order;
+    let lo = 0, hi = m;
+    while (lo < hi) {
+      const mid = (lo + hi) >>> 1;
+      if (patterns.thetaRad[o[mid]] < t - TOL) lo = mid + 1; else hi = mid;
     }
-    return k;
+    for (let q = lo; q < m && patterns.thetaRad[o[q]] <= t + TOL; q++) {
+      // φ must match even at a pole: the θ̂, φ̂ components there depend on φ.
+      if (samePhi(patterns.phiRad[o[q]], p)) return o[q];
+    }
+    throw new DomainError(`pattern request at θ = ${t} rad, φ = ${p} rad: this direction is not one of the ${m} sampled directions; include it in the sampled grid (sampled patterns are never interpolated).`);
   };
   return {
     portCount: n,
@@ -237,30 +260,14 @@ export function samplePatterns(source: PortPatternSource, thetaRad: Float64Array
 }
 
 /**
- * Expands a product sphere quadrature (geometry module) into one (θ, φ, weight)
- * triple per direction, in the quadrature's own order (direction
- * k = j·thetaCount + i, θ fastest).
+ * Expands a product sphere quadrature into one (θ, φ, weight) triple per direction.
+ * @deprecated Use the geometry module's {@link weightedDirections} (the same expansion, and it
+ * also accepts weighted directions); kept for one minor version.
  * @param quadrature - The rule from sphereQuadrature or sphereQuadratureForLayout.
  * @returns Per-direction angles [rad] and weights [sr].
  * @throws {@link DimensionError} if the rule's arrays are inconsistent.
- * @example
- * ```ts
- * const q = quadratureDirections(sphereQuadrature(8, 16));
- * q.weightSr.length, q.weightSr.reduce((a, b) => a + b); // 128, 12.566371 (4π)
- * ```
  * @category Reception
  */
 export function quadratureDirections(quadrature: SphereQuadrature): QuadratureDirections {
-  const { thetaCount, phiCount, count } = quadrature;
-  if (quadrature.thetaRad.length !== thetaCount || quadrature.phiRad.length !== phiCount || quadrature.weights.length !== count || count !== thetaCount * phiCount) {
-    throw new DimensionError(`invalid argument "quadrature": expected thetaRad of length thetaCount, phiRad of length phiCount and count = thetaCount·phiCount weights, received ${quadrature.thetaRad.length}, ${quadrature.phiRad.length}, ${quadrature.weights.length}.`);
-  }
-  const thetaRad = new Float64Array(count), phiRad = new Float64Array(count);
-  for (let j = 0; j < phiCount; j++) {
-    for (let i = 0; i < thetaCount; i++) {
-      thetaRad[j * thetaCount + i] = quadrature.thetaRad[i];
-      phiRad[j * thetaCount + i] = quadrature.phiRad[j];
-    }
-  }
-  return { thetaRad, phiRad, weightSr: quadrature.weights };
+  return weightedDirections(quadrature);
 }

@@ -8,10 +8,14 @@ import { assertNonNegative, assertPositive } from '../internal/validate.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
 import type { NoiseParametersInput } from '../network/noise.js';
 import { type SphereQuadrature, sphereQuadrature } from '../geometry/quadrature.js';
-import { type QuadratureDirections, quadratureDirections } from '../reception/patterns.js';
+import type { QuadratureDirections } from '../reception/patterns.js';
+import { weightedDirections } from '../geometry/directions.js';
 import type { ArrayPortSource } from '../reception/ports.js';
-import { type LossModel, type NoiseBudget, arrayNoiseBudget } from '../reception/budget.js';
+import { type LossModel, arrayNoiseBudget } from '../reception/budget.js';
 import { type BeamFigures, beamFigures, maxSnrWeightsUnpolarized, minimumReceiverTemperature } from '../reception/figures.js';
+import { type ArrayEvaluation, FIGURE_UNITS } from '../reception/evaluate.js';
+import { receivingArrayChecks } from '../reception/checks.js';
+import { impedancePassivity } from '../network/checks.js';
 import type { Paraboloid } from './paraboloid.js';
 import { type SecondaryPatternOptions, type SecondaryPatterns, secondaryPatternsPhysicalOptics } from './secondary.js';
 
@@ -107,20 +111,20 @@ export interface ReflectorArrayFeedDescription {
 }
 
 /**
- * Result of {@link evaluateReflectorArrayFeed}.
+ * Result of {@link evaluateReflectorArrayFeed}: the shared array-evaluation shape (the noise budget
+ * of the feed ports — sky through the dish, spillover, loss, receivers — weights, beams, T_rec,min,
+ * physical checks, the feed-side rule and units) and the secondary beam patterns.
  * @category Reflector
  */
-export interface ReflectorArrayFeedEvaluation {
-  /** Noise budget of the feed ports (sky through the dish, spillover, loss, receivers) [V²]. */
-  readonly budget: NoiseBudget;
+export interface ReflectorArrayFeedEvaluation extends ArrayEvaluation {
   /** Secondary patterns of every port at the beam directions [V]. */
   readonly beamPatterns: SecondaryPatterns;
-  /** Open-circuit weights used, N×K. */
-  readonly weights: CMatrix;
-  /** Figures per beam (T_sys and parts, A_e, A_e/T_sys, efficiencies with the dish's projected area as the physical area). */
+  /**
+   * The same array as `beams` (figures per beam: T_sys and parts, A_e, A_e/T_sys, efficiencies
+   * with the dish's projected area as the physical area).
+   * @deprecated Read `beams`, the field every array evaluation has; kept for one minor version.
+   */
   readonly figures: BeamFigures[];
-  /** The array feed's minimum receiver temperature T_rec,min [K]. */
-  readonly minimumReceiverTemperatureK: number;
 }
 
 /**
@@ -156,7 +160,7 @@ export function evaluateReflectorArrayFeed(d: ReflectorArrayFeedDescription): Re
     throw new DimensionError(`invalid argument "feed.impedanceOhm": expected ${d.feed.patterns.portCount}×${d.feed.patterns.portCount} (one row per feed port), received ${d.feed.impedanceOhm.rows}×${d.feed.impedanceOhm.cols}.`);
   }
   const rule = d.feedQuadrature ?? reflectorFeedQuadrature(d.dish);
-  const quadrature = 'weightSr' in rule ? rule : quadratureDirections(rule);
+  const quadrature = weightedDirections(rule);
   const dish = d.dish;
   const budget = arrayNoiseBudget({
     patterns: d.feed.patterns,
@@ -182,5 +186,8 @@ export function evaluateReflectorArrayFeed(d: ReflectorArrayFeedDescription): Re
     fluxDensityWPerM2Hz: d.fluxDensityWPerM2Hz,
     minimumReceiverTemperatureK: tMin,
   });
-  return { budget, beamPatterns, weights, figures, minimumReceiverTemperatureK: tMin };
+  const checks = receivingArrayChecks({
+    budget, beams: figures, lossless: d.loss === 'lossless', passivity: impedancePassivity(d.feed.impedanceOhm), minimumReceiverTemperatureK: tMin,
+  });
+  return { budget, beamPatterns, weights, beams: figures, figures, minimumReceiverTemperatureK: tMin, checks, quadrature, units: FIGURE_UNITS };
 }

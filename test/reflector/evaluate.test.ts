@@ -38,6 +38,12 @@ describe('evaluateReflectorArrayFeed', () => {
     });
     // 1e-3: the feed-side quadrature integrates the ground-plane pattern's edge at θ_f = 90° (split rule) and the
     // analytic dipole's Twiss resistance differs from its pattern integral by the wire-radius term (~3e-5).
+    // One result shape (issue 20): the reflector evaluation has the fields of every array evaluation.
+    expect(r.beams).toBe(r.figures);
+    expect(r.checks.map((c) => c.name)).toContain('radiationEfficiency');
+    expect(r.checks.filter((c) => !c.passed)).toEqual([]);
+    expect(r.units.systemTemperatureK).toBe('K');
+    expect(r.quadrature.weightSr.length).toBeGreaterThan(0);
     expect(Math.abs(r.figures[0].systemTemperatureK / 150 - 1)).toBeLessThan(1e-3);
   });
   it('one feed port: spillover and aperture efficiency equal the Kildal factorisation of the same feed pattern', () => {
