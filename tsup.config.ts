@@ -6,7 +6,9 @@ const noExternal = [/^d3-/, 'internmap'];
 export default defineConfig([
   {
     // The library: ESM + CJS + declarations, shared chunks so the error classes are one family across entries.
-    entry: { index: 'src/index.ts', plot: 'src/plot/index.ts', node: 'src/node.ts' },
+    // One entry per module besides the root: `phasewise/linalg`, `phasewise/network`, … (the root barrel
+    // exports everything; the subpaths give generic names such as add or trace an unambiguous home).
+    entry: { index: 'src/index.ts', plot: 'src/plot/index.ts', node: 'src/node.ts', units: 'src/units/index.ts', linalg: 'src/linalg/index.ts', geometry: 'src/geometry/index.ts', pattern: 'src/pattern/index.ts', taper: 'src/taper/index.ts', network: 'src/network/index.ts', element: 'src/element/index.ts', floquet: 'src/floquet/index.ts', reception: 'src/reception/index.ts', beamform: 'src/beamform/index.ts', measure: 'src/measure/index.ts', reflector: 'src/reflector/index.ts', wire: 'src/wire/index.ts', imperfect: 'src/imperfect/index.ts', design: 'src/design/index.ts' },
     format: ['esm', 'cjs'],
     dts: true,
     sourcemap: true,

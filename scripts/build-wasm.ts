@@ -21,7 +21,8 @@ export const MODULES_FILE = join(WASM_DIR, 'modules.ts');
 /** Assembles one .wat text (SIMD enabled, no debug names) and validates it. */
 export async function assembleWat(fileName: string, text: string): Promise<Uint8Array> {
   const wabt = await wabtInit();
-  const mod = wabt.parseWat(fileName, text, { simd: true });
+  // UTF-8 bytes, not the string: wabt reads a string's characters as single bytes, which garbles non-ASCII comments
+  const mod = wabt.parseWat(fileName, new TextEncoder().encode(text), { simd: true });
   try {
     mod.resolveNames();
     mod.validate();

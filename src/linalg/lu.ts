@@ -41,7 +41,8 @@ const LU_BLOCK = 16;
  * A₂₂ −= L₂₁U₁₂ through the shared complex product kernel (its SIMD path for large
  * blocks). Golub & Van Loan, *Matrix Computations*, 4th ed., 2013, §3.4.4 (from memory).
  */
-function factorInPlace(n: number, d: Float64Array, piv: Int32Array): { sign: number; exactlySingular: boolean } {
+/** @internal Blocked LU in place (pivots in `piv`, initialised to the identity by the caller). */
+export function factorInPlace(n: number, d: Float64Array, piv: Int32Array): { sign: number; exactlySingular: boolean } {
   let sign = 1;
   let exactlySingular = false;
   for (let k0 = 0; k0 < n; k0 += LU_BLOCK) {
@@ -146,8 +147,8 @@ export function luFactor(a: CMatrix): LuResult {
   return { n, lu, pivots: piv, permutationSign: sign, singular: exactlySingular || rcond < Number.EPSILON, rcond };
 }
 
-/** Solves A X = B in place given packed LU (no checks); B is n×k. */
-function luSolveRaw(n: number, k: number, lu: Float64Array, piv: Int32Array, b: Float64Array): Float64Array {
+/** Solves A X = B given packed LU (no checks); B is n×k; returns X. @internal */
+export function luSolveRaw(n: number, k: number, lu: Float64Array, piv: Int32Array, b: Float64Array): Float64Array {
   const x = new Float64Array(2 * n * k);
   for (let i = 0; i < n; i++) x.set(b.subarray(2 * piv[i] * k, 2 * (piv[i] + 1) * k), 2 * i * k);
   solveLowerThenUpperInPlace(n, k, lu, true, lu, false, x);

@@ -12,7 +12,8 @@ import { kernelPath } from '../internal/wasm/runtime.js';
 export interface SimdStatus {
   /**
    * `'wasm-simd'`: the matrix product, Hermitian rank-k update, triangular
-   * solves with many right-hand sides, tridiagonal reduction and QL rotations
+   * solves with many right-hand sides, tridiagonal reduction, QL rotations and
+   * the Jacobi sweeps of the SVD
    * run on WebAssembly 128-bit SIMD (f64x2) kernels; `'scalar'`: every
    * operation runs on the TypeScript loops (same results to rounding, large
    * operations several times slower).

@@ -5,6 +5,7 @@
  */
 import { ConvergenceError, DimensionError } from '../errors.js';
 import { assertFiniteCMatrix, assertNonNegative } from '../internal/validate.js';
+import { simdJacobiSweeps } from '../internal/jacobi-wasm.js';
 import type { CMatrix } from './cmatrix.js';
 import { matrixView } from './cmatrix.js';
 
@@ -42,6 +43,10 @@ function jacobiColumns(g: Float64Array, vt: Float64Array, m: number, n: number):
   const tol = Math.max(EPS * Math.sqrt(m), EPS);
   const m2 = 2 * m, n2 = 2 * n;
   const maxSweeps = 80;
+  // the same sweeps on the WebAssembly SIMD kernel where it runs (wasm/jacobi.wat)
+  const simd = n > 1 ? simdJacobiSweeps(g, vt, m, n, tol, maxSweeps) : 0;
+  if (simd > maxSweeps) throw nonConvergence(maxSweeps);
+  if (simd > 0) return simd;
   for (let sweep = 1; sweep <= maxSweeps; sweep++) {
     let rotated = false;
     for (let p = 0; p < n - 1; p++) {
@@ -88,7 +93,11 @@ function jacobiColumns(g: Float64Array, vt: Float64Array, m: number, n: number):
     }
     if (!rotated) return sweep;
   }
-  throw new ConvergenceError(`svd: one-sided Jacobi did not converge within ${maxSweeps} sweeps; the input may contain values near overflow or underflow.`);
+  throw nonConvergence(maxSweeps);
+}
+
+function nonConvergence(maxSweeps: number): ConvergenceError {
+  return new ConvergenceError(`svd: one-sided Jacobi did not converge within ${maxSweeps} sweeps; the input may contain values near overflow or underflow.`);
 }
 
 /**

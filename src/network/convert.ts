@@ -20,10 +20,14 @@ import {
   type Multiport, type MultiportForm, type WaveDefinition,
   assertMultiport, packReferences, voltageCurrentCoefficients, waveCoefficients, withFields,
 } from './multiport.js';
+import { factorInPlace, luSolveRaw } from '../linalg/lu.js';
 
 function singular(what: string, idx: number, net: { frequencyHz: Float64Array }, remedy: string): SingularMatrixError {
   return new SingularMatrixError(`${what} is singular at frequency index ${idx} (${hzText(net.frequencyHz[idx])}); ${remedy}.`, idx);
 }
+
+/** Port count from which the Z/Y → S conversion uses the blocked LU instead of the small-matrix solver. */
+const BLOCKED_SOLVE_MIN_PORTS = 24;
 
 /** Scattering stack of `net` with respect to its own references and wave definition. @internal */
 export function scatteringStack(net: Multiport): Float64Array {
@@ -64,7 +68,13 @@ export function scatteringStack(net: Multiport): Float64Array {
         lhs[l] += dl[2 * i]; lhs[l + 1] += dl[2 * i + 1];
         rhs[o + l] -= sr * dr[2 * i]; rhs[o + l + 1] -= sr * dr[2 * i + 1];
       }
-      if (solveSmallInPlace(n, n, lhs, 0, rhs, k * nn) >= 0) throw fail(k);
+      if (n >= BLOCKED_SOLVE_MIN_PORTS) {
+        // Large port counts (array impedance matrices): the blocked LU of the complex core (its
+        // SIMD product kernel does the N³ work); the scalar small-matrix solver is for few ports.
+        const piv = Int32Array.from({ length: n }, (_, i) => i);
+        if (factorInPlace(n, lhs, piv).exactlySingular) throw fail(k);
+        rhs.set(luSolveRaw(n, n, lhs, piv, rhs.subarray(o, o + 2 * nn)), o);
+      } else if (solveSmallInPlace(n, n, lhs, 0, rhs, k * nn) >= 0) throw fail(k);
     }
     return rhs;
   }

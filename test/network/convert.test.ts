@@ -2,7 +2,8 @@ import { describe, it, expect } from 'vitest';
 import { Complex } from 'complex.js';
 import { createMultiport, multiportMatrix } from '../../src/network/multiport.js';
 import { convertMultiport, renormalizeMultiport } from '../../src/network/convert.js';
-import { fromRows, entry, transpose, identity, multiply } from '../../src/linalg/index.js';
+import { fromRows, entry, transpose, identity, multiply, add, subtract, scale, solve } from '../../src/linalg/index.js';
+import { randomPassiveImpedance } from './helpers.js';
 import { DomainError, SingularMatrixError, DimensionError } from '../../src/errors.js';
 import { expectCMatrixClose, randomMatrix } from '../helpers/matchers.js';
 import { maxAbsDifference } from '../../src/linalg/ops.js';
@@ -142,5 +143,21 @@ describe('typed errors', () => {
     expect(() => createMultiport('impedance', [1], [fromRows([[NaN]])])).toThrow(DomainError);
     expect(() => createMultiport('impedance', [1, 2], [identity(1)])).toThrow(DimensionError);
     expect(() => convertMultiport(createMultiport('impedance', [1], [identity(3)]), 'chain')).toThrow(DimensionError);
+  });
+});
+
+describe('large port counts', () => {
+  it('Z → S for 60 ports (blocked LU path) equals (Z + Z₀)⁻¹(Z − Z₀) for real equal references', () => {
+    // Power waves with a real Z₀: S = (Z + Z₀I)⁻¹(Z − Z₀I) (Kurokawa 1965; Pozar §4.3, from memory),
+    // computed here with the general solver, not the conversion under test.
+    const n = 60;
+    const z = randomPassiveImpedance(n, 91);
+    const z0 = 50;
+    const s = multiportMatrix(convertMultiport(createMultiport('impedance', [1e9], [z]), 'scattering'), 0);
+    const plus = add(z, scale(identity(n), z0)), minus = subtract(z, scale(identity(n), z0));
+    expectCMatrixClose(s, solve(plus, minus), { rtol: 1e-11 });
+    // and back again
+    const back = multiportMatrix(convertMultiport(createMultiport('scattering', [1e9], [s]), 'impedance'), 0);
+    expectCMatrixClose(back, z, { rtol: 1e-10 });
   });
 });

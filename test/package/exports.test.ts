@@ -60,6 +60,21 @@ describe('built package', () => {
     }
   });
 
+  it('every module has a subpath (phasewise/linalg, …) whose exports are the same bindings as the root (one class family)', async () => {
+    const core = await import(pathToFileURL(join(dist, 'index.js')).href);
+    const modules = Object.keys(pkg.exports).filter((k) => !['.', './plot', './node', './package.json'].includes(k)).map((k) => k.slice(2));
+    expect(modules.length).toBeGreaterThanOrEqual(15);
+    for (const m of modules) {
+      const sub = await import(pathToFileURL(join(dist, `${m}.js`)).href);
+      const names = Object.keys(sub);
+      expect(names.length, m).toBeGreaterThan(0);
+      for (const name of names) expect(sub[name], `${m}.${name}`).toBe(core[name]);
+    }
+    // The generic names have an unambiguous home.
+    const linalg = await import(pathToFileURL(join(dist, 'linalg.js')).href);
+    for (const name of ['add', 'scale', 'trace', 'entry']) expect(typeof linalg[name], name).toBe('function');
+  });
+
   it('ESM entries share one error family across phasewise and phasewise/node', async () => {
     const core = await import(pathToFileURL(join(dist, 'index.js')).href);
     const node = await import(pathToFileURL(join(dist, 'node.js')).href);

@@ -90,6 +90,7 @@ export function reportHtml(ev: DesignEvaluation, figures: readonly ReportFigure[
     ['band', bandText, ''],
     ['noise bandwidth', num(ev.bandwidthHz / 1e6, 6), 'MHz'],
     ['elements', String(ev.elementCount), ''],
+    ...(ev.frequencies[0].polarization ? [['polarisations', `2 (crossed dipoles: ports X and Y per element, ${2 * ev.elementCount} ports)`, '']] : []),
     ...(ev.failures ? [['failed elements', `${ev.failures.failedElements.length} (${ev.failures.termination}): ${ev.failures.failedElements.slice(0, 20).join(', ')}${ev.failures.failedElements.length > 20 ? ', …' : ''}`, '']] : []),
     ['beamformer', ev.beamformer, ''],
     ['beams', `${ev.beams.thetaDeg.length} (${ev.beams.kind})`, ''],
@@ -98,9 +99,11 @@ export function reportHtml(ev: DesignEvaluation, figures: readonly ReportFigure[
     beamLabel(ev, k), num(s.worstSensitivityM2PerK, 4), num(s.worstFrequencyHz * scale, 6), num(s.meanSensitivityM2PerK, 4),
     num(s.bandAverageSensitivityM2PerK, 4), num(s.worstGainOverTemperatureDbPerK, 4), num(s.worstSefdJy, 4),
     ...(s.worstFailureLossDb !== undefined ? [num(s.worstFailureLossDb, 4)] : []),
+    ...(s.worstIxrDb !== undefined ? [s.worstIxrDb >= 300 ? '∞' : num(s.worstIxrDb, 4)] : []),
   ]);
   const bandTable = tableHtml(['beam', 'worst A_e/T_sys [m²/K]', `at [${unit}]`, 'mean A_e/T_sys [m²/K]', 'band-average A_e/T_sys [m²/K]', 'worst G/T [dB/K]', 'worst SEFD [Jy]',
-    ...(ev.bandSummary[0]?.worstFailureLossDb !== undefined ? ['worst failure loss of A_e/T_sys [dB]'] : [])], bandRows);
+    ...(ev.bandSummary[0]?.worstFailureLossDb !== undefined ? ['worst failure loss of A_e/T_sys [dB]'] : []),
+    ...(ev.bandSummary[0]?.worstIxrDb !== undefined ? ['worst IXR of the X/Y pair [dB]'] : [])], bandRows);
   const hasAp = ev.frequencies[0].beams[0].apertureEfficiency !== undefined;
   const perFrequency = ev.reportFrequencyIndices.map((i) => ev.frequencies[i]).map((r) => {
     const rows = r.beams.map((b, k) => [

@@ -14,7 +14,7 @@
  * @internal
  * @module
  */
-import { rotateWasm, tridiagWasm, ztileWasm } from './modules.js';
+import { jacobiWasm, rotateWasm, tridiagWasm, ztileWasm } from './modules.js';
 
 /**
  * Switch for tests and benchmarks: with `enabled` false every kernel reports
@@ -23,7 +23,7 @@ import { rotateWasm, tridiagWasm, ztileWasm } from './modules.js';
 export const wasmSettings = { enabled: true };
 
 /** The kernel modules, by name (the .wat file name). */
-const SOURCES = { ztile: ztileWasm, tridiag: tridiagWasm, rotate: rotateWasm } as const;
+const SOURCES = { ztile: ztileWasm, tridiag: tridiagWasm, rotate: rotateWasm, jacobi: jacobiWasm } as const;
 /** Name of a kernel module. */
 export type KernelName = keyof typeof SOURCES;
 
