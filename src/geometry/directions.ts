@@ -247,13 +247,23 @@ export interface WeightedDirections extends Directions {
   readonly weightSr: Float64Array;
 }
 
-/** The product-rule shape {@link weightedDirections} expands (a `SphereQuadrature` has it). */
-interface ProductRule {
+/**
+ * The product-rule shape {@link weightedDirections} expands (a `SphereQuadrature` has it): θ and
+ * φ axes and one weight per node.
+ * @category Geometry
+ */
+export interface ProductRule {
+  /** θ axis [rad], length thetaCount. */
   readonly thetaRad: Float64Array;
+  /** φ axis [rad], length phiCount. */
   readonly phiRad: Float64Array;
+  /** Weight of node k = j·thetaCount + i [sr], length count. */
   readonly weights: Float64Array;
+  /** Number of θ nodes. */
   readonly thetaCount: number;
+  /** Number of φ nodes. */
   readonly phiCount: number;
+  /** thetaCount·phiCount. */
   readonly count: number;
 }
 

@@ -7,7 +7,7 @@ export type {
   LineAxis, UniformLineOptions, RectangularGridSpec, LatticeBoundary, RectangleBoundary, CircleBoundary, HexagonBoundary, LatticeOptions, RingSpec,
 } from './builders.js';
 export { uniformLineLayout, rectangularGridLayout, latticeLayout, triangularLatticeLayout, ringLayout } from './builders.js';
-export type { SphericalAngles, AzimuthElevation, DirectionCosines, Directions, WeightedDirections } from './directions.js';
+export type { SphericalAngles, AzimuthElevation, DirectionCosines, Directions, WeightedDirections, ProductRule } from './directions.js';
 export {
   UNIT_VECTOR_TOLERANCE, unitVectorFromAngles, unitVectorFromDegrees, anglesFromUnitVector, uvFromAngles, unitVectorFromUv,
   anglesFromUv, unitVectorFromAzEl, azElFromUnitVector, unitVectorsFromAngles, weightedDirections,

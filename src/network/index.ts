@@ -10,7 +10,7 @@ export type { InterpolationRule } from './interpolate.js';
 export { interpolateMultiport } from './interpolate.js';
 export type { NetworkCheckResult, ImpedancePassivity } from './checks.js';
 export { checkReciprocity, checkPassivity, checkLossless, impedancePassivity } from './checks.js';
-export type { TheveninEquivalent, NortonEquivalent, LoadResponseResult, TerminatedSourceEquivalent, PortExcitation } from './sources.js';
+export type { TheveninEquivalent, NortonEquivalent, LoadResponseResult, TerminatedSourceEquivalent, PortExcitation, IncidentWaveExcitation, PortCurrentExcitation } from './sources.js';
 export { nortonFromThevenin, theveninFromNorton, loadResponse, terminateSourcePorts, availablePower, mismatchFactor, activeReflection } from './sources.js';
 export type { TwoPortNoiseParameters, NoiseParametersInput, NoiseCorrelationForm, CascadeStage } from './noise.js';
 export {

@@ -47,7 +47,7 @@ export interface NoiseParametersInput {
   readonly minimumNoiseTemperatureK: number;
   /** Equivalent noise resistance R_n [Ω], ≥ 0. */
   readonly noiseResistanceOhm: number;
-  /** Optimum source admittance Y_opt [S], real part > 0 (realisability: {@link noiseParameterProblem}). */
+  /** Optimum source admittance Y_opt [S], real part > 0, with T_min ≤ 4·T0·R_n·Re Y_opt (realisability). */
   readonly optimumSourceAdmittanceS: ComplexLike;
 }
 

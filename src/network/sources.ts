@@ -334,9 +334,29 @@ export function mismatchFactor(sourceOhm: ComplexLike, loadOhm: ComplexLike): nu
  *   pseudo-waves). A scanned transmit excitation is Iₙ = exp(−j k r̂₀·rₙ).
  * @category Network
  */
-export type PortExcitation =
-  | { readonly kind: 'incidentWaves'; readonly waves: CMatrix }
-  | { readonly kind: 'portCurrents'; readonly currents: CMatrix };
+export type PortExcitation = IncidentWaveExcitation | PortCurrentExcitation;
+
+/**
+ * Ports driven by incident waves (see {@link PortExcitation}).
+ * @category Network
+ */
+export interface IncidentWaveExcitation {
+  /** Tag of the excitation kind. */
+  readonly kind: 'incidentWaves';
+  /** Incident waves a, N×K [√W], in the network's wave definition and references; every entry ≠ 0. */
+  readonly waves: CMatrix;
+}
+
+/**
+ * Ports driven by port currents (see {@link PortExcitation}).
+ * @category Network
+ */
+export interface PortCurrentExcitation {
+  /** Tag of the excitation kind. */
+  readonly kind: 'portCurrents';
+  /** Port currents I, N×K [A], into the ports; every entry ≠ 0. */
+  readonly currents: CMatrix;
+}
 
 /**
  * Active reflection coefficient of every port for one or many fixed excitations: Γₙ = bₙ/aₙ,

@@ -13,7 +13,7 @@ import {
 import { readCorrelationMatrixFile } from '../../measure/node.js';
 import { parseTextFile } from '../../internal/node.js';
 import { janskyToSi } from '../../units/convert.js';
-import { zeros } from '../../linalg/cmatrix.js';
+import { identity } from '../../linalg/cmatrix.js';
 import { column } from '../../linalg/ops.js';
 import { num, table } from '../format.js';
 import { UsageError } from '../errors.js';
@@ -122,7 +122,8 @@ export function runReceiverNoise(hotFile: string, coldFile: string, hotK: number
   const hot = readCorrelationMatrixFile(hotFile), cold = readCorrelationMatrixFile(coldFile);
   const reduction = receiverNoiseFromHotCold({ hot, cold, hotTemperatureK: hotK, coldTemperatureK: coldK });
   const n = hot.rows;
-  const perChannel = Array.from({ length: n }, (_, i) => ({ beam: `channel ${i + 1}`, receiverTemperatureK: beamReceiverTemperature(reduction, unitVector(n, i)) }));
+  const eye = identity(n);
+  const perChannel = Array.from({ length: n }, (_, i) => ({ beam: `channel ${i + 1}`, receiverTemperatureK: beamReceiverTemperature(reduction, column(eye, i)) }));
   let beams: ReceiverNoiseBeam[] = [];
   if (weightsFile !== undefined) {
     const w = readCorrelationMatrixFile(weightsFile);
@@ -130,12 +131,6 @@ export function runReceiverNoise(hotFile: string, coldFile: string, hotK: number
     beams = Array.from({ length: w.cols }, (_, b) => ({ beam: `beam ${b + 1}`, receiverTemperatureK: beamReceiverTemperature(reduction, column(w, b)) }));
   }
   return { channels: n, perChannel, beams, reduction };
-}
-
-function unitVector(n: number, i: number) {
-  const e = zeros(n, 1);
-  e.data[2 * i] = 1;
-  return e;
 }
 
 /** Human-readable rendering of the matrix Y-factor. @internal */
