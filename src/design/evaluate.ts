@@ -11,7 +11,7 @@ import type { PhysicalCheck } from '../checks.js';
 import type { WireArrayPortSource } from '../wire/patterns.js';
 import { NumericError } from '../errors.js';
 import { layoutDiameterM, sphereQuadrature, sphereQuadratureForLayout, sphereQuadratureOrder, type SphereQuadrature } from '../geometry/index.js';
-import { displayable } from '../display/attach.js';
+import { displayable, restoreDisplay } from '../display/attach.js';
 import { gratingLobeCircles } from '../geometry/gratingLobes.js';
 import { createMultiport } from '../network/multiport.js';
 import { convertMultiport } from '../network/convert.js';
@@ -629,7 +629,8 @@ export function assembleDesignEvaluation(prepared: PreparedDesign, frequencies: 
       u: Array.from(b.u), v: Array.from(b.v), ...(b.stepUV !== undefined ? { stepUV: b.stepUV } : {}),
     },
     positionsM: Array.from({ length: p.layout.count }, (_, i) => Array.from(p.layout.positionsM.subarray(3 * i, 3 * i + 3))),
-    frequencies: [...frequencies],
+    // Results from worker threads or shards arrive as plain data: give them their printed form again.
+    frequencies: frequencies.map((r) => restoreDisplay(r)),
     bandSummary,
     failedChecks: frequencies.flatMap((r) => r.checks.filter((c) => !c.passed).map((c) => ({ ...c, frequencyHz: r.frequencyHz }))),
   };

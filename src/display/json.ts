@@ -4,6 +4,7 @@
  */
 import { Complex } from 'complex.js';
 import { ParseError } from '../errors.js';
+import { parseJsonText } from '../internal/json.js';
 import { displayable } from './attach.js';
 import { resultKind } from './format.js';
 
@@ -50,7 +51,7 @@ function revive(key: string, v: unknown): unknown {
  * docs/display.md.
  * @param text - JSON text.
  * @returns The result as plain data on its display prototype.
- * @throws {@link ParseError} if the text is not JSON.
+ * @throws {@link ParseError} if the text is not JSON (with the line and column of the first problem).
  * @example
  * ```ts
  * const z = fromRows([[50, { re: 0, im: 25 }]]);
@@ -60,9 +61,14 @@ function revive(key: string, v: unknown): unknown {
  */
 export function resultFromJSON(text: string): unknown {
   if (typeof text !== 'string') throw new ParseError(`invalid argument "text": expected JSON text (a string), received ${typeof text}.`);
-  try {
-    return JSON.parse(text, revive) as unknown;
-  } catch (e) {
-    throw new ParseError(`invalid argument "text": not valid JSON (${e instanceof Error ? e.message : String(e)}).`);
-  }
+  return reviveTree('', parseJsonText(text, 'the result text'));
+}
+
+/** Revives a parsed tree bottom-up, as a JSON.parse reviver would. */
+function reviveTree(key: string, v: unknown): unknown {
+  if (v === null || typeof v !== 'object') return v;
+  if (Array.isArray(v)) return v.map((x, i) => reviveTree(String(i), x));
+  const r = v as Record<string, unknown>;
+  for (const k of Object.keys(r)) r[k] = reviveTree(k, r[k]);
+  return revive(key, r);
 }

@@ -6,7 +6,7 @@ import { describe, it, expect } from 'vitest';
 import { inspect } from 'node:util';
 import {
   evaluateDesign, validateDesign, evaluateReceivingArray, dipoleArrayPorts, skyAndGroundEnvironment, sphereQuadrature,
-  show, resultFromJSON, type DesignEvaluation,
+  show, resultFromJSON, restoreDisplay, prepareDesign, evaluateDesignFrequency, assembleDesignEvaluation, type DesignEvaluation,
 } from '../../src/index.js';
 
 const C0 = 299792458;
@@ -51,10 +51,34 @@ describe('design evaluation', () => {
     const back = resultFromJSON(JSON.stringify(ev)) as DesignEvaluation;
     expect(back).toEqual(ev);
     expect(inspect(back)).toBe(inspect(ev));
+    // a report's figures.json, written as src/cli/commands/evaluate.ts writes it, reads back the same way
+    const report = resultFromJSON(JSON.stringify({ format: 'phasewise-report', version: '0', ...ev }, null, 1)) as DesignEvaluation;
+    expect(inspect(report)).toBe(inspect(ev));
+    expect(report.frequencies).toEqual(ev.frequencies);
     const cloned = structuredClone(ev);
     expect(cloned).toEqual(ev);
     expect(show(cloned)).toBe(show(ev));
     expect(JSON.stringify(cloned)).toBe(JSON.stringify(ev));
+  });
+});
+
+describe('results that crossed a worker thread', () => {
+  it('assembleDesignEvaluation gives structured-cloned frequencies their printed form again', () => {
+    const prepared = prepareDesign(design, { fileName: 'line.json' });
+    const direct = prepared.frequenciesHz.length;
+    const local = Array.from({ length: direct }, (_, i) => evaluateDesignFrequency(prepared, i));
+    const transferred = local.map((r) => structuredClone(r)); // what workerpool's postMessage does
+    expect(inspect(transferred[0].beams[0])).not.toMatch(/^Beam figures/);
+    const ev = assembleDesignEvaluation(prepared, transferred);
+    expect(ev).toEqual(assembleDesignEvaluation(prepared, local));
+    expect(inspect(ev.frequencies[0])).toBe(inspect(local[0]));
+    expect(inspect(ev.frequencies[0].beams[0])).toMatch(/^Beam figures/);
+  });
+  it('restoreDisplay leaves the data unchanged and prints them again', () => {
+    const ev = evaluateDesign(design, { fileName: 'line.json' });
+    const back = restoreDisplay(structuredClone(ev));
+    expect(back).toEqual(ev);
+    expect(inspect(back.frequencies[1].beams[2])).toBe(inspect(ev.frequencies[1].beams[2]));
   });
 });
 

@@ -148,6 +148,6 @@ describe('result kinds print with names and units', () => {
     expect(show(z, { digits: 2 }).split('\n')[0]).toBe('CMatrix 2×2 complex, ‖A‖_F = 5.5');
   });
   it('resultFromJSON rejects text that is not JSON', () => {
-    expect(() => resultFromJSON('{')).toThrow(/not valid JSON/);
+    expect(() => resultFromJSON('{')).toThrow(/the result text is not valid JSON/);
   });
 });
