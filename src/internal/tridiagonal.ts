@@ -27,6 +27,29 @@ export interface TridiagonalReduction {
 }
 
 /**
+ * One Householder reflector of the tridiagonal reduction (both the scalar and the SIMD pass):
+ * for the column head x = (xr, xi) and the squared norm σ of the rest, u₀ ← x + e^{j arg x}·α
+ * with α = √(|x|² + σ), β = 1/(α(α + |x|)), and the new off-diagonal entry −e^{j arg x}·α
+ * (Golub & Van Loan, *Matrix Computations*, 4th ed., 2013, §5.1.13, complex form, from memory).
+ * @returns β.
+ */
+function householderStep(
+  w: Float64Array, x0: number, xr: number, xi: number, sigma: number, k: number,
+  beta: Float64Array, er: Float64Array, ei: Float64Array,
+): number {
+  const ax0 = Math.sqrt(xr * xr + xi * xi);
+  const alpha = Math.sqrt(ax0 * ax0 + sigma);
+  let phr = 1, phi = 0;
+  if (ax0 > 0) { phr = xr / ax0; phi = xi / ax0; }
+  w[x0] = xr + phr * alpha;
+  w[x0 + 1] = xi + phi * alpha;
+  const b = 1 / (alpha * (alpha + ax0));
+  beta[k] = b;
+  er[k] = -phr * alpha; ei[k] = -phi * alpha;
+  return b;
+}
+
+/**
  * Reduces the Hermitian matrix held in the LOWER triangle of `w` (interleaved
  * row-major n×n; overwritten) to real symmetric tridiagonal form
  * A = (Q D) T′ (Q D)ᴴ, Q = H_0 H_1 ⋯ H_{n−2}, D = diag(δ) unitary.
@@ -65,15 +88,7 @@ export function reduceHermitianToTridiagonal(house: Float64Array, n: number): Tr
       d[k] = w[2 * (k * n + k)];
       continue;
     }
-    const ax0 = Math.sqrt(xr * xr + xi * xi);
-    const alpha = Math.sqrt(ax0 * ax0 + sigma);
-    let phr = 1, phi = 0;
-    if (ax0 > 0) { phr = xr / ax0; phi = xi / ax0; }
-    w[x0] = xr + phr * alpha;
-    w[x0 + 1] = xi + phi * alpha;
-    const b = 1 / (alpha * (alpha + ax0));
-    beta[k] = b;
-    er[k] = -phr * alpha; ei[k] = -phi * alpha;
+    const b = householderStep(w, x0, xr, xi, sigma, k, beta, er, ei);
     d[k] = w[2 * (k * n + k)];
     // p = A u over the trailing block, lower triangle only (Hermitian matvec).
     p.fill(0, 2 * k1, n2);
@@ -186,15 +201,7 @@ function reduceFused(house: Float64Array, n: number, ws: TridiagWorkspace): Trid
       }
       continue;
     }
-    const ax0 = Math.sqrt(xr * xr + xi * xi);
-    const alpha = Math.sqrt(ax0 * ax0 + sigma);
-    let phr = 1, phi = 0;
-    if (ax0 > 0) { phr = xr / ax0; phi = xi / ax0; }
-    w[x0] = xr + phr * alpha;
-    w[x0 + 1] = xi + phi * alpha;
-    const b = 1 / (alpha * (alpha + ax0));
-    beta[k] = b;
-    er[k] = -phr * alpha; ei[k] = -phi * alpha;
+    const b = householderStep(w, x0, xr, xi, sigma, k, beta, er, ei);
     // v = u (column k below the diagonal) in the kernel's four forms; p = 0
     for (let i = k1; i < n; i++) {
       const a = 2 * (i * n + k), vr = w[a], vi = w[a + 1], t = 2 * i;
