@@ -26,6 +26,16 @@ export interface TridiagonalReduction {
   readonly phase: Float64Array;
 }
 
+/** Squared norm of column k below its first sub-diagonal entry (rows k + 2 … n − 1). */
+function tailNorm2(w: Float64Array, n: number, k: number): number {
+  let sigma = 0;
+  for (let i = k + 2; i < n; i++) {
+    const t = 2 * (i * n + k);
+    sigma += w[t] * w[t] + w[t + 1] * w[t + 1];
+  }
+  return sigma;
+}
+
 /**
  * One Householder reflector of the tridiagonal reduction (both the scalar and the SIMD pass):
  * for the column head x = (xr, xi) and the squared norm σ of the rest, u₀ ← x + e^{j arg x}·α
@@ -77,11 +87,7 @@ export function reduceHermitianToTridiagonal(house: Float64Array, n: number): Tr
   for (let k = 0; k < n - 1; k++) {
     const k1 = k + 1;
     const x0 = 2 * (k1 * n + k);
-    let sigma = 0;
-    for (let i = k1 + 1; i < n; i++) {
-      const t = 2 * (i * n + k);
-      sigma += w[t] * w[t] + w[t + 1] * w[t + 1];
-    }
+    const sigma = tailNorm2(w, n, k);
     const xr = w[x0], xi = w[x0 + 1];
     if (sigma === 0) {
       er[k] = xr; ei[k] = xi;
@@ -184,11 +190,7 @@ function reduceFused(house: Float64Array, n: number, ws: TridiagWorkspace): Trid
       }
     }
     const x0 = 2 * (k1 * n + k);
-    let sigma = 0;
-    for (let i = k1 + 1; i < n; i++) {
-      const t = 2 * (i * n + k);
-      sigma += w[t] * w[t] + w[t + 1] * w[t + 1];
-    }
+    const sigma = tailNorm2(w, n, k);
     const xr = w[x0], xi = w[x0 + 1];
     d[k] = w[2 * (k * n + k)];
     if (sigma === 0) {
