@@ -482,7 +482,7 @@ export function evaluateDesignFrequency(prepared: PreparedDesign, index: number)
     // wire elements add their own solution checks (reciprocity, passivity, thin-wire validity)
     checks: 'solution' in allPorts ? [...ev.checks, ...(allPorts as WireArrayPortSource).solution.checks] : ev.checks,
   };
-  const pol = designPolarizationAt(p, ports);
+  const pol = designPolarizationAt(p, ports, ev.budget);
   if (pol) out.polarization = pol;
   if (kept) {
     // The same frequency without the failures: the cost of the failures per beam.

@@ -1,11 +1,13 @@
 /**
  * Polarimetric figures of a dual-polarised design (crossed dipoles): the Jones
  * matrix of each beam direction's X/Y beam pair, its intrinsic
- * cross-polarisation ratio and the Ludwig-3 cross-polar level of each beam.
+ * cross-polarisation ratio, the Ludwig-3 cross-polar level of each beam and the sensitivity of
+ * each polarisation's beam.
  * @module
  */
 import type { CMatrix } from '../linalg/cmatrix.js';
-import { samplePatterns, matchedFieldWeightsUnpolarized, type ArrayPortSource } from '../reception/index.js';
+import { samplePatterns, matchedFieldWeightsUnpolarized, beamFigures, type ArrayPortSource, type NoiseBudget } from '../reception/index.js';
+import { systemEquivalentFluxDensityJy } from '../reception/merit.js';
 import { beamJonesMatrices, intrinsicCrossPolarizationRatio, jonesCrossPolarRatios } from '../imperfect/polarization.js';
 import { powerToDb } from '../units/convert.js';
 import type { PreparedDesign } from './build.js';
@@ -33,6 +35,18 @@ export interface DesignPolarization {
   readonly crossPolarXDb: number[];
   /** Ludwig-3 cross- over co-polar power of the Y beam, |J₁₀|²/|J₁₁|², per beam [dB] (−300: zero). */
   readonly crossPolarYDb: number[];
+  /**
+   * Sensitivity A_e/T_sys of the X beam for an unpolarised source, per beam [m²/K] (the
+   * receiving-array definition of the reception module: 2k_B·SNR/S with S the total flux of
+   * both polarisations, so an ideal single-polarisation beam collects half of it).
+   */
+  readonly sensitivityXM2PerK: number[];
+  /** Sensitivity A_e/T_sys of the Y beam for an unpolarised source, per beam [m²/K]. */
+  readonly sensitivityYM2PerK: number[];
+  /** System-equivalent flux density of the X beam, 2k_B/(A_e/T_sys), per beam [Jy]. */
+  readonly sefdXJy: number[];
+  /** System-equivalent flux density of the Y beam, per beam [Jy]. */
+  readonly sefdYJy: number[];
 }
 
 /**
@@ -52,12 +66,19 @@ export interface DesignPolarization {
  * basis (J → a·U·J·V); it is *not* unchanged by a general invertible 2×2 applied to J. The IXR of
  * J(r₀)⁻¹·J(r̂) relative to a calibration direction r₀ is unchanged by any invertible output
  * calibration C (J → C·J): pass `jones` to intrinsicCrossPolarizationRatio with `reference`.
+ * Polarimetric sensitivity for unpolarised sources: each beam of the pair is a receiving-array
+ * beam, so its A_e/T_sys and SEFD follow the definitions of the main figures (IEEE Std 145-2013
+ * receiving-array terms; K. F. Warnick et al., IEEE Trans. Antennas Propag. 58(6), 2010, from
+ * memory): T_sys referred to the isotropic noise response, the source unpolarised with total flux
+ * S. These are the per-polarisation figures a dual-polarised radiometer quotes; with an ideal
+ * orthogonal pair each sees S/2.
  * @param prepared - The prepared design (crossed-dipole elements).
  * @param ports - The (working) ports at the frequency ({@link designLivePorts}).
+ * @param budget - The ports' open-circuit noise budget at the frequency (the evaluation's).
  * @returns The figures per beam, or undefined for single-polarisation elements.
  * @category Design
  */
-export function designPolarizationAt(prepared: PreparedDesign, ports: DesignLivePorts | ArrayPortSource): DesignPolarization | undefined {
+export function designPolarizationAt(prepared: PreparedDesign, ports: DesignLivePorts | ArrayPortSource, budget: NoiseBudget): DesignPolarization | undefined {
   if (prepared.portsPerElement !== 2) return undefined;
   const kept = 'keptPorts' in ports ? ports.keptPorts : undefined;
   const n = ports.impedanceOhm.rows;
@@ -92,5 +113,14 @@ export function designPolarizationAt(prepared: PreparedDesign, ports: DesignLive
     crossPolarXDb.push(dB(c.x[0]));
     crossPolarYDb.push(dB(c.y[0]));
   }
-  return { beamPair: 'conjugate-field match of the X ports and of the Y ports', jones, ixrDb, crossPolarXDb, crossPolarYDb };
+  // Each beam of the pair through the reception module's figures (weights over all working ports).
+  const [sx, sy] = pair.map(({ idx, w }) => {
+    const full = { rows: n, cols: k, data: new Float64Array(2 * n * k) };
+    idx.forEach((i, r) => full.data.set(w.data.subarray(2 * r * k, 2 * (r + 1) * k), 2 * i * k));
+    return beamFigures(budget, full, s).map((b) => b.sensitivityM2PerK);
+  });
+  return {
+    beamPair: 'conjugate-field match of the X ports and of the Y ports', jones, ixrDb, crossPolarXDb, crossPolarYDb,
+    sensitivityXM2PerK: sx, sensitivityYM2PerK: sy, sefdXJy: sx.map(systemEquivalentFluxDensityJy), sefdYJy: sy.map(systemEquivalentFluxDensityJy),
+  };
 }

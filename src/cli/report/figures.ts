@@ -259,6 +259,23 @@ function polarizationFigures(ev: DesignEvaluation): ReportFigure[] {
   const band = ev.frequenciesHz.length > 1;
   const pol = (i: number) => ev.frequencies[i].polarization as NonNullable<FrequencyEvaluation['polarization']>;
   const clip = 'IXR above 80 dB (300 dB in figures.json: infinite, at the numerical limit) is drawn at 80 dB';
+  // Sensitivity of each polarisation's beam at the central report frequency (both beam layouts).
+  const sensitivityFigure = (x: number[], xLabel: string): ReportFigure => {
+    const c = ev.reportFrequencyIndices[Math.floor((ev.reportFrequencyIndices.length - 1) / 2)];
+    const at = band ? ` at ${fText(ev, c)}` : '';
+    return {
+      file: 'polarization-sensitivity.svg',
+      caption: `A_e/T_sys of the X beam, the Y beam and the design's beam for an unpolarised source (total flux of both polarisations)${at} (m²/K); each of the pair collects one polarisation.`,
+      svg: linePlotSvg({
+        title: `Sensitivity per polarisation${at}`, xLabel, yLabel: 'A_e/T_sys [m²/K]', yFromZero: true,
+        traces: [
+          { label: 'X beam', x, y: pol(c).sensitivityXM2PerK },
+          { label: 'Y beam', x, y: pol(c).sensitivityYM2PerK },
+          { label: 'design beam (all ports)', x, y: ev.frequencies[c].beams.map((b) => b.sensitivityM2PerK) },
+        ],
+      }),
+    };
+  };
   const what = 'the X/Y beam pair (conjugate-field match of each polarisation\'s ports)';
   if (ev.beams.kind === 'cone' && ev.beams.stepUV !== undefined) {
     const s = ev.beams.stepUV;
@@ -279,6 +296,7 @@ function polarizationFigures(ev: DesignEvaluation): ReportFigure[] {
         svg: uvMapSvg({ title: `IXR over the scan coverage${at} [dB]`, u: axis, v: axis, valueDb: grid, floorDb, ceilingDb: IXR_TOP_DB, showVisibleCircle: false }),
       });
     }
+    out.push(sensitivityFigure(ev.beams.thetaDeg.map((_, k) => k), 'beam index'));
     return out;
   }
   const plane = ev.beams.kind === 'plane' && ev.beams.scanAngleDeg;
@@ -305,5 +323,6 @@ function polarizationFigures(ev: DesignEvaluation): ReportFigure[] {
       ],
     }),
   });
+  out.push(sensitivityFigure(x, xLabel));
   return out;
 }
