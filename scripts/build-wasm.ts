@@ -3,7 +3,7 @@
  * sources `src/internal/wasm/*.wat` with wabt (a devDependency) and writes the
  * bytes, base64-encoded, to the checked-in module `src/internal/wasm/modules.ts`,
  * so the library needs neither wabt nor a build step at run time.
- * test/internal/wasm-modules.test.ts checks that regenerating from the .wat
+ * test/internal/wasmModules.test.ts checks that regenerating from the .wat
  * sources gives that file byte for byte.
  * Usage: npm run build:wasm
  */

@@ -16,7 +16,7 @@
 import { loadavg } from 'node:os';
 import wabtInit from 'wabt';
 import { multiply } from '../src/linalg/ops.js';
-import { loadZtile } from '../src/internal/ztile-wasm.js';
+import { loadZtile } from '../src/internal/ztileWasm.js';
 import { ensureMemory } from '../src/internal/wasm/runtime.js';
 import { randomMatrix } from '../test/helpers/matchers.js';
 

@@ -4,7 +4,7 @@
  * @module
  */
 
-import { simdGemm } from './ztile-wasm.js';
+import { simdGemm } from './ztileWasm.js';
 
 /** Complex multiply–adds from which the SIMD kernel pays for its packing (measured: break-even near 8³). */
 export const SIMD_MIN_WORK = 4096;

@@ -4,7 +4,7 @@
  * @module
  */
 import { ensureMemory } from './wasm/runtime.js';
-import { loadZtile } from './ztile-wasm.js';
+import { loadZtile } from './ztileWasm.js';
 
 /** Order and rank from which the SIMD path is used. */
 const HERK_SIMD_MIN = 8;

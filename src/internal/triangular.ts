@@ -7,7 +7,7 @@
  * @module
  */
 import { gemmKernel } from './gemm.js';
-import { simdSolveTriangular } from './triangular-wasm.js';
+import { simdSolveTriangular } from './triangularWasm.js';
 
 /** Right-hand sides and order from which the SIMD substitution is used (below it the blocked scalar code). */
 const SIMD_MIN_RHS = 4, SIMD_MIN_ORDER = 4;

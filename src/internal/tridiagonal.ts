@@ -7,8 +7,8 @@
  */
 import { ConvergenceError } from '../errors.js';
 import { gemmKernel } from './gemm.js';
-import { rotationWorkspace } from './rotations-wasm.js';
-import { type TridiagWorkspace, tridiagWorkspace } from './tridiagonal-wasm.js';
+import { rotationWorkspace } from './rotationsWasm.js';
+import { type TridiagWorkspace, tridiagWorkspace } from './tridiagonalWasm.js';
 
 /** Result of {@link reduceHermitianToTridiagonal}. */
 export interface TridiagonalReduction {
@@ -74,7 +74,7 @@ function householderStep(
  */
 export function reduceHermitianToTridiagonal(house: Float64Array, n: number): TridiagonalReduction {
   // With WebAssembly SIMD the matrix is worked on in the module memory by fused
-  // passes (tridiagonal-wasm.ts); otherwise by the scalar loops below.
+  // passes (tridiagonalWasm.ts); otherwise by the scalar loops below.
   const ws = n > 8 ? tridiagWorkspace(n) : null;
   if (ws !== null) return reduceFused(house, n, ws);
   const w = house;
@@ -282,7 +282,7 @@ export function tridiagonalQl(d: Float64Array, e: Float64Array, n: number, z: Fl
   const eps = 2.220446049250313e-16;
   const tiny = 2.2250738585072014e-308;
   // With WebAssembly SIMD the rotations go to a transposed copy Zt in the
-  // module memory (see rotations-wasm.ts); otherwise to z by the scalar loop.
+  // module memory (see rotationsWasm.ts); otherwise to z by the scalar loop.
   const ws = z !== null ? rotationWorkspace(n) : null;
   const cs = ws !== null ? ws.view : new Float64Array(n);
   const sn = ws !== null ? ws.view : new Float64Array(n);

@@ -5,7 +5,7 @@
  */
 import { ConvergenceError, DimensionError } from '../errors.js';
 import { assertFiniteCMatrix, assertNonNegative } from '../internal/validate.js';
-import { simdJacobiSweeps } from '../internal/jacobi-wasm.js';
+import { simdJacobiSweeps } from '../internal/jacobiWasm.js';
 import type { CMatrix } from './cmatrix.js';
 import { matrixView } from './cmatrix.js';
 

@@ -8,7 +8,7 @@
  * @module
  */
 import { ensureMemory } from './wasm/runtime.js';
-import { loadZtile } from './ztile-wasm.js';
+import { loadZtile } from './ztileWasm.js';
 
 /** Columns of X per pass (a multiple of 4), so the panel (n·W·16 bytes) stays in L2 for n ≲ 250. */
 const SIMD_PANEL = 64;

@@ -1,7 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import fc from 'fast-check';
 import { gemmKernel, gemmScalarKernel, SIMD_MIN_WORK } from '../../src/internal/gemm.js';
-import { simdGemm, simdGemmAvailable } from '../../src/internal/ztile-wasm.js';
+import { simdGemm, simdGemmAvailable } from '../../src/internal/ztileWasm.js';
 import { multiply, multiplyInto } from '../../src/linalg/ops.js';
 import { zeros } from '../../src/linalg/cmatrix.js';
 import { DimensionError } from '../../src/errors.js';
@@ -109,7 +109,7 @@ describe('scalar fallbacks (WebAssembly SIMD switched off) agree with the SIMD p
 
 describe('SIMD triangular substitution', () => {
   it('solves lower/upper, unit/non-unit systems with complex diagonals: T·X reproduces B, and equals the scalar path (property)', async () => {
-    const { simdSolveTriangular } = await import('../../src/internal/triangular-wasm.js');
+    const { simdSolveTriangular } = await import('../../src/internal/triangularWasm.js');
     const { solveLowerInPlace, solveUpperInPlace } = await import('../../src/internal/triangular.js');
     const { wasmSettings } = await import('../../src/internal/wasm/runtime.js');
     fc.assert(fc.property(

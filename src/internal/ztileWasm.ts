@@ -4,7 +4,7 @@
  * registers while the inner dimension runs; B packed in four-column panels).
  * Used by the general product (`simdGemm` below, behind `gemmKernel`), the
  * Hermitian rank-k updates (`herk.ts`) and the triangular solves
- * (`triangular-wasm.ts`). No checks.
+ * (`triangularWasm.ts`). No checks.
  * @internal
  * @module
  */
