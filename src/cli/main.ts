@@ -10,7 +10,7 @@ import { Command, CommanderError, InvalidArgumentError, Option } from 'commander
 import { UsageError, exitCodeFor } from './errors.js';
 import { TAPER_KINDS, formatTaper, runTaper } from './commands/taper.js';
 import { formatSpacing, runSpacing } from './commands/spacing.js';
-import { formatOnOff, formatReceiverNoise, formatYFactor, noiseSourceSetting, runOnOff, runReceiverNoise, runYFactor, throwIfRejected } from './commands/yfactor.js';
+import { formatOnOff, formatReceiverNoise, formatYFactor, noiseSourceSetting, runOnOff, runReceiverNoise, runYFactor, throwIfRejected } from './commands/measure.js';
 import type { FluxCorrections } from '../measure/index.js';
 import { failedChecksText, formatRun, parseShard, runEvaluate, runMerge, type ReportRun } from './commands/evaluate.js';
 import { FailedChecksError } from './errors.js';

@@ -71,7 +71,6 @@ export function brightnessValues(name: string, b: Brightness, q: QuadratureDirec
   return t;
 }
 
-const asSource = asPatternSource;
 
 /**
  * Correlation matrices E[v vᴴ] at the open-circuit terminals for several
@@ -115,7 +114,7 @@ export function brightnessCorrelations(
   bandwidthHz: number,
   options: BrightnessOptions = {},
 ): CMatrix[] {
-  const src = asSource('patterns', patterns);
+  const src = asPatternSource('patterns', patterns);
   const m = assertQuadrature('quadrature', quadrature);
   assertPositive('bandwidthHz', bandwidthHz, 'Hz');
   if (!Array.isArray(brightnessK) || brightnessK.length === 0) {

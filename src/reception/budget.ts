@@ -171,7 +171,6 @@ export interface NoiseBudget {
   readonly total: CMatrix;
 }
 
-const asSource = (p: PortPatternSource | SampledPortPatterns): PortPatternSource => asPatternSource('input.patterns', p);
 
 /**
  * Computes the noise budget of a receiving array at its open-circuit terminals.
@@ -197,7 +196,7 @@ export function arrayNoiseBudget(input: NoiseBudgetInput): NoiseBudget {
   if (input === null || typeof input !== 'object') {
     throw new DomainError(`invalid argument "input": expected a NoiseBudgetInput, received ${describeValue(input)}.`);
   }
-  const src = asSource(input.patterns);
+  const src = asPatternSource('input.patterns', input.patterns);
   const z = input.impedanceOhm;
   assertSquare('input.impedanceOhm', z);
   assertFiniteCMatrix('input.impedanceOhm', z);
