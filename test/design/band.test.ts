@@ -4,6 +4,7 @@
  * and the one-amplifier limit hold, the sky law and noise tables follow their formulas, and the
  * isolated half-wave dipole follows its known trend across the band.
  */
+import { C0, F0, L0, D, LEN, A, H, fourDipoleLine } from '../helpers/designs.js';
 import { describe, it, expect } from 'vitest';
 import {
   evaluateDesign, prepareDesign, designPortsAt, validateDesign, frequencyBlock, scanPlaneDirections,
@@ -18,25 +19,7 @@ import { sphereQuadrature } from '../../src/geometry/index.js';
 import { DesignError } from '../../src/errors.js';
 import { K_BOLTZMANN_J_PER_K, T0_K } from '../../src/units/constants.js';
 
-const C0 = 299792458;
-const F0 = 1.4e9, L0 = C0 / F0;
-const D = 0.5 * L0, LEN = 0.47 * L0, A = L0 / 300, H = L0 / 4;
-
-function lineDesign(extra: Record<string, unknown> = {}): any {
-  return {
-    title: 'four dipoles over ground across a band',
-    frequencyHz: [0.9 * F0, F0, 1.1 * F0],
-    bandwidthHz: 1e6,
-    layout: { kind: 'line', count: 4, spacingM: D },
-    elements: { kind: 'dipole', lengthM: LEN, radiusM: A, axis: [0, 1, 0], groundPlaneHeightM: H },
-    amplifiers: { minimumNoiseTemperatureK: 35, noiseResistanceOhm: 5, optimumSourceAdmittanceS: { re: 0.02, im: 0 } },
-    environment: { skyK: 8, groundK: 290, physicalTemperatureK: 290 },
-    beams: { thetaDeg: [-30, 0, 30] },
-    physicalAreaM2: 4 * D * D,
-    quadrature: { thetaCount: 20, phiCount: 40 },
-    ...extra,
-  };
-}
+const lineDesign = fourDipoleLine;
 
 const dipolesAt = () => Array.from({ length: 4 }, (_, i) => ({ centerM: [(i - 1.5) * D, 0, H] as const, axis: [0, 1, 0] as const, lengthM: LEN, radiusM: A }));
 

@@ -2,6 +2,7 @@
  * Printed forms of the reception and design results, and their plain data across JSON, structured
  * clone (the worker-thread transfer of src/cli/parallel.ts) and structural equality.
  */
+import { F0, D, LEN, A, H, fourDipoleLine } from '../helpers/designs.js';
 import { describe, it, expect } from 'vitest';
 import { inspect } from 'node:util';
 import {
@@ -9,20 +10,7 @@ import {
   show, resultFromJSON, restoreDisplay, prepareDesign, evaluateDesignFrequency, assembleDesignEvaluation, type DesignEvaluation,
 } from '../../src/index.js';
 
-const C0 = 299792458;
-const F0 = 1.4e9, L0 = C0 / F0, D = 0.5 * L0, LEN = 0.47 * L0, A = L0 / 300, H = L0 / 4;
-const design = validateDesign({
-  title: 'four dipoles over ground',
-  frequencyHz: [0.9 * F0, F0, 1.1 * F0],
-  bandwidthHz: 1e6,
-  layout: { kind: 'line', count: 4, spacingM: D },
-  elements: { kind: 'dipole', lengthM: LEN, radiusM: A, axis: [0, 1, 0], groundPlaneHeightM: H },
-  amplifiers: { minimumNoiseTemperatureK: 35, noiseResistanceOhm: 5, optimumSourceAdmittanceS: { re: 0.02, im: 0 } },
-  environment: { skyK: 8, groundK: 290, physicalTemperatureK: 290 },
-  beams: { thetaDeg: [-30, 0, 30] },
-  physicalAreaM2: 4 * D * D,
-  quadrature: { thetaCount: 20, phiCount: 40 },
-}, 'line.json');
+const design = validateDesign(fourDipoleLine({ title: 'four dipoles over ground' }), 'line.json');
 
 describe('design evaluation', () => {
   const ev = evaluateDesign(design, { fileName: 'line.json' });

@@ -17,14 +17,3 @@ describe('hzText', () => {
     expect(() => parseTouchstone(text, { ports: 1 })).toThrow('1.5 GHz follows 1.515 GHz');
   });
 });
-
-describe('Touchstone port-count hint', () => {
-  it('2-port data in a file read as 4-port names the likely cause', () => {
-    const text = '# GHz S RI R 50\n1.0 0.1 0 0.2 0 0.2 0 0.1 0\n1.1 0.1 0 0.2 0 0.2 0 0.1 0\n1.2 0.1 0 0.2 0 0.2 0 0.1 0\n';
-    expect(() => parseTouchstone(text, { ports: 4 })).toThrow('every data line holds 8 numbers after its frequency, as 2-port data does, but the file is read as 4-port');
-    // A genuine 4-port file (8 numbers per line, continuation lines without a frequency) parses.
-    const row = '0.1 0 0.2 0 0.2 0 0.1 0';
-    const four = `# GHz S RI R 50\n1.0 ${row}\n${row}\n${row}\n${row}\n`;
-    expect(parseTouchstone(four, { ports: 4 }).network.ports).toBe(4);
-  });
-});
