@@ -53,6 +53,15 @@ describe('the packed and installed package', () => {
     expect(readFileSync(join(project, 'rep2', 'figures.json'), 'utf8')).toBe(j1);
   });
 
+  it('npx phasewise onoff reduces a table; a module subpath imports by name', () => {
+    // 1500 Jy calibrator, P_on/P_off − 1 = 0.05: A_e/T_sys = 2 k_B·0.05/(1500·1e-26) = 9.2043 m²/K (conventions, sensitivity row).
+    writeFileSync(join(project, 'scan.csv'), 'beam,on,off\nzenith,1.05,1\n');
+    const r = JSON.parse(sh('npx', ['--no-install', 'phasewise', 'onoff', 'scan.csv', '--flux-jy', '1500', '--json']));
+    expect(r[0].aeOverTsysM2PerK).toBeCloseTo((2 * 1.380649e-23 * 0.05) / 1500e-26, 9);
+    const sub = sh('node', ['--input-type=module', '-e', "import { trace } from 'phasewise/linalg'; import { trace as t2 } from 'phasewise'; console.log(trace === t2);"]);
+    expect(sub.trim()).toBe('true');
+  });
+
   it('imports by package name (ESM and CJS) and runs the band job', () => {
     const esm = sh('node', ['--input-type=module', '-e', "import { evaluateDesign, validateDesign, VERSION } from 'phasewise'; import { readFileSync } from 'node:fs'; const ev = evaluateDesign(validateDesign(JSON.parse(readFileSync('band.json', 'utf8')), 'band.json')); console.log(VERSION, ev.frequencies.length, ev.bandSummary.length);"]);
     expect(esm.trim()).toBe(`${pkg.version} 4 2`);
