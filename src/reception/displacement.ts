@@ -260,20 +260,40 @@ export function shiftedBrightnessCorrelations(
       }
     }
   }
-  // fill both triangles of every map from the displacement table in one pass over the pairs
+  // fill every map: the lower triangle row by row from the displacement table (sequential
+  // writes), then the upper triangle as its conjugate transpose in cache-sized tiles
   const outs = maps.map(() => new Float64Array(2 * n * n));
   const ix = s.ix, iyz = s.iyz, rowOf = s.rowOf, colOf = s.colOf, ux = s.ux, uyz = s.uyz;
+  const cells = new Int32Array(n);
   for (let i = 0; i < n; i++) {
     const rx = ix[i] * ux, ry = iyz[i] * uyz;
-    for (let j = 0; j <= i; j++) {
-      const cell = rowOf[rx + ix[j]] * nc + colOf[ry + iyz[j]];
-      const lo = 2 * (i * n + j), up = 2 * (j * n + i);
-      for (let t = 0; t < nt; t++) {
-        const c = 2 * (t * nr * nc + cell), re = scale * h[c], im = i === j ? 0 : scale * h[c + 1];
-        const o = outs[t];
-        o[lo] = re; o[lo + 1] = im; o[up] = re; o[up + 1] = -im;
+    for (let j = 0; j <= i; j++) cells[j] = rowOf[rx + ix[j]] * nc + colOf[ry + iyz[j]];
+    for (let t = 0; t < nt; t++) {
+      const o = outs[t], base = t * nr * nc, row = 2 * i * n;
+      for (let j = 0; j < i; j++) {
+        const c = 2 * (base + cells[j]);
+        o[row + 2 * j] = scale * h[c]; o[row + 2 * j + 1] = scale * h[c + 1];
+      }
+      o[row + 2 * i] = scale * h[2 * (base + cells[i])];
+    }
+  }
+  for (const o of outs) mirrorLowerTiled(n, o);
+  return outs.map((data) => ({ rows: n, cols: n, data }));
+}
+
+/** Upper triangle of an n×n interleaved Hermitian matrix from its strict lower triangle, in 32×32 tiles. */
+function mirrorLowerTiled(n: number, c: Float64Array): void {
+  const T = 32;
+  for (let i0 = 0; i0 < n; i0 += T) {
+    const i1 = Math.min(n, i0 + T);
+    for (let j0 = 0; j0 <= i0; j0 += T) {
+      for (let i = i0; i < i1; i++) {
+        const j1 = Math.min(i, j0 + T);
+        for (let j = j0; j < j1; j++) {
+          const lo = 2 * (i * n + j), up = 2 * (j * n + i);
+          c[up] = c[lo]; c[up + 1] = -c[lo + 1];
+        }
       }
     }
   }
-  return outs.map((data) => ({ rows: n, cols: n, data }));
 }
