@@ -27,7 +27,9 @@ const cases: Record<string, [number, number][]> = {
   line600: line(600), line1200: line(1200), hex1200: hexagon(1200), tri3000: hexagon(3000),
 };
 const wanted = (process.env.SCALE_CASES ?? Object.keys(cases).join(',')).split(',');
-const arrayFigures = process.env.SCALE_ARRAY_FIGURES !== '0';
+// SCALE_ARRAY_FIGURES=1 forces T_rec,min and the embedded element efficiencies, 0 skips them; the
+// default is the evaluation's own default, 'auto' (computed up to 1024 ports).
+const arrayFigures = process.env.SCALE_ARRAY_FIGURES === '1' ? true : process.env.SCALE_ARRAY_FIGURES === '0' ? false : 'auto' as const;
 const th = Float64Array.from({ length: 25 }, (_, k) => (k - 12) * 0.04);
 const ph = new Float64Array(25);
 
@@ -37,7 +39,7 @@ for (const name of Object.keys(cases).filter((c) => wanted.includes(c))) {
   let last: ReceivingArrayEvaluation | undefined;
   let ms = 0;
   let failed: string[] = [];
-  describe(`${name}: ${xy.length} dipoles over ground, 25 max-SNR beams, adaptive rule${arrayFigures ? '' : ', no array figures'}`, () => {
+  describe(`${name}: ${xy.length} dipoles over ground, 25 max-SNR beams, adaptive rule, array figures ${arrayFigures}`, () => {
     bench('dipoleArrayPorts + evaluateReceivingArray', () => {
       const t0 = performance.now();
       const ports = dipoleArrayPorts(dipoles, f, { groundPlane: { zM: 0 } });
@@ -58,7 +60,7 @@ for (const name of Object.keys(cases).filter((c) => wanted.includes(c))) {
         if (!last) return;
         const stages = Object.fromEntries(Object.entries(last.timingsMs).map(([k, v]) => [k, Math.round(v)]));
         if (failed.length > 0) process.stdout.write(`${name}: FAILED CHECKS ${failed.join(', ')} (the timing below does not count)\n`);
-        process.stdout.write(`${name} N=${xy.length} directions=${last.quadrature.thetaRad.length} total=${Math.round(ms)} ms stages ${JSON.stringify(stages)} rss=${(process.memoryUsage().rss / 1e9).toFixed(2)} GB\n`);
+        process.stdout.write(`${name} N=${xy.length} directions=${last.quadrature.thetaRad.length} total=${Math.round(ms)} ms arrayFigures=${last.arrayFiguresComputed} stages ${JSON.stringify(stages)} rss=${(process.memoryUsage().rss / 1e9).toFixed(2)} GB\n`);
       },
     });
   });
