@@ -150,22 +150,15 @@ function progressionStep(v: Float64Array): number {
 }
 
 /**
- * @internal Brightness correlations on the displacement path:
- * R_t(m, n) = scale · Σₖ wₖ Tₜ,ₖ |g(r̂ₖ)|² exp(j k r̂ₖ·(dₘ − dₙ)), for every map t.
- *
- * @remarks
- * The phase splits as exp(j k u Δx)·exp(j k (v Δy + w Δz)), so for a block of
- * directions all distinct-displacement sums are one complex product
- * H += A·B with A[(t, Δx), k] = wₖ Tₜ,ₖ |g|² e^{jkuΔx} and B[k, (Δy, Δz)] =
- * e^{jk(vΔy + wΔz)} (SIMD kernel), then each matrix entry is read from H.
- * Cost O(M·(rows + cols)) phases + O(T·rows·cols·M) multiply–adds + O(T·N²)
- * for the fill, against O(N·M) pattern samples + O(T·N²·M) on the general path.
+ * @internal The displacement table of the brightness sums: H[t][(Δx row, (Δy, Δz) column)] =
+ * Σₖ wₖ Tₜ,ₖ |g(r̂ₖ)|² exp(j k r̂ₖ·Δ) for every distinct displacement Δ of the structure and
+ * every map t (interleaved, nt·rows·cols complex values, map-major), unscaled.
  */
-export function shiftedBrightnessCorrelations(
+export function displacementTable(
   shifted: ShiftedElementPattern, s: DisplacementStructure, wavenumberRadPerM: number,
-  q: QuadratureDirections, maps: ReadonlyArray<Float64Array>, scale: number,
-): CMatrix[] {
-  const { n, dx, dyz } = s;
+  q: QuadratureDirections, maps: ReadonlyArray<Float64Array>,
+): Float64Array {
+  const { dx, dyz } = s;
   const nr = dx.length, nc = dyz.length / 2, nt = maps.length, m = q.thetaRad.length;
   const k = wavenumberRadPerM;
   const rowsA = nt * nr;
@@ -260,6 +253,28 @@ export function shiftedBrightnessCorrelations(
       }
     }
   }
+  return h;
+}
+
+/**
+ * @internal Brightness correlations on the displacement path:
+ * R_t(m, n) = scale · Σₖ wₖ Tₜ,ₖ |g(r̂ₖ)|² exp(j k r̂ₖ·(dₘ − dₙ)), for every map t.
+ *
+ * @remarks
+ * The phase splits as exp(j k u Δx)·exp(j k (v Δy + w Δz)), so for a block of
+ * directions all distinct-displacement sums are one complex product
+ * H += A·B with A[(t, Δx), k] = wₖ Tₜ,ₖ |g|² e^{jkuΔx} and B[k, (Δy, Δz)] =
+ * e^{jk(vΔy + wΔz)} (SIMD kernel), then each matrix entry is read from H.
+ * Cost O(M·(rows + cols)) phases + O(T·rows·cols·M) multiply–adds + O(T·N²)
+ * for the fill, against O(N·M) pattern samples + O(T·N²·M) on the general path.
+ */
+export function shiftedBrightnessCorrelations(
+  shifted: ShiftedElementPattern, s: DisplacementStructure, wavenumberRadPerM: number,
+  q: QuadratureDirections, maps: ReadonlyArray<Float64Array>, scale: number,
+): CMatrix[] {
+  const h = displacementTable(shifted, s, wavenumberRadPerM, q, maps);
+  const { n, dx, dyz } = s;
+  const nr = dx.length, nc = dyz.length / 2, nt = maps.length;
   // fill every map: the lower triangle row by row from the displacement table (sequential
   // writes), then the upper triangle as its conjugate transpose in cache-sized tiles
   const outs = maps.map(() => new Float64Array(2 * n * n));
@@ -296,4 +311,46 @@ function mirrorLowerTiled(n: number, c: Float64Array): void {
       }
     }
   }
+}
+
+/**
+ * @internal Quadratic forms of the brightness correlations on the displacement path without
+ * forming the matrices: Re{wₖᴴ R_t wₖ} = scale · Σ_Δ Re{H_t(Δ) · A_k(Δ)} for every map t and
+ * column k of W (N×K), with A_k(Δ) = Σ_{m,n: dₘ − dₙ = Δ} conj(w_mk) w_nk the weights'
+ * autocorrelation over the distinct displacements. Cost: the table of
+ * {@link displacementTable} plus O(N²K) for the autocorrelation, against O(T·N²) memory and
+ * fill plus O(T·N²K) for the matrices and their forms. Returns one Float64Array (K values) per map.
+ */
+export function shiftedBrightnessForms(
+  shifted: ShiftedElementPattern, s: DisplacementStructure, wavenumberRadPerM: number,
+  q: QuadratureDirections, maps: ReadonlyArray<Float64Array>, scale: number, weights: CMatrix,
+): Float64Array[] {
+  const h = displacementTable(shifted, s, wavenumberRadPerM, q, maps);
+  const { n, dx, dyz, ix, iyz, rowOf, colOf, ux, uyz } = s;
+  const nr = dx.length, nc = dyz.length / 2, nt = maps.length, kb = weights.cols, w = weights.data;
+  const cellsTotal = nr * nc;
+  // autocorrelation of every column of W over the displacement cells, cell-major (K per cell)
+  const acf = new Float64Array(2 * cellsTotal * kb);
+  for (let i = 0; i < n; i++) {
+    const rx = ix[i] * ux, ry = iyz[i] * uyz, wi = 2 * i * kb;
+    for (let j = 0; j < n; j++) {
+      const cell = rowOf[rx + ix[j]] * nc + colOf[ry + iyz[j]];
+      const a = 2 * cell * kb, wj = 2 * j * kb;
+      for (let c = 0; c < 2 * kb; c += 2) {
+        // conj(w_ic) · w_jc
+        const xr = w[wi + c], xi = w[wi + c + 1], yr = w[wj + c], yi = w[wj + c + 1];
+        acf[a + c] += xr * yr + xi * yi;
+        acf[a + c + 1] += xr * yi - xi * yr;
+      }
+    }
+  }
+  return maps.map((_, t) => {
+    const out = new Float64Array(kb), base = 2 * t * cellsTotal;
+    for (let cell = 0; cell < cellsTotal; cell++) {
+      const hr = h[base + 2 * cell], hi = h[base + 2 * cell + 1], a = 2 * cell * kb;
+      for (let c = 0; c < kb; c++) out[c] += hr * acf[a + 2 * c] - hi * acf[a + 2 * c + 1];
+    }
+    for (let c = 0; c < kb; c++) out[c] *= scale;
+    return out;
+  });
 }

@@ -9,9 +9,9 @@ import { complexParts } from '../linalg/cmatrix.js';
 import { assertPositive, describeValue } from '../internal/validate.js';
 import type { SphereQuadrature } from '../geometry/quadrature.js';
 import type { NoiseParametersInput } from '../network/noise.js';
-import { arrayNoiseBudget, budgetOnRule, type LossModel, type NoiseBudget, type NoiseEnvironment } from './budget.js';
+import { arrayNoiseBudget, budgetFormsOnRule, type LossModel, type NoiseBudget, type NoiseEnvironment } from './budget.js';
 import {
-  embeddedElementEfficiencies, figuresOfColumns, minimumReceiverTemperatureFrom, scanSweep, type BeamFigures,
+  embeddedElementEfficiencies, figuresOfForms, minimumReceiverTemperatureFrom, scanSweepWithForms, type BeamFigures,
 } from './figures.js';
 import { adaptiveSphereRule } from './integration.js';
 import { receivingArrayChecks } from './checks.js';
@@ -285,11 +285,12 @@ export function evaluateReceivingArray(description: ReceivingArrayDescription): 
 
   // Array figures: one Cholesky of (Z + Zᴴ)/2 serves the passivity check and T_rec,min.
   t = performance.now();
-  const passivity = impedancePassivityWithFactor(d.ports.impedanceOhm, 30, arrayFigures || n <= PASSIVITY_CHOLESKY_MAX_PORTS);
+  const isoScale = 4 * K_BOLTZMANN_J_PER_K * budget.bandwidthHz; // R_iso,1K = isoScale·(Z + Zᴴ)/2
+  const passivity = impedancePassivityWithFactor(d.ports.impedanceOhm, 30, arrayFigures || n <= PASSIVITY_CHOLESKY_MAX_PORTS, { matrix: budget.isotropicPerK, scale: isoScale });
   let tMin = NaN, tMinFailure: string | undefined;
   if (arrayFigures) {
     try {
-      tMin = minimumReceiverTemperatureFrom(budget, passivity.factor as CholeskyResult, 4 * K_BOLTZMANN_J_PER_K * budget.bandwidthHz);
+      tMin = minimumReceiverTemperatureFrom(budget, passivity.factor as CholeskyResult, 1);
     } catch (e) {
       if (!(e instanceof SingularMatrixError || e instanceof ConvergenceError)) throw e;
       tMinFailure = e.message;
@@ -297,7 +298,7 @@ export function evaluateReceivingArray(description: ReceivingArrayDescription): 
   }
   const tArray0 = performance.now() - t;
   t = performance.now();
-  const sweep = scanSweep(budget, beamPatterns, {
+  const { result: sweep, forms } = scanSweepWithForms(budget, beamPatterns, {
     weights: d.weights, physicalAreaM2: d.physicalAreaM2, fluxDensityWPerM2Hz: d.fluxDensityWPerM2Hz,
     minimumReceiverTemperatureK: Number.isFinite(tMin) ? tMin : undefined,
     onProgress: progress === undefined ? undefined : (done, total) => progress('beams', done, total),
@@ -323,8 +324,8 @@ export function evaluateReceivingArray(description: ReceivingArrayDescription): 
   let integrationError: number | undefined;
   if (d.ports.geometry !== undefined) {
     const fineRule = adaptiveSphereRule(d.ports.geometry, source.frequencyHz, { edgeNormals: d.environment.edgeNormals, refinement: REFINEMENT });
-    const fine = budgetOnRule(budget, source, fineRule, d.environment, d.loss ?? 'fromPatterns');
-    const fineBeams = figuresOfColumns(fine, sweep.weights, beamPatterns, {
+    const fineForms = budgetFormsOnRule(budget, source, fineRule, d.environment, d.loss ?? 'fromPatterns', sweep.weights, forms);
+    const fineBeams = figuresOfForms(budget, fineForms, sweep.weights, beamPatterns, {
       physicalAreaM2: d.physicalAreaM2, fluxDensityWPerM2Hz: d.fluxDensityWPerM2Hz, minimumReceiverTemperatureK: Number.isFinite(tMin) ? tMin : undefined,
     });
     integrationError = 0;

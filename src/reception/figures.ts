@@ -160,11 +160,33 @@ export function columnQuadraticForms(w: CMatrix, matrices: ReadonlyArray<CMatrix
   });
 }
 
-/** @internal Figures of every beam (no validation); beam k uses column k of the weights and of the patterns. */
-export function figuresOfColumns(budget: NoiseBudget, weights: CMatrix, p: SampledPortPatterns, o: BeamFigureOptions, onBeam?: (done: number, total: number) => void): BeamFigures[] {
+/**
+ * @internal The quadratic forms Re{wₖᴴ R wₖ} of a budget's matrices for every beam k (K values
+ * each) — all that the beam figures need from the budget besides its scalars.
+ */
+export interface BudgetForms {
+  readonly iso: Float64Array; readonly sky: Float64Array; readonly ground: Float64Array; readonly loss: Float64Array;
+  readonly rec: Float64Array; readonly rad: Float64Array; readonly skyRegion: Float64Array;
+}
+
+/** @internal The forms of every budget matrix for the columns of `weights` (seven products R·W). */
+export function budgetForms(budget: NoiseBudget, weights: CMatrix): BudgetForms {
   const [iso, sky, ground, loss, rec, rad, skyRegion] = columnQuadraticForms(weights, [
     budget.isotropicPerK, budget.sky, budget.ground, budget.loss, budget.receiver, budget.radiationPerK, budget.skyRegionPerK,
   ]);
+  return { iso, sky, ground, loss, rec, rad, skyRegion };
+}
+
+/** @internal Figures of every beam (no validation); beam k uses column k of the weights and of the patterns. */
+export function figuresOfColumns(budget: NoiseBudget, weights: CMatrix, p: SampledPortPatterns, o: BeamFigureOptions, onBeam?: (done: number, total: number) => void): BeamFigures[] {
+  return figuresOfForms(budget, budgetForms(budget, weights), weights, p, o, onBeam);
+}
+
+/** @internal Figures of every beam from the budget's forms (no validation). */
+export function figuresOfForms(
+  budget: NoiseBudget, forms: BudgetForms, weights: CMatrix, p: SampledPortPatterns, o: BeamFigureOptions, onBeam?: (done: number, total: number) => void,
+): BeamFigures[] {
+  const { iso, sky, ground, loss, rec, rad, skyRegion } = forms;
   const out: BeamFigures[] = [];
   for (let k = 0; k < weights.cols; k++) {
     out.push(figuresFromForms(budget, iso[k], sky[k], ground[k], loss[k], rec[k], rad[k], skyRegion[k], signalPower(weights.data, 2 * k, weights.cols, p, k), p, k, o));
@@ -286,6 +308,11 @@ export interface ScanSweepResult {
  * @category Reception
  */
 export function scanSweep(budget: NoiseBudget, beamPatterns: SampledPortPatterns, options: ScanSweepOptions = {}): ScanSweepResult {
+  return scanSweepWithForms(budget, beamPatterns, options).result;
+}
+
+/** @internal {@link scanSweep} that also returns the budget's quadratic forms of the weights it used. */
+export function scanSweepWithForms(budget: NoiseBudget, beamPatterns: SampledPortPatterns, options: ScanSweepOptions = {}): { result: ScanSweepResult; forms: BudgetForms } {
   checkBeamPatterns(budget, beamPatterns);
   checkOptions(options);
   const weights = options.weights ?? maxSnrWeightsUnpolarized(beamPatterns, budget.total);
@@ -297,8 +324,9 @@ export function scanSweep(budget: NoiseBudget, beamPatterns: SampledPortPatterns
   if (options.onProgress !== undefined && typeof options.onProgress !== 'function') {
     throw new DomainError(`invalid argument "options.onProgress": expected a function (done, total) → void, received ${describeValue(options.onProgress)}.`);
   }
-  const beams = figuresOfColumns(budget, weights, beamPatterns, options, options.onProgress);
-  return displayable<ScanSweepResult>({ weights, beams }, 'ScanSweepResult');
+  const forms = budgetForms(budget, weights);
+  const beams = figuresOfForms(budget, forms, weights, beamPatterns, options, options.onProgress);
+  return { result: displayable<ScanSweepResult>({ weights, beams }, 'ScanSweepResult'), forms };
 }
 
 /**
@@ -380,7 +408,7 @@ export function minimumReceiverTemperature(budget: NoiseBudget): number {
 
 /**
  * @internal {@link minimumReceiverTemperature} with a Cholesky factorisation of R_iso,1K / isoScale
- * already done (the passivity check factors (Z + Zᴴ)/2, so isoScale = 4 k_B B).
+ * already done (the evaluation factors R_iso,1K itself, so isoScale = 1; a factor of (Z + Zᴴ)/2 needs isoScale = 4 k_B B).
  */
 export function minimumReceiverTemperatureFrom(budget: NoiseBudget, isoFactor: CholeskyResult, isoScale: number): number {
   const n = budget.portCount;
