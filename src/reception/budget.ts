@@ -244,13 +244,43 @@ function regionMaps(q: QuadratureDirections, env: NoiseEnvironment): Float64Arra
   return [tSky, tGround, oneSky, oneGround];
 }
 
+/** c·A as a new matrix (a plain loop: typed-array map is several times slower at N² = 10⁷). */
+function scaledCopy(a: CMatrix, c: number): CMatrix {
+  const src = a.data, out = new Float64Array(src.length);
+  for (let k = 0; k < src.length; k++) out[k] = c * src[k];
+  return matrixView(a.rows, a.cols, out);
+}
+
+/** The value T when `t` equals T·`region` at every direction (`region` a 0/1 indicator), else null. */
+function constantOn(t: Float64Array, region: Float64Array): number | null {
+  let c: number | null = null;
+  for (let k = 0; k < t.length; k++) {
+    if (region[k] === 0) continue;
+    if (c === null) c = t[k];
+    else if (t[k] !== c) return null;
+  }
+  return c ?? 0;
+}
+
 /** @internal The four brightness integrals of a budget (one blocked pass): sky, ground, 1 K on the sky region and on all directions. */
 export function externalNoise(
   src: PortPatternSource, q: QuadratureDirections, env: NoiseEnvironment, b: number, options: BrightnessOptions,
 ): { sky: CMatrix; ground: CMatrix; skyRegionPerK: CMatrix; radiationPerK: CMatrix } {
-  const [sky, ground, skyRegionPerK, groundRegionPerK] = brightnessCorrelations(src, q, regionMaps(q, env), b, options);
+  const maps = regionMaps(q, env);
+  // A brightness constant on each region (the usual sky-and-ground model): the T-weighted
+  // integrals are multiples of the 1 K ones, so two integrals serve all four (linearity).
+  const tSkyConst = constantOn(maps[0], maps[2]), tGroundConst = constantOn(maps[1], maps[3]);
+  let sky: CMatrix, ground: CMatrix, skyRegionPerK: CMatrix, groundRegionPerK: CMatrix;
+  if (tSkyConst !== null && tGroundConst !== null) {
+    [skyRegionPerK, groundRegionPerK] = brightnessCorrelations(src, q, [maps[2], maps[3]], b, options);
+    sky = scaledCopy(skyRegionPerK, tSkyConst);
+    ground = scaledCopy(groundRegionPerK, tGroundConst);
+  } else {
+    [sky, ground, skyRegionPerK, groundRegionPerK] = brightnessCorrelations(src, q, maps, b, options);
+  }
   const n = src.portCount;
-  const radiationPerK = { rows: n, cols: n, data: skyRegionPerK.data.map((v, k) => v + groundRegionPerK.data[k]) };
+  const radiationPerK = { rows: n, cols: n, data: new Float64Array(skyRegionPerK.data.length) };
+  for (let k = 0; k < radiationPerK.data.length; k++) radiationPerK.data[k] = skyRegionPerK.data[k] + groundRegionPerK.data[k];
   return { sky, ground, skyRegionPerK, radiationPerK };
 }
 
