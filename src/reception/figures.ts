@@ -139,6 +139,12 @@ function checkOptions(o: BeamFigureOptions): void {
   if (o.minimumReceiverTemperatureK !== undefined) assertNonNegative('options.minimumReceiverTemperatureK', o.minimumReceiverTemperatureK, 'K');
 }
 
+/** Whether every entry is zero. */
+function isZero(a: Float64Array): boolean {
+  for (let i = 0; i < a.length; i++) if (a[i] !== 0) return false;
+  return true;
+}
+
 /**
  * @internal Re{wₖᴴ R wₖ} for every column wₖ of W (N×K) and every matrix R of
  * the list: one matrix product R·W per matrix (SIMD kernel), then K column
@@ -148,6 +154,9 @@ export function columnQuadraticForms(w: CMatrix, matrices: ReadonlyArray<CMatrix
   const n = w.rows, k = w.cols, x = w.data;
   const rw = new Float64Array(2 * n * k);
   return matrices.map((r) => {
+    // an all-zero matrix (a lossless budget's loss, an absent receiver) has zero forms: one
+    // read-only scan instead of copying it into the product kernel
+    if (isZero(r.data)) return new Float64Array(k);
     gemmKernel(n, k, n, r.data, 0, n, x, 0, k, rw, 0, k, false);
     const out = new Float64Array(k);
     for (let i = 0; i < n; i++) {
