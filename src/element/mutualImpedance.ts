@@ -393,7 +393,8 @@ export function dipoleArrayImpedanceMatrix(dipoles: ReadonlyArray<WireDipole>, f
   const shapes = geo.map(shapeOf);
   const imageShapes = images ? images.map(shapeOf) : undefined;
   const cache = new PairTable();
-  const coupled = (a: DipoleGeometry, sa: number, b: DipoleGeometry, sb: number, pair: [number, number], what: string, out: Float64Array): void => {
+  // i, j and `image` only name the pair in an error message (built only when one is thrown)
+  const coupled = (a: DipoleGeometry, sa: number, b: DipoleGeometry, sb: number, i: number, j: number, image: boolean, out: Float64Array): void => {
     let qx = Math.round((b.cx - a.cx) / quantum), qy = Math.round((b.cy - a.cy) / quantum), qz = Math.round((b.cz - a.cz) / quantum);
     let s1 = sa, s2 = sb;
     // canonical order of the reciprocal pair: (a, b, Δ) ≡ (b, a, −Δ)
@@ -402,7 +403,8 @@ export function dipoleArrayImpedanceMatrix(dipoles: ReadonlyArray<WireDipole>, f
     }
     const shapePair = s1 * 1048576 + s2;
     if (cache.get(shapePair, qx, qy, qz, out)) return;
-    freePairInto(out, a, b, k, opts, pair, what);
+    const what = !image ? '' : i === j ? ' (element and its own ground image)' : ` (element ${i} and the ground image of element ${j})`;
+    freePairInto(out, a, b, k, opts, [i, j], what);
     cache.set(shapePair, qx, qy, qz, out);
   };
   const data = new Float64Array(2 * n * n);
@@ -411,20 +413,29 @@ export function dipoleArrayImpedanceMatrix(dipoles: ReadonlyArray<WireDipole>, f
     freeSelfInto(out, geo[i], k);
     let zr = out[0], zi = out[1];
     if (images && imageShapes) {
-      coupled(geo[i], shapes[i], images[i], imageShapes[i], [i, i], ' (element and its own ground image)', out);
+      coupled(geo[i], shapes[i], images[i], imageShapes[i], i, i, true, out);
       zr += out[0]; zi += out[1];
     }
     data[2 * (i * n + i)] = zr;
     data[2 * (i * n + i) + 1] = zi;
     for (let j = i + 1; j < n; j++) {
-      coupled(geo[i], shapes[i], geo[j], shapes[j], [i, j], '', out);
+      coupled(geo[i], shapes[i], geo[j], shapes[j], i, j, false, out);
       zr = out[0]; zi = out[1];
       if (images && imageShapes) {
-        coupled(geo[i], shapes[i], images[j], imageShapes[j], [i, j], ` (element ${i} and the ground image of element ${j})`, out);
+        coupled(geo[i], shapes[i], images[j], imageShapes[j], i, j, true, out);
         zr += out[0]; zi += out[1];
       }
       data[2 * (i * n + j)] = zr; data[2 * (i * n + j) + 1] = zi;
-      data[2 * (j * n + i)] = zr; data[2 * (j * n + i) + 1] = zi;
+    }
+  }
+  // Z is symmetric (reciprocity): the lower triangle by transposing the upper in cache-sized tiles
+  for (let i0 = 0; i0 < n; i0 += 32) {
+    for (let j0 = 0; j0 <= i0; j0 += 32) {
+      for (let i = i0; i < Math.min(n, i0 + 32); i++) {
+        for (let j = j0; j < Math.min(i, j0 + 32); j++) {
+          data[2 * (i * n + j)] = data[2 * (j * n + i)]; data[2 * (i * n + j) + 1] = data[2 * (j * n + i) + 1];
+        }
+      }
     }
   }
   return matrixView(n, n, data);
