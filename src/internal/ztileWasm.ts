@@ -23,9 +23,37 @@ export function simdGemmAvailable(): boolean {
   return loadZtile() !== null;
 }
 
-/** Inner-dimension steps per pass, so that the packed B block (n4·kb·16 bytes) stays within ~256 KiB of L2. */
-function panelDepth(n4: number): number {
-  return Math.max(4, Math.floor((256 * 1024) / (16 * n4)));
+/** Columns of C per block of {@link ztileBlocked} (a multiple of four). */
+const BLOCK_COLUMNS = 128;
+/** Inner-dimension steps per block of {@link ztileBlocked}: with {@link BLOCK_COLUMNS} the packed B block is 128·128·16 B = 256 KiB (L2). */
+const BLOCK_DEPTH = 128;
+
+/**
+ * C (+)= A·B on the tiled kernel in blocks of {@link BLOCK_COLUMNS} columns ×
+ * {@link BLOCK_DEPTH} inner steps (Goto & van de Geijn 2008, from memory: the
+ * packed B block stays in L2 while every row of A streams past it, and each
+ * entry of C is read and written once per depth block). Without the column
+ * blocking the depth that fits L2 shrinks as 1/n and C is re-streamed k/kb
+ * times: at n = 3169 that was a depth of 5 and ~200 GB of C traffic.
+ * Addresses in bytes, layout of wasm/ztile.wat (B in four-column panels of
+ * stride `ldbq`, C planes with row stride `ldc` and panel stride 32).
+ * `firstRow(j0)` gives the first row of C needed for the column block starting
+ * at column j0 (0 for a full product; j0 for a lower triangle). C is accumulated.
+ */
+export function ztileBlocked(
+  mod: ZtileFunctions, m: number, n4: number, k: number,
+  pa: number, lda: number, pb: number, ldbq: number, pcr: number, pci: number, ldc: number,
+  firstRow: (j0: number) => number = () => 0,
+): void {
+  for (let j0 = 0; j0 < n4; j0 += BLOCK_COLUMNS) {
+    const nb = Math.min(BLOCK_COLUMNS, n4 - j0), i0 = firstRow(j0);
+    if (i0 >= m) continue;
+    for (let p0 = 0; p0 < k; p0 += BLOCK_DEPTH) {
+      const kb = Math.min(BLOCK_DEPTH, k - p0);
+      mod.ztile(m - i0, nb, kb, pa + i0 * lda + p0 * 16, lda, pb + (j0 >> 2) * ldbq + p0 * 64, ldbq,
+        pcr + i0 * ldc + j0 * 8, pci + i0 * ldc + j0 * 8, ldc, 32);
+    }
+  }
 }
 
 /**
@@ -69,11 +97,7 @@ export function simdGemm(
   }
   const cr = pcr >> 3, ci = pci >> 3;
   f.fill(0, cr, ci + m * n4);
-  const depth = panelDepth(n4);
-  for (let p0 = 0; p0 < k; p0 += depth) {
-    const kb = Math.min(depth, k - p0);
-    mod.ztile(m, n4, kb, pa + p0 * 16, k * 16, pb + p0 * 64, k * 64, pcr, pci, n4 * 8, 32);
-  }
+  ztileBlocked(mod, m, n4, k, pa, k * 16, pb, k * 64, pcr, pci, n4 * 8);
   for (let i = 0; i < m; i++) {
     const s = i * n4, d = 2 * (offC + i * ldc);
     if (accumulate) {
