@@ -10,6 +10,7 @@ import { assertCMatrix, assertFiniteCMatrix, assertSquare } from '../internal/va
 import { type CMatrix, identity, matrixView } from './cmatrix.js';
 import { norm1 } from './ops.js';
 import { gemmKernel } from '../internal/gemm.js';
+import { simdLuFactor } from '../internal/luWasm.js';
 
 /**
  * Result of {@link luFactor}: P·A = L·U.
@@ -30,89 +31,137 @@ export interface LuResult {
   readonly rcond: number;
 }
 
-/** Panel width of the blocked factorisation (columns factored together before one trailing product). */
-const LU_BLOCK = 16;
+/** Panel width at which the recursion stops and columns are eliminated one by one. */
+const LU_LEAF = 4;
+
+/** Largest order factored whole in the WebAssembly module (16·n² bytes, within cache); larger ones recurse on the product kernel. */
+const LU_SIMD_MAX_ORDER = 160;
 
 /**
- * Blocked right-looking LU with partial pivoting in place on interleaved row-major
- * storage (n×n): each panel of LU_BLOCK columns is factored by row operations (pivot
- * rows swapped across the full width), the block row of U to its right is solved with
- * the panel's unit lower triangle, and the trailing matrix receives one product
- * A₂₂ −= L₂₁U₁₂ through the shared complex product kernel (its SIMD path for large
- * blocks). Golub & Van Loan, *Matrix Computations*, 4th ed., 2013, §3.4.4 (from memory).
+ * LU with partial pivoting in place on interleaved row-major storage (n×n),
+ * by recursion on the columns (Toledo, "Locality of reference in LU
+ * decomposition with partial pivoting", SIAM J. Matrix Anal. Appl. 18(4),
+ * 1997): the left half of a panel is factored, the block of U to its right is
+ * solved with the half's unit lower triangle, the rest of the panel receives
+ * one product A₂₂ −= L₂₁U₁₂ through the shared complex product kernel, and
+ * the right half is factored the same way. Pivot rows are swapped across the
+ * full width, so P·A = L·U exactly as in the right-looking elimination
+ * (Golub & Van Loan, *Matrix Computations*, 4th ed., 2013, Alg. 3.4.1); most
+ * of the work runs in the product kernel (its SIMD path). Panels of at most
+ * LU_LEAF columns are eliminated column by column. With WebAssembly SIMD, orders
+ * up to LU_SIMD_MAX_ORDER are instead eliminated whole in the module memory of
+ * `wasm/lu.wat` (same pivots and operation order as the column-by-column code),
+ * which spares the per-block product calls that dominate at such sizes.
+ * `src`, when given, holds A and `d` receives the factors.
+ * @internal Pivots in `piv` (initialised to the identity by the caller);
+ * `minPivot` is the smallest pivot modulus (0 when a pivot is exactly zero).
  */
-/** @internal Blocked LU in place (pivots in `piv`, initialised to the identity by the caller). */
-export function factorInPlace(n: number, d: Float64Array, piv: Int32Array): { sign: number; exactlySingular: boolean } {
-  let sign = 1;
-  let exactlySingular = false;
-  for (let k0 = 0; k0 < n; k0 += LU_BLOCK) {
-    const kEnd = Math.min(n, k0 + LU_BLOCK);
-    for (let k = k0; k < kEnd; k++) {
-      let p = k;
-      let best = -1;
-      for (let i = k; i < n; i++) {
-        const q = 2 * (i * n + k);
-        const m = d[q] * d[q] + d[q + 1] * d[q + 1];
-        if (m > best) { best = m; p = i; }
+export function factorInPlace(n: number, d: Float64Array, piv: Int32Array, src: Float64Array = d): { sign: number; exactlySingular: boolean; minPivot: number } {
+  if (n <= LU_SIMD_MAX_ORDER) {
+    const r = simdLuFactor(n, src, piv, d);
+    if (r !== null) return { sign: r.swaps % 2 === 0 ? 1 : -1, exactlySingular: r.minPivotSq === 0, minPivot: Math.sqrt(r.minPivotSq) };
+  }
+  if (src !== d) d.set(src);
+  const state = { sign: 1, minPivotSq: Infinity };
+  factorPanel(n, d, piv, 0, n, state);
+  return { sign: state.sign, exactlySingular: state.minPivotSq === 0, minPivot: Math.sqrt(state.minPivotSq) };
+}
+
+/** Factors columns k … k+w−1 of rows k … n−1 (everything left of column k already factored and applied). */
+function factorPanel(n: number, d: Float64Array, piv: Int32Array, k: number, w: number, state: { sign: number; minPivotSq: number }): void {
+  if (w <= LU_LEAF) {
+    eliminatePanel(n, d, piv, k, w, state);
+    return;
+  }
+  const w1 = w >> 1, w2 = w - w1;
+  factorPanel(n, d, piv, k, w1, state);
+  // U₁₂ = L₁₁⁻¹ A₁₂, then A₂₂ −= L₂₁ U₁₂
+  solveUnitLowerBlock(n, d, k, w1, k + w1, w2);
+  gemmKernel(n - k - w1, w2, w1, d, (k + w1) * n + k, n, d, k * n + k + w1, n, d, (k + w1) * n + k + w1, n, true, -1);
+  factorPanel(n, d, piv, k + w1, w2, state);
+}
+
+/** Column-by-column elimination of the panel of columns k … k+w−1, rows k … n−1. */
+function eliminatePanel(n: number, d: Float64Array, piv: Int32Array, k0: number, w: number, state: { sign: number; minPivotSq: number }): void {
+  const kEnd = k0 + w;
+  for (let k = k0; k < kEnd; k++) {
+    let p = k;
+    let best = -1;
+    for (let i = k; i < n; i++) {
+      const q = 2 * (i * n + k);
+      const m = d[q] * d[q] + d[q + 1] * d[q + 1];
+      if (m > best) { best = m; p = i; }
+    }
+    if (p !== k) {
+      const rk = 2 * k * n, rp = 2 * p * n;
+      for (let j = 0; j < 2 * n; j++) {
+        const t = d[rk + j]; d[rk + j] = d[rp + j]; d[rp + j] = t;
       }
-      if (p !== k) {
-        const rk = 2 * k * n, rp = 2 * p * n;
-        for (let j = 0; j < 2 * n; j++) {
-          const t = d[rk + j]; d[rk + j] = d[rp + j]; d[rp + j] = t;
-        }
-        const t = piv[k]; piv[k] = piv[p]; piv[p] = t;
-        sign = -sign;
-      }
-      const kk = 2 * (k * n + k);
-      const pr = d[kk], pi = d[kk + 1];
-      const den = pr * pr + pi * pi;
-      if (den === 0) { exactlySingular = true; continue; }
-      const ir = pr / den, ii = -pi / den;
-      const rk = 2 * k * n;
-      for (let i = k + 1; i < n; i++) {
-        const q = 2 * (i * n + k);
-        const lr = d[q] * ir - d[q + 1] * ii;
-        const li = d[q] * ii + d[q + 1] * ir;
-        d[q] = lr; d[q + 1] = li;
-        if (lr === 0 && li === 0) continue;
-        const ri = 2 * i * n;
-        // inside the panel only; columns right of it are updated blockwise below
-        for (let j = 2 * (k + 1); j < 2 * kEnd; j += 2) {
-          const ur = d[rk + j], ui = d[rk + j + 1];
-          d[ri + j] -= lr * ur - li * ui;
-          d[ri + j + 1] -= lr * ui + li * ur;
-        }
+      const t = piv[k]; piv[k] = piv[p]; piv[p] = t;
+      state.sign = -state.sign;
+    }
+    const kk = 2 * (k * n + k);
+    const pr = d[kk], pi = d[kk + 1];
+    const den = pr * pr + pi * pi;
+    if (den < state.minPivotSq) state.minPivotSq = den;
+    if (den === 0) continue;
+    const ir = pr / den, ii = -pi / den;
+    const rk = 2 * k * n;
+    for (let i = k + 1; i < n; i++) {
+      const q = 2 * (i * n + k);
+      const lr = d[q] * ir - d[q + 1] * ii;
+      const li = d[q] * ii + d[q + 1] * ir;
+      d[q] = lr; d[q + 1] = li;
+      if (lr === 0 && li === 0) continue;
+      const ri = 2 * i * n;
+      // inside the panel only; columns right of it are updated by the caller's product
+      for (let j = 2 * (k + 1); j < 2 * kEnd; j += 2) {
+        const ur = d[rk + j], ui = d[rk + j + 1];
+        d[ri + j] -= lr * ur - li * ui;
+        d[ri + j + 1] -= lr * ui + li * ur;
       }
     }
-    if (kEnd === n) break;
-    // U₁₂: forward substitution with the panel's unit lower triangle, row by row
-    for (let i = k0 + 1; i < kEnd; i++) {
+  }
+}
+
+/**
+ * B := L⁻¹ B in place, L the unit lower triangle of the w×w diagonal block at
+ * (k, k) and B the w×cols block at (k, c); recursive halving, so that the
+ * off-diagonal work is one product per level, with forward substitution below LU_LEAF rows.
+ */
+function solveUnitLowerBlock(n: number, d: Float64Array, k: number, w: number, c: number, cols: number): void {
+  if (w <= LU_LEAF) {
+    for (let i = k + 1; i < k + w; i++) {
       const ri = 2 * i * n;
-      for (let r = k0; r < i; r++) {
+      for (let r = k; r < i; r++) {
         const lr = d[ri + 2 * r], li = d[ri + 2 * r + 1];
         if (lr === 0 && li === 0) continue;
         const rr = 2 * r * n;
-        for (let j = 2 * kEnd; j < 2 * n; j += 2) {
+        for (let j = 2 * c; j < 2 * (c + cols); j += 2) {
           const ur = d[rr + j], ui = d[rr + j + 1];
           d[ri + j] -= lr * ur - li * ui;
           d[ri + j + 1] -= lr * ui + li * ur;
         }
       }
     }
-    // A₂₂ −= L₂₁ · U₁₂
-    const m = n - kEnd, kb = kEnd - k0;
-    gemmKernel(m, m, kb, d, kEnd * n + k0, n, d, k0 * n + kEnd, n, d, kEnd * n + kEnd, n, true, -1);
+    return;
   }
-  return { sign, exactlySingular };
+  const h = w >> 1;
+  solveUnitLowerBlock(n, d, k, h, c, cols);
+  gemmKernel(w - h, cols, h, d, (k + h) * n + k, n, d, k * n + c, n, d, (k + h) * n + c, n, true, -1);
+  solveUnitLowerBlock(n, d, k + h, w - h, c, cols);
 }
 
 /**
  * LU factorisation with partial (row) pivoting, P·A = L·U.
  *
  * @remarks
- * Right-looking Doolittle elimination with row operations on contiguous rows;
- * the pivot is the entry of largest modulus in the column (Golub & Van Loan,
- * *Matrix Computations*, 4th ed., 2013, Alg. 3.4.1). The reciprocal condition
+ * Doolittle elimination with row operations on contiguous rows; the pivot is
+ * the entry of largest modulus in the column (Golub & Van Loan, *Matrix
+ * Computations*, 4th ed., 2013, Alg. 3.4.1): up to order 160 whole on a
+ * WebAssembly SIMD kernel, above it by recursion on the columns so that most
+ * work runs in the complex product kernel (Toledo, SIAM J. Matrix Anal. Appl.
+ * 18(4), 1997). The reciprocal condition
  * number is estimated with Hager's 1-norm estimator as refined by Higham
  * ("FORTRAN codes for estimating the one-norm of a real or complex matrix",
  * ACM TOMS 14(4), 1988, Alg. 4.1), costing a few extra solves. Poor
@@ -129,16 +178,48 @@ export function factorInPlace(n: number, d: Float64Array, piv: Int32Array): { si
  * @category Complex core
  */
 export function luFactor(a: CMatrix): LuResult {
+  return factorValidated(a, 'always');
+}
+
+/** Smallest pivot modulus, relative to the largest entry modulus of A, that {@link solve} accepts without a condition estimate (√ε). */
+const PIVOT_SUSPECT = Math.sqrt(Number.EPSILON);
+
+/**
+ * Validates and factors `a`. The condition estimate runs `'always'`, `'never'`
+ * (rcond NaN, singular only for an exactly zero pivot), or `'suspect'`: only
+ * when the smallest pivot is below PIVOT_SUSPECT·max|aᵢⱼ|, else rcond is NaN.
+ * `transient`: the factors may be a view of the LU module's memory, valid only
+ * until its next use (for a caller that solves with them at once).
+ */
+function factorValidated(a: CMatrix, estimate: 'always' | 'suspect' | 'never', transient = false): LuResult {
   assertSquare('a', a);
-  assertFiniteCMatrix('a', a);
   const n = a.rows;
-  const d = a.data.slice();
+  // one pass: finiteness (x·0 is NaN only for ±Infinity and NaN) and the largest modulus
+  const src = a.data;
+  let bad = 0, maxSq = 0;
+  for (let i = 0; i < src.length; i += 2) {
+    const re = src[i], im = src[i + 1];
+    bad += re * 0 + im * 0;
+    const s = re * re + im * im;
+    if (s > maxSq) maxSq = s;
+  }
+  if (bad !== 0) assertFiniteCMatrix('a', a);
   const piv = new Int32Array(n);
   for (let i = 0; i < n; i++) piv[i] = i;
-  const { sign, exactlySingular } = factorInPlace(n, d, piv);
+  const inModule = transient && n <= LU_SIMD_MAX_ORDER ? simdLuFactor(n, src, piv) : null;
+  let d: Float64Array, sign: number, exactlySingular: boolean, minPivot: number;
+  if (inModule !== null) {
+    d = inModule.lu;
+    sign = inModule.swaps % 2 === 0 ? 1 : -1;
+    exactlySingular = inModule.minPivotSq === 0;
+    minPivot = Math.sqrt(inModule.minPivotSq);
+  } else {
+    d = new Float64Array(2 * n * n);
+    ({ sign, exactlySingular, minPivot } = factorInPlace(n, d, piv, src));
+  }
   const lu: CMatrix = { rows: n, cols: n, data: d };
-  let rcond = 0;
-  if (!exactlySingular) {
+  let rcond = exactlySingular ? 0 : NaN;
+  if (!exactlySingular && (estimate === 'always' || (estimate === 'suspect' && minPivot <= PIVOT_SUSPECT * Math.sqrt(maxSq)))) {
     const anorm = norm1(a);
     const inv = estimateInverseNorm1(n, d, piv);
     rcond = anorm === 0 || inv === 0 ? 0 : 1 / anorm / inv;
@@ -258,15 +339,27 @@ export function luSolveAdjoint(factor: LuResult, b: CMatrix): CMatrix {
 
 /**
  * Solves A X = B (LU with partial pivoting).
+ *
+ * @remarks
+ * Like LAPACK's `zgesv` (Anderson et al., *LAPACK Users' Guide*, 3rd ed.,
+ * SIAM, 1999, §2.3.1, from memory), `solve` skips the 1-norm condition estimate of
+ * {@link luFactor} — unless elimination meets a pivot of modulus below
+ * √ε·max|aᵢⱼ|: a matrix within a small relative distance of a singular one
+ * (|lᵢⱼ| ≤ 1, so zeroing such a pivot changes A by at most √n times it). Then
+ * the estimate runs and a reciprocal condition below ε throws, exactly as
+ * `luSolve(luFactor(a), b)` would. An exactly zero pivot always throws. Use
+ * {@link luFactor} to read `rcond` itself.
  * @param a - Square matrix, n×n.
  * @param b - Right-hand sides, n×k.
  * @returns X, n×k.
- * @throws {@link SingularMatrixError} if A is singular to working precision.
+ * @throws {@link SingularMatrixError} if A is exactly singular, or has a pivot below √ε·max|aᵢⱼ| and an estimated reciprocal condition below ε.
+ * @throws {@link DimensionError} if `a` is not square or `b` has the wrong number of rows; {@link DomainError} on NaN/Infinity.
  * @category Complex core
  */
 export function solve(a: CMatrix, b: CMatrix): CMatrix {
   assertCMatrix('b', b);
-  return luSolve(luFactor(a), b);
+  // the factors stay in the LU module's memory: they are used at once and dropped
+  return luSolve(factorValidated(a, 'suspect', true), b);
 }
 
 /**
@@ -291,7 +384,7 @@ export function inverse(a: CMatrix): CMatrix {
  * @category Complex core
  */
 export function determinant(a: CMatrix): Complex {
-  const f = luFactor(a);
+  const f = factorValidated(a, 'never');
   const { n } = f;
   const d = f.lu.data;
   let re = f.permutationSign, im = 0;
@@ -323,7 +416,7 @@ export interface LogDeterminantResult {
  * @category Complex core
  */
 export function logDeterminant(a: CMatrix): LogDeterminantResult {
-  const f = luFactor(a);
+  const f = factorValidated(a, 'never');
   const { n } = f;
   const d = f.lu.data;
   let logAbs = 0;

@@ -14,7 +14,7 @@
  * @internal
  * @module
  */
-import { gridsumWasm, jacobiWasm, rotateWasm, tridiagWasm, ztileWasm } from './modules.js';
+import { gridsumWasm, jacobiWasm, luWasm, rotateWasm, tridiagWasm, ztileWasm } from './modules.js';
 
 /**
  * Switch for tests and benchmarks: with `enabled` false every kernel reports
@@ -23,7 +23,7 @@ import { gridsumWasm, jacobiWasm, rotateWasm, tridiagWasm, ztileWasm } from './m
 export const wasmSettings = { enabled: true };
 
 /** The kernel modules, by name (the .wat file name). */
-const SOURCES = { ztile: ztileWasm, tridiag: tridiagWasm, rotate: rotateWasm, jacobi: jacobiWasm, gridsum: gridsumWasm } as const;
+const SOURCES = { ztile: ztileWasm, tridiag: tridiagWasm, rotate: rotateWasm, jacobi: jacobiWasm, gridsum: gridsumWasm, lu: luWasm } as const;
 /** Name of a kernel module. */
 export type KernelName = keyof typeof SOURCES;
 
