@@ -4,7 +4,8 @@
  * @module
  */
 import { ensureMemory } from './wasm/runtime.js';
-import { loadZtile } from './ztileWasm.js';
+import { JOB_KIND, runJob } from './wasm/threads.js';
+import { JOB_CHUNKS, loadZtile } from './ztileWasm.js';
 
 /** Order and rank from which the SIMD path is used. */
 const HERK_SIMD_MIN = 8;
@@ -98,8 +99,10 @@ function packedHerk(n: number, kk: number, c: Float64Array, pack: (f: Float64Arr
   }
   f.fill(0, cr, ci + n4 * n4);
   const ld = n4 * 8;
-  // rows [i0, i0+4) against columns [0, i0+4): the lower triangle in 4×4 granules
-  for (let i0 = 0; i0 < n4; i0 += 4) mod.ztile(4, i0 + 4, kk, i0 * kk * 16, kk * 16, pb, kk * 64, pcr + i0 * ld, pci + i0 * ld, ld, 32);
+  // rows [i0, i0+4) against columns [0, i0+4): the lower triangle in 4×4 granules, cut into
+  // chunks of about equal work for the kernel threads
+  const granules = n4 >> 2;
+  runJob(mod, JOB_KIND.HERK, [kk, pb, pcr, pci, ld, granules], Math.min(granules, JOB_CHUNKS), (n4 * (n4 + 4) * kk) / 2);
   for (let i = 0; i < n; i++) {
     const dd = 2 * i * n, s = i * n4;
     for (let j = 0; j < i; j++) { c[dd + 2 * j] += f[cr + s + j]; c[dd + 2 * j + 1] += f[ci + s + j]; }

@@ -8,15 +8,13 @@
  * @internal
  * @module
  */
-import { ensureMemory, kernelModule } from './wasm/runtime.js';
+import { ensureMemory } from './wasm/runtime.js';
+import { JOB_KIND, loadZtile, runJob } from './wasm/threads.js';
 
-/** Raw exports of the tiled product module (byte addresses into `memory`); arguments as in wasm/ztile.wat. */
-export interface ZtileFunctions {
-  ztile: (m: number, n: number, k: number, pa: number, lda: number, pb: number, ldbq: number, pcr: number, pci: number, ldc: number, ldcq: number) => void;
-}
+export { loadZtile };
 
-/** The tiled product module, or null on the scalar path. */
-export const loadZtile = kernelModule<ZtileFunctions>('ztile');
+/** Parts a job is cut into (contiguous rows or column groups), so that any thread count up to 8 is balanced. */
+export const JOB_CHUNKS = 32;
 
 /** Whether the SIMD product kernel runs in this runtime (false also when switched off for tests). */
 export function simdGemmAvailable(): boolean {
@@ -32,7 +30,9 @@ function panelDepth(n4: number): number {
  * C[m×n] (+)= alpha·A[m×k]·B[k×n] (alpha real) on interleaved row-major
  * storage with leading dimensions and offsets in complex elements (the
  * signature of the scalar `gemmKernel`), computed by the tiled kernel.
- * Returns false (doing nothing) on the scalar path.
+ * Returns false (doing nothing) on the scalar path. Rows of C are cut into
+ * contiguous blocks run on the kernel threads (`wasm/threads.ts`) when the
+ * product is large enough; each row's sums are the same for any thread count.
  * A and B are copied into the module memory before C is written, so C may
  * share a buffer with A or B as long as the regions do not overlap.
  */
@@ -69,11 +69,8 @@ export function simdGemm(
   }
   const cr = pcr >> 3, ci = pci >> 3;
   f.fill(0, cr, ci + m * n4);
-  const depth = panelDepth(n4);
-  for (let p0 = 0; p0 < k; p0 += depth) {
-    const kb = Math.min(depth, k - p0);
-    mod.ztile(m, n4, kb, pa + p0 * 16, k * 16, pb + p0 * 64, k * 64, pcr, pci, n4 * 8, 32);
-  }
+  const per = Math.ceil(m / JOB_CHUNKS);
+  runJob(mod, JOB_KIND.ROWS, [m, n4, k, pa, k * 16, pb, k * 64, pcr, pci, n4 * 8, 32, panelDepth(n4), per], Math.ceil(m / per), m * n4 * k);
   for (let i = 0; i < m; i++) {
     const s = i * n4, d = 2 * (offC + i * ldc);
     if (accumulate) {
