@@ -94,7 +94,8 @@ export function simdStatus(): SimdStatus {
  * @throws DomainError when `n` is neither `'auto'` nor an integer in 1 … 64.
  * @example
  * ```ts
- * setKernelThreads(1); // one thread, e.g. to compare with a single-threaded library
+ * setKernelThreads(1); // → 1
+ * simdStatus().threads; // 1
  * setKernelThreads('auto');
  * ```
  * @category Complex core

@@ -11,7 +11,8 @@ import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from 'vitest
 import { herkLowerScalarKernel, simdHerkLower } from '../../src/internal/herk.js';
 import { simdSolveTriangular } from '../../src/internal/triangularWasm.js';
 import { gemmScalarKernel } from '../../src/internal/gemm.js';
-import { threadSettings, workerCounts } from '../../src/internal/wasm/threads.js';
+import { DEFAULT_THREAD_CAP, PARALLEL_MIN_WORK, defaultThreadCount, threadSettings, workerCounts } from '../../src/internal/wasm/threads.js';
+import { availableParallelism } from 'node:os';
 import { type CMatrix, type CMatrixJSON, matrixFromJSON } from '../../src/linalg/cmatrix.js';
 import { choleskyFactor, choleskySolve } from '../../src/linalg/cholesky.js';
 import { luFactor, solve } from '../../src/linalg/lu.js';
@@ -164,6 +165,13 @@ describe('kernel threads forced on small problems: the numpy/scipy fixtures', ()
 });
 
 describe('setKernelThreads', () => {
+  it('the documented numbers: split from 64³ complex multiply–adds; default = available cores, at most 8', () => {
+    expect(PARALLEL_MIN_WORK).toBe(64 ** 3);
+    expect(DEFAULT_THREAD_CAP).toBe(8);
+    expect(defaultThreadCount()).toBe(Math.min(8, availableParallelism()));
+    setKernelThreads('auto');
+    expect(simdStatus().threads).toBe(Math.min(8, availableParallelism()));
+  });
   it('returns the count in use and simdStatus reports it', () => {
     expect(setKernelThreads(1)).toBe(1);
     expect(simdStatus()).toMatchObject({ threads: 1, threadsReason: 'one thread (setKernelThreads(1))' });
