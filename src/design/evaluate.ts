@@ -185,10 +185,12 @@ export interface FrequencyEvaluation {
   readonly integrationErrors: Array<Partial<Record<keyof BeamFigures, number>>>;
   /** Figures per beam, in beam order. */
   readonly beams: DesignBeamFigures[];
-  /** The array's minimum receiver temperature T_rec,min [K]; null when its check failed (see `checks`). */
+  /** The array's minimum receiver temperature T_rec,min [K]; null when its check failed (see `checks`) or the array figures were not computed. */
   readonly minimumReceiverTemperatureK: number | null;
-  /** Embedded element efficiency per (working) port (linear); empty when they could not be computed (see `checks`). */
+  /** Embedded element efficiency per (working) port (linear); empty when they could not be computed (see `checks`) or were not computed. */
   readonly embeddedElementEfficiency: number[];
+  /** Whether the array figures (T_rec,min, embedded element efficiencies) were computed: by default up to 1024 working ports (O(N³) each; reception's `arrayFigures: 'auto'`). */
+  readonly arrayFiguresComputed: boolean;
   /**
    * Physical self-checks at this frequency (reception module's receivingArrayChecks, with the
    * element model's validity): a failed check marks the figures it names as untrustworthy.
@@ -479,6 +481,7 @@ export function evaluateDesignFrequency(prepared: PreparedDesign, index: number)
     beams: beamRows,
     minimumReceiverTemperatureK: Number.isFinite(ev.minimumReceiverTemperatureK) ? ev.minimumReceiverTemperatureK : null,
     embeddedElementEfficiency: Array.from(ev.embeddedElementEfficiency),
+    arrayFiguresComputed: ev.arrayFiguresComputed,
     // wire elements add their own solution checks (reciprocity, passivity, thin-wire validity)
     checks: 'solution' in allPorts ? [...ev.checks, ...(allPorts as WireArrayPortSource).solution.checks] : ev.checks,
   };

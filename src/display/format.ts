@@ -368,7 +368,7 @@ function designText(d: Record<string, unknown>, o: Opts): string {
 function frequencyText(e: Record<string, unknown>, o: Opts): string {
   const beams = e.beams as Record<string, unknown>[];
   return [
-    `Frequency evaluation at ${withUnit(e.frequencyHz as number, 'Hz', o)}: sky ${withUnit(e.skyK as number, 'K', o)}, T_rec,min ${e.minimumReceiverTemperatureK === null ? '— (check failed)' : withUnit(e.minimumReceiverTemperatureK as number, 'K', o)}`,
+    `Frequency evaluation at ${withUnit(e.frequencyHz as number, 'Hz', o)}: sky ${withUnit(e.skyK as number, 'K', o)}, T_rec,min ${e.minimumReceiverTemperatureK !== null ? withUnit(e.minimumReceiverTemperatureK as number, 'K', o) : e.arrayFiguresComputed === false ? '— (array figures not computed)' : '— (check failed)'}`,
     ...beamTable(beams, o),
     `  ${checksText(e.checks as Record<string, unknown>[], o)}`,
   ].join('\n');
@@ -379,7 +379,7 @@ function receivingText(e: Record<string, unknown>, o: Opts): string {
   const eee = e.embeddedElementEfficiency as Float64Array;
   const q = e.quadrature as { weightSr?: ArrayLike<number> } | undefined;
   return [
-    `Receiving-array evaluation: ${w.rows} ports, ${w.cols} beam${w.cols === 1 ? '' : 's'}, T_rec,min ${withUnit(e.minimumReceiverTemperatureK as number, 'K', o)}`,
+    `Receiving-array evaluation: ${w.rows} ports, ${w.cols} beam${w.cols === 1 ? '' : 's'}, T_rec,min ${e.arrayFiguresComputed === false ? '— (array figures not computed)' : withUnit(e.minimumReceiverTemperatureK as number, 'K', o)}`,
     ...beamTable(e.beams as Record<string, unknown>[], o),
     `  embeddedElementEfficiency  ${seriesText(eee, '', o)}`,
     `  weights                    ${matrixLine(w, o)}`,

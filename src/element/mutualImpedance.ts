@@ -96,9 +96,21 @@ function crossedAtCentres(a: DipoleGeometry, b: DipoleGeometry): boolean {
   return Math.hypot(b.cx - a.cx, b.cy - a.cy, b.cz - a.cz) <= 1e-12 * scale && Math.abs(dot) <= 1e-12;
 }
 
-/** Self impedance of one dipole (free space) into out. */
+/**
+ * Self impedance of one dipole (free space) into out: the reactance from the
+ * filament's field on the wire surface ρ = a, the resistance from the filament
+ * limit ρ → 0 (evaluated at ρ = 10⁻⁹·h, where the closed form has converged to
+ * rounding), which is the power the filament radiates — the same filament whose
+ * far field the patterns use. With ρ = a the resistance would be low by O((ka)²)
+ * (0.0033 Ω of 64.94 Ω for l = 0.48λ, a = λ/400), which is enough to make
+ * Re Z of a large array indefinite in its invisible-space modes.
+ */
 function freeSelfInto(out: Float64Array, a: DipoleGeometry, k: number): Float64Array {
-  return parallelMutualImpedanceInto(out, k, a.halfLengthM, a.halfLengthM, a.radiusM, 0);
+  parallelMutualImpedanceInto(out, k, a.halfLengthM, a.halfLengthM, 1e-9 * a.halfLengthM, 0);
+  const r = out[0];
+  parallelMutualImpedanceInto(out, k, a.halfLengthM, a.halfLengthM, a.radiusM, 0);
+  out[0] = r;
+  return out;
 }
 
 const work = new Float64Array(2);
@@ -112,9 +124,13 @@ const work = new Float64Array(2);
  * surface ρ = a and integrated against the same current: the mutual impedance
  * of two side-by-side filaments a apart (Balanis, Antenna Theory, 4th ed., 2016,
  * §8.5 and eqs. (8-57)–(8-60), from memory), exact closed form with Si/Ci.
- * Referred to the terminal current: Z_in = Z_m / sin²(kl/2). The resistance
- * tends to the radiation resistance as a → 0 (its dependence on a is O((ka)²));
- * the reactance depends on a at every length. For l = λ/2 the exact form is
+ * Referred to the terminal current: Z_in = Z_m / sin²(kl/2). The resistance is
+ * taken in the limit a → 0, where it is the radiation resistance of the
+ * filament (Balanis eq. (8-60a), independent of a): the surface evaluation
+ * would lower it by O((ka)²), and only the filament value equals the integral
+ * of the filament's own far field, so that Re Z of an array is the positive
+ * semidefinite Gram matrix of its patterns (the Twiss identity of the
+ * conventions). The reactance depends on a at every length. For l = λ/2 the exact form is
  * X = (η/4π)[Si(2π) − 2 Si(ka) + Si(k(√(l² + a²) − l))] = (η/4π) Si(2π) − η·a/λ + O((ka)³):
  * the radius-free 42.515 Ω of the handbook formula (Balanis eq. (8-60b), which
  * drops the Si(ka) term; from memory) less η·a/λ. With η0 = 376.7303 Ω and
@@ -377,7 +393,8 @@ export function dipoleArrayImpedanceMatrix(dipoles: ReadonlyArray<WireDipole>, f
   const shapes = geo.map(shapeOf);
   const imageShapes = images ? images.map(shapeOf) : undefined;
   const cache = new PairTable();
-  const coupled = (a: DipoleGeometry, sa: number, b: DipoleGeometry, sb: number, pair: [number, number], what: string, out: Float64Array): void => {
+  // i, j and `image` only name the pair in an error message (built only when one is thrown)
+  const coupled = (a: DipoleGeometry, sa: number, b: DipoleGeometry, sb: number, i: number, j: number, image: boolean, out: Float64Array): void => {
     let qx = Math.round((b.cx - a.cx) / quantum), qy = Math.round((b.cy - a.cy) / quantum), qz = Math.round((b.cz - a.cz) / quantum);
     let s1 = sa, s2 = sb;
     // canonical order of the reciprocal pair: (a, b, Δ) ≡ (b, a, −Δ)
@@ -386,7 +403,8 @@ export function dipoleArrayImpedanceMatrix(dipoles: ReadonlyArray<WireDipole>, f
     }
     const shapePair = s1 * 1048576 + s2;
     if (cache.get(shapePair, qx, qy, qz, out)) return;
-    freePairInto(out, a, b, k, opts, pair, what);
+    const what = !image ? '' : i === j ? ' (element and its own ground image)' : ` (element ${i} and the ground image of element ${j})`;
+    freePairInto(out, a, b, k, opts, [i, j], what);
     cache.set(shapePair, qx, qy, qz, out);
   };
   const data = new Float64Array(2 * n * n);
@@ -395,20 +413,29 @@ export function dipoleArrayImpedanceMatrix(dipoles: ReadonlyArray<WireDipole>, f
     freeSelfInto(out, geo[i], k);
     let zr = out[0], zi = out[1];
     if (images && imageShapes) {
-      coupled(geo[i], shapes[i], images[i], imageShapes[i], [i, i], ' (element and its own ground image)', out);
+      coupled(geo[i], shapes[i], images[i], imageShapes[i], i, i, true, out);
       zr += out[0]; zi += out[1];
     }
     data[2 * (i * n + i)] = zr;
     data[2 * (i * n + i) + 1] = zi;
     for (let j = i + 1; j < n; j++) {
-      coupled(geo[i], shapes[i], geo[j], shapes[j], [i, j], '', out);
+      coupled(geo[i], shapes[i], geo[j], shapes[j], i, j, false, out);
       zr = out[0]; zi = out[1];
       if (images && imageShapes) {
-        coupled(geo[i], shapes[i], images[j], imageShapes[j], [i, j], ` (element ${i} and the ground image of element ${j})`, out);
+        coupled(geo[i], shapes[i], images[j], imageShapes[j], i, j, true, out);
         zr += out[0]; zi += out[1];
       }
       data[2 * (i * n + j)] = zr; data[2 * (i * n + j) + 1] = zi;
-      data[2 * (j * n + i)] = zr; data[2 * (j * n + i) + 1] = zi;
+    }
+  }
+  // Z is symmetric (reciprocity): the lower triangle by transposing the upper in cache-sized tiles
+  for (let i0 = 0; i0 < n; i0 += 32) {
+    for (let j0 = 0; j0 <= i0; j0 += 32) {
+      for (let i = i0; i < Math.min(n, i0 + 32); i++) {
+        for (let j = j0; j < Math.min(i, j0 + 32); j++) {
+          data[2 * (i * n + j)] = data[2 * (j * n + i)]; data[2 * (i * n + j) + 1] = data[2 * (j * n + i) + 1];
+        }
+      }
     }
   }
   return matrixView(n, n, data);

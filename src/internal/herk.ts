@@ -4,8 +4,7 @@
  * @module
  */
 import { ensureMemory } from './wasm/runtime.js';
-import { JOB_KIND, runJob } from './wasm/threads.js';
-import { JOB_CHUNKS, loadZtile } from './ztileWasm.js';
+import { loadZtile, ztileBlocked } from './ztileWasm.js';
 
 /** Order and rank from which the SIMD path is used. */
 const HERK_SIMD_MIN = 8;
@@ -98,11 +97,9 @@ function packedHerk(n: number, kk: number, c: Float64Array, pack: (f: Float64Arr
     }
   }
   f.fill(0, cr, ci + n4 * n4);
-  const ld = n4 * 8;
-  // rows [i0, i0+4) against columns [0, i0+4): the lower triangle in 4×4 granules, cut into
-  // chunks of about equal work for the kernel threads
-  const granules = n4 >> 2;
-  runJob(mod, JOB_KIND.HERK, [kk, pb, pcr, pci, ld, granules], Math.min(granules, JOB_CHUNKS), (n4 * (n4 + 4) * kk) / 2);
+  // column blocks against the rows from their first column down: the lower triangle in
+  // blocks (the diagonal blocks also form their upper part, which is not copied out)
+  ztileBlocked(mod, n4, n4, kk, 0, kk * 16, pb, kk * 64, pcr, pci, n4 * 8, true);
   for (let i = 0; i < n; i++) {
     const dd = 2 * i * n, s = i * n4;
     for (let j = 0; j < i; j++) { c[dd + 2 * j] += f[cr + s + j]; c[dd + 2 * j + 1] += f[ci + s + j]; }

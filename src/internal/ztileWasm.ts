@@ -9,30 +9,54 @@
  * @module
  */
 import { ensureMemory } from './wasm/runtime.js';
-import { JOB_KIND, loadZtile, runJob } from './wasm/threads.js';
+import { JOB_KIND, loadZtile, runJob, type ZtileKernel } from './wasm/threads.js';
 
 export { loadZtile };
-
-/** Parts a job is cut into (contiguous rows or column groups), so that any thread count up to 8 is balanced. */
-export const JOB_CHUNKS = 32;
 
 /** Whether the SIMD product kernel runs in this runtime (false also when switched off for tests). */
 export function simdGemmAvailable(): boolean {
   return loadZtile() !== null;
 }
 
-/** Inner-dimension steps per pass, so that the packed B block (n4·kb·16 bytes) stays within ~256 KiB of L2. */
-function panelDepth(n4: number): number {
-  return Math.max(4, Math.floor((256 * 1024) / (16 * n4)));
+/** Columns of C per block of {@link ztileBlocked} (a multiple of four). */
+const BLOCK_COLUMNS = 128;
+/** Inner-dimension steps per block of {@link ztileBlocked}: with {@link BLOCK_COLUMNS} the packed B block is 128·128·16 B = 256 KiB (L2). */
+const BLOCK_DEPTH = 128;
+
+/**
+ * C (+)= A·B on the tiled kernel in blocks of {@link BLOCK_COLUMNS} columns ×
+ * {@link BLOCK_DEPTH} inner steps (Goto & van de Geijn 2008, from memory: the
+ * packed B block stays in L2 while every row of A streams past it, and each
+ * entry of C is read and written once per depth block). Without the column
+ * blocking the depth that fits L2 shrinks as 1/n and C is re-streamed k/kb
+ * times: at n = 3169 that was a depth of 5 and ~200 GB of C traffic.
+ * Addresses in bytes, layout of wasm/ztile.wat (B in four-column panels of
+ * stride `ldbq`, C planes with row stride `ldc` and panel stride 32).
+ * With `lower`, the column block starting at column j0 needs only rows j0 and
+ * below (a lower triangle, in blocks); else every row. C is accumulated.
+ * The blocks are a job of the kernel threads (`wasm/threads.ts`): each column
+ * block's rows are cut into parts so that there are at least
+ * {@link MIN_CHUNKS} (column block, row part) chunks; a chunk runs every depth
+ * block of its part, so each entry's sums are the same for any thread count.
+ */
+export function ztileBlocked(
+  mod: ZtileKernel, m: number, n4: number, k: number,
+  pa: number, lda: number, pb: number, ldbq: number, pcr: number, pci: number, ldc: number,
+  lower = false,
+): void {
+  const blocks = Math.ceil(n4 / BLOCK_COLUMNS);
+  const parts = Math.max(1, Math.min(m >> 2, Math.ceil(MIN_CHUNKS / blocks)));
+  runJob(mod, JOB_KIND.BLOCKS, [m, n4, k, pa, lda, pb, ldbq, pcr, pci, ldc, lower ? 1 : 0, BLOCK_COLUMNS, BLOCK_DEPTH, parts], blocks * parts, lower ? (m * n4 * k) / 2 : m * n4 * k);
 }
+
+/** Chunks a blocked product is cut into at least (where it has that many rows), so that up to eight threads balance. */
+const MIN_CHUNKS = 16;
 
 /**
  * C[m×n] (+)= alpha·A[m×k]·B[k×n] (alpha real) on interleaved row-major
  * storage with leading dimensions and offsets in complex elements (the
  * signature of the scalar `gemmKernel`), computed by the tiled kernel.
- * Returns false (doing nothing) on the scalar path. Rows of C are cut into
- * contiguous blocks run on the kernel threads (`wasm/threads.ts`) when the
- * product is large enough; each row's sums are the same for any thread count.
+ * Returns false (doing nothing) on the scalar path.
  * A and B are copied into the module memory before C is written, so C may
  * share a buffer with A or B as long as the regions do not overlap.
  */
@@ -69,8 +93,7 @@ export function simdGemm(
   }
   const cr = pcr >> 3, ci = pci >> 3;
   f.fill(0, cr, ci + m * n4);
-  const per = Math.ceil(m / JOB_CHUNKS);
-  runJob(mod, JOB_KIND.ROWS, [m, n4, k, pa, k * 16, pb, k * 64, pcr, pci, n4 * 8, 32, panelDepth(n4), per], Math.ceil(m / per), m * n4 * k);
+  ztileBlocked(mod, m, n4, k, pa, k * 16, pb, k * 64, pcr, pci, n4 * 8);
   for (let i = 0; i < m; i++) {
     const s = i * n4, d = 2 * (offC + i * ldc);
     if (accumulate) {

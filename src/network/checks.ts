@@ -150,21 +150,27 @@ const DENSE_EIGEN_MAX_ORDER = 500;
  * sign of the Lanczos estimate of the smallest eigenvalue (an upper bound: a negative estimate
  * proves non-passivity, a positive one does not prove passivity) and `factor` is null.
  */
-export function impedancePassivityWithFactor(impedanceOhm: CMatrix, maxSteps = 150, factorise = true): ImpedancePassivity & { factor: CholeskyResult | null } {
+export function impedancePassivityWithFactor(
+  impedanceOhm: CMatrix, maxSteps = 150, factorise = true, scaledHermitianPart?: { matrix: CMatrix; scale: number },
+): ImpedancePassivity & { factor: CholeskyResult | null } {
   assertSquare('impedanceOhm', impedanceOhm);
   assertFiniteCMatrix('impedanceOhm', impedanceOhm);
-  const h = hermitianPart(impedanceOhm);
+  // (Z + Zᴴ)/2 = matrix / scale when the caller already holds a multiple of it (the noise budget's
+  // R_iso,1K = 4k_B B·(Z + Zᴴ)/2 saves an N×N copy); the factor is then that of the multiple
+  const h = scaledHermitianPart?.matrix ?? hermitianPart(impedanceOhm);
+  const inv = scaledHermitianPart === undefined ? 1 : 1 / scaledHermitianPart.scale;
   const n = h.rows;
+  const apply = (x: Float64Array, y: Float64Array): void => gemmKernel(n, 1, n, h.data, 0, n, x, 0, 1, y, 0, 1, false, inv);
   if (!factorise && n > DENSE_EIGEN_MAX_ORDER) {
-    const e = lanczosExtremes(n, (x, y) => gemmKernel(n, 1, n, h.data, 0, n, x, 0, 1, y, 0, 1, false), 'both', 1e-10, Math.min(n, maxSteps));
+    const e = lanczosExtremes(n, apply, 'both', 1e-10, Math.min(n, maxSteps));
     return { positiveDefinite: e.min > 0, smallestEigenvalueOhm: e.min, largestEigenvalueOhm: e.max, converged: e.converged, factor: null };
   }
   const factor = choleskyFactor(h);
   if (n <= DENSE_EIGEN_MAX_ORDER) {
     const v = hermitianEigen(h, { valuesOnly: true }).values;
-    return { positiveDefinite: factor.positiveDefinite, smallestEigenvalueOhm: v[0], largestEigenvalueOhm: v[n - 1], converged: true, factor };
+    return { positiveDefinite: factor.positiveDefinite, smallestEigenvalueOhm: v[0] * inv, largestEigenvalueOhm: v[n - 1] * inv, converged: true, factor };
   }
-  const e = lanczosExtremes(n, (x, y) => gemmKernel(n, 1, n, h.data, 0, n, x, 0, 1, y, 0, 1, false), 'both', 1e-10, Math.min(n, maxSteps));
+  const e = lanczosExtremes(n, apply, 'both', 1e-10, Math.min(n, maxSteps));
   return { positiveDefinite: factor.positiveDefinite, smallestEigenvalueOhm: e.min, largestEigenvalueOhm: e.max, converged: e.converged, factor };
 }
 

@@ -335,7 +335,18 @@ export function thermalImpedanceNoise(impedanceOhm: CMatrix, temperatureK: numbe
   assertFiniteCMatrix('impedanceOhm', impedanceOhm);
   assertNonNegative('temperatureK', temperatureK, 'K');
   assertPositive('bandwidthHz', bandwidthHz, 'Hz');
-  return scale(add(impedanceOhm, adjoint(impedanceOhm)), 2 * K_BOLTZMANN_J_PER_K * temperatureK * bandwidthHz);
+  // one pass: (Z + Zᴴ)_ij = Z_ij + conj(Z_ji), scaled (no intermediate N×N copies)
+  const n = impedanceOhm.rows, z = impedanceOhm.data, c = 2 * K_BOLTZMANN_J_PER_K * temperatureK * bandwidthHz;
+  const out = new Float64Array(2 * n * n);
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j <= i; j++) {
+      const a = 2 * (i * n + j), b = 2 * (j * n + i);
+      const re = c * (z[a] + z[b]), im = c * (z[a + 1] - z[b + 1]);
+      out[a] = re; out[a + 1] = i === j ? 0 : im;
+      out[b] = re; out[b + 1] = i === j ? 0 : -im;
+    }
+  }
+  return { rows: n, cols: n, data: out };
 }
 
 /**

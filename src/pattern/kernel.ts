@@ -12,12 +12,19 @@
  *   so its rounding stays below ~20 ulp) — and the sum costs one complex
  *   multiply-add per element.
  * The cheaper of the two is chosen from a simple cost model.
+ * A full grid (every row holds every column, both on progressions) pairs each
+ * column with its mirror and each row with its mirror; on WebAssembly SIMD the
+ * sum is then the bilinear form xᵀ B y of real cos/sin tables (`gridsumWasm.ts`),
+ * and `evaluateFullGrid` below is the scalar path.
  * @internal
  * @module
  */
 
-/** Re-seed period of the phase recurrence. */
-const RESEED = 16;
+import { PHASE_RESEED as RESEED, pairedColumns, pairedHalf, simdGridSum, type GridSumShape } from '../internal/gridsumWasm.js';
+
+/** Directions from which the SIMD grid sum pays for copying its weight matrix. */
+const GRID_SUM_MIN_DIRECTIONS = 32;
+
 
 /** Precomputed summation plan of one layout. */
 export interface ArrayFactorPlan {
@@ -52,6 +59,11 @@ export interface ArrayFactorPlan {
    * halves the multiplications (exact).
    */
   readonly fullGrid: boolean;
+  /**
+   * A full grid whose rows also form a progression in one plane: the SIMD
+   * grid sum applies (both axes mirror-paired); its shape, else null.
+   */
+  readonly gridShape: GridSumShape | null;
 }
 
 function progressionStep(v: Float64Array): number {
@@ -122,7 +134,11 @@ export function planArrayFactor(positionsM: Float64Array): ArrayFactorPlan {
   const factored = colCost + rowCost + 1.5 * n < 8 * n;
   let fullGrid = factored && !Number.isNaN(colStep) && colValues.length >= 2 && rowCount * colValues.length === n;
   for (let g = 0; fullGrid && g < n; g++) fullGrid = colIndex[g] === g % colValues.length;
-  return { count: n, factored, order, positions, axisA, axisB, axisC, colValues, colStep, colIndex, rowStart, rowB, rowC, planar, rowStep, fullGrid };
+  const gridShape: GridSumShape | null = fullGrid && planar && !Number.isNaN(rowStep) ? {
+    cols: colValues.length, colStep, rows: rowCount, rowStep, axisA, axisB, axisC,
+    midA: 0.5 * (colValues[0] + colValues[colValues.length - 1]), midB: 0.5 * (rowB[0] + rowB[rowCount - 1]), planeC: rowC[0],
+  } : null;
+  return { count: n, factored, order, positions, axisA, axisB, axisC, colValues, colStep, colIndex, rowStart, rowB, rowC, planar, rowStep, fullGrid, gridShape };
 }
 
 /** Fills re/im with exp(j(s·values[i] + offset)), by recurrence when `step` is a number. */
@@ -165,6 +181,8 @@ export interface KernelWork {
   pairs: Float64Array;
   /** Full-grid path: half-table of cos δ, sin δ for four directions. */
   half: Float64Array;
+  /** Grid-sum path: the paired weight matrix B, nx rows of pairedColumns(ny) entries [re, im]. */
+  gridB: Float64Array;
 }
 
 /** Allocates the work buffers of a plan. */
@@ -176,7 +194,49 @@ export function kernelWork(plan: ArrayFactorPlan): KernelWork {
     cwRe: new Float64Array(plan.count), cwIm: new Float64Array(plan.count),
     pairs: new Float64Array(plan.fullGrid ? 4 * nr * Math.floor(nc / 2) : 0),
     half: new Float64Array(plan.fullGrid ? 8 * Math.floor(nc / 2) : 0),
+    gridB: new Float64Array(plan.gridShape === null ? 0 : 2 * nc * pairedColumns(nr)),
   };
+}
+
+/**
+ * Table slots of value c of an axis with `count` values in the mirror-paired
+ * table [cos φ_0 … cos φ_{h−1}, (1 if odd), sin φ_0 … sin φ_{h−1}], φ_i the
+ * i-th phase outward from the middle: e^{jφ(c)} = cos-slot term + j·sign·sin-slot term
+ * (sin slot −1 for the middle value of an odd count).
+ */
+function pairedSlots(count: number, c: number): { cosSlot: number; sinSlot: number; sign: number } {
+  const { h, odd } = pairedHalf(count);
+  if (odd && c === h) return { cosSlot: h, sinSlot: -1, sign: 0 };
+  const upper = c >= h + odd;
+  const i = upper ? c - h - odd : h - 1 - c;
+  return { cosSlot: i, sinSlot: h + odd + i, sign: upper ? 1 : -1 };
+}
+
+/**
+ * The paired weight matrix B of the grid sum: AF = m · Σ_ab x_a B[a, b] y_b,
+ * each weight W[r, c] adding W·(x-coefficient)·(y-coefficient) to the (at most)
+ * four entries its column and row slots name; j·W and −W are exact.
+ */
+function loadGridMatrix(plan: ArrayFactorPlan, work: KernelWork): void {
+  const shape = plan.gridShape!;
+  const d = shape.cols, rows = shape.rows, nyp = pairedColumns(2 * (rows >> 1) + (rows & 1));
+  const b = work.gridB;
+  b.fill(0);
+  const add = (a: number, col: number, re: number, im: number): void => {
+    b[2 * (a * nyp + col)] += re;
+    b[2 * (a * nyp + col) + 1] += im;
+  };
+  for (let r = 0; r < rows; r++) {
+    const y = pairedSlots(rows, r);
+    for (let c = 0; c < d; c++) {
+      const x = pairedSlots(d, c);
+      const wr = work.cwRe[r * d + c], wi = work.cwIm[r * d + c];
+      add(x.cosSlot, y.cosSlot, wr, wi);
+      if (x.sinSlot >= 0) add(x.sinSlot, y.cosSlot, -x.sign * wi, x.sign * wr);
+      if (y.sinSlot >= 0) add(x.cosSlot, y.sinSlot, -y.sign * wi, y.sign * wr);
+      if (x.sinSlot >= 0 && y.sinSlot >= 0) add(x.sinSlot, y.sinSlot, -x.sign * y.sign * wr, -x.sign * y.sign * wi);
+    }
+  }
 }
 
 /**
@@ -202,6 +262,7 @@ export function loadWeights(plan: ArrayFactorPlan, work: KernelWork, w: Float64A
       }
     }
   }
+  if (plan.gridShape !== null) loadGridMatrix(plan, work);
 }
 
 /**
@@ -230,6 +291,7 @@ export function evaluateArrayFactor(
     }
     return;
   }
+  if (plan.gridShape !== null && m1 - m0 >= GRID_SUM_MIN_DIRECTIONS && simdGridSum(plan.gridShape, work.gridB, directions, k, out, m0, m1)) return;
   if (plan.fullGrid) {
     evaluateFullGrid(plan, work, directions, k, out, m0, m1);
     return;

@@ -8,7 +8,7 @@ import type { CMatrix } from '../linalg/cmatrix.js';
 import { herkLowerKernel, herkLowerWeighted, mirrorLowerToUpper } from '../internal/herk.js';
 import { assertInteger, assertPositive, describeValue } from '../internal/validate.js';
 import { C0_M_PER_S, ETA0_OHM, K_BOLTZMANN_J_PER_K } from '../units/constants.js';
-import { displacementStructure, shiftedBrightnessCorrelations } from './displacement.js';
+import { displacementStructure, shiftedBrightnessCorrelations, shiftedBrightnessForms } from './displacement.js';
 import {
   assertQuadrature, asPatternSource, isPatternSource,
   type PortPatternSource, type QuadratureDirections, type SampledPortPatterns,
@@ -184,6 +184,27 @@ export function brightnessCorrelations(
     for (let k = 0; k < c.length; k++) c[k] *= scale;
     return matrixView(n, n, c);
   });
+}
+
+/**
+ * @internal Re{wₖᴴ R_t wₖ} of the brightness correlations R_t of {@link brightnessCorrelations}
+ * for every map t and column k of `weights` (N×K), one Float64Array of K values per map. On
+ * the displacement path the matrices are never formed (weights' autocorrelation over the
+ * distinct displacements); otherwise the matrices are formed and `forms` evaluates them.
+ * No argument checks beyond those of the matrix path.
+ */
+export function brightnessQuadraticForms(
+  src: PortPatternSource, quadrature: QuadratureDirections, maps: ReadonlyArray<Float64Array>, bandwidthHz: number,
+  weights: CMatrix, forms: (w: CMatrix, matrices: CMatrix[]) => Float64Array[],
+): Float64Array[] {
+  if (src.shifted !== undefined) {
+    const structure = displacementStructure(src.shifted.offsetsM);
+    if (structure !== null) {
+      const scale = (4 * K_BOLTZMANN_J_PER_K * bandwidthHz) / (ETA0_OHM * src.driveCurrentA * src.driveCurrentA);
+      return shiftedBrightnessForms(src.shifted, structure, (2 * Math.PI * src.frequencyHz) / C0_M_PER_S, quadrature, maps, scale, weights);
+    }
+  }
+  return forms(weights, brightnessCorrelations(src, quadrature, maps, bandwidthHz));
 }
 
 /**

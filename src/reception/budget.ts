@@ -9,7 +9,7 @@ import { assertFiniteCMatrix, assertSquare, assertPositive, describeValue } from
 import { T0_K } from '../units/constants.js';
 import { receiverNoiseCorrelation } from './amplifier.js';
 import {
-  aboveHorizon, brightnessCorrelations, brightnessValues, checkTemperature, zenithInArrayFrame,
+  aboveHorizon, brightnessCorrelations, brightnessQuadraticForms, brightnessValues, checkTemperature, zenithInArrayFrame,
   type Brightness, type BrightnessOptions, type HorizonOrientation,
 } from './brightness.js';
 import {
@@ -17,6 +17,7 @@ import {
   type PortPatternSource, type QuadratureDirections, type SampledPortPatterns,
 } from './patterns.js';
 import { ohmicLossNoiseCorrelation } from './thermal.js';
+import { columnQuadraticForms, type BudgetForms } from './figures.js';
 import { thermalImpedanceNoise, type NoiseParametersInput } from '../network/noise.js';
 import type { Vector3 } from '../geometry/layout.js';
 import { matrixView } from '../linalg/cmatrix.js';
@@ -231,10 +232,8 @@ export function arrayNoiseBudget(input: NoiseBudgetInput): NoiseBudget {
   };
 }
 
-/** @internal The four brightness integrals of a budget (one blocked pass): sky, ground, 1 K on the sky region and on all directions. */
-export function externalNoise(
-  src: PortPatternSource, q: QuadratureDirections, env: NoiseEnvironment, b: number, options: BrightnessOptions,
-): { sky: CMatrix; ground: CMatrix; skyRegionPerK: CMatrix; radiationPerK: CMatrix } {
+/** The four brightness maps of an environment on a rule: T on the sky region, T on the ground region, 1 on each region. */
+function regionMaps(q: QuadratureDirections, env: NoiseEnvironment): Float64Array[] {
   const t = brightnessValues('input.environment.brightnessK', env.brightnessK, q);
   const m = q.thetaRad.length;
   const tSky = new Float64Array(m), tGround = new Float64Array(m), oneSky = new Float64Array(m), oneGround = new Float64Array(m);
@@ -242,9 +241,46 @@ export function externalNoise(
     const sky = env.isSky === undefined ? true : env.isSky(q.thetaRad[k], q.phiRad[k]);
     if (sky) { tSky[k] = t[k]; oneSky[k] = 1; } else { tGround[k] = t[k]; oneGround[k] = 1; }
   }
-  const [sky, ground, skyRegionPerK, groundRegionPerK] = brightnessCorrelations(src, q, [tSky, tGround, oneSky, oneGround], b, options);
+  return [tSky, tGround, oneSky, oneGround];
+}
+
+/** c·A as a new matrix (a plain loop: typed-array map is several times slower at N² = 10⁷). */
+function scaledCopy(a: CMatrix, c: number): CMatrix {
+  const src = a.data, out = new Float64Array(src.length);
+  for (let k = 0; k < src.length; k++) out[k] = c * src[k];
+  return matrixView(a.rows, a.cols, out);
+}
+
+/** The value T when `t` equals T·`region` at every direction (`region` a 0/1 indicator), else null. */
+function constantOn(t: Float64Array, region: Float64Array): number | null {
+  let c: number | null = null;
+  for (let k = 0; k < t.length; k++) {
+    if (region[k] === 0) continue;
+    if (c === null) c = t[k];
+    else if (t[k] !== c) return null;
+  }
+  return c ?? 0;
+}
+
+/** @internal The four brightness integrals of a budget (one blocked pass): sky, ground, 1 K on the sky region and on all directions. */
+export function externalNoise(
+  src: PortPatternSource, q: QuadratureDirections, env: NoiseEnvironment, b: number, options: BrightnessOptions,
+): { sky: CMatrix; ground: CMatrix; skyRegionPerK: CMatrix; radiationPerK: CMatrix } {
+  const maps = regionMaps(q, env);
+  // A brightness constant on each region (the usual sky-and-ground model): the T-weighted
+  // integrals are multiples of the 1 K ones, so two integrals serve all four (linearity).
+  const tSkyConst = constantOn(maps[0], maps[2]), tGroundConst = constantOn(maps[1], maps[3]);
+  let sky: CMatrix, ground: CMatrix, skyRegionPerK: CMatrix, groundRegionPerK: CMatrix;
+  if (tSkyConst !== null && tGroundConst !== null) {
+    [skyRegionPerK, groundRegionPerK] = brightnessCorrelations(src, q, [maps[2], maps[3]], b, options);
+    sky = scaledCopy(skyRegionPerK, tSkyConst);
+    ground = scaledCopy(groundRegionPerK, tGroundConst);
+  } else {
+    [sky, ground, skyRegionPerK, groundRegionPerK] = brightnessCorrelations(src, q, maps, b, options);
+  }
   const n = src.portCount;
-  const radiationPerK = { rows: n, cols: n, data: skyRegionPerK.data.map((v, k) => v + groundRegionPerK.data[k]) };
+  const radiationPerK = { rows: n, cols: n, data: new Float64Array(skyRegionPerK.data.length) };
+  for (let k = 0; k < radiationPerK.data.length; k++) radiationPerK.data[k] = skyRegionPerK.data[k] + groundRegionPerK.data[k];
   return { sky, ground, skyRegionPerK, radiationPerK };
 }
 
@@ -258,16 +294,21 @@ export function lossNoise(lossModel: LossModel, z: CMatrix, tPhys: number, b: nu
   throw new DomainError(`invalid argument "input.loss": expected 'fromPatterns', 'lossless', {radiationEfficiency} or {lossResistanceOhm}, received ${describeValue(lossModel)}.`);
 }
 
+
 /**
- * @internal The budget with its brightness integrals (and pattern-derived loss) redone on
- * another rule; receiver noise and Z are shared. Used for the refinement estimate.
+ * @internal The beam figures' quadratic forms with the brightness integrals (and the
+ * pattern-derived loss) redone on another rule, for the refinement estimate: the forms of
+ * the budget's matrices on that rule, without forming the matrices where the displacement
+ * path applies. Receiver noise and Z are shared, so `iso` and `rec` (and a loss
+ * model that does not use the patterns) are taken from `base`, the forms on the evaluation's rule.
  */
-export function budgetOnRule(budget: NoiseBudget, src: PortPatternSource, q: QuadratureDirections, env: NoiseEnvironment, lossModel: LossModel): NoiseBudget {
-  const ext = externalNoise(src, q, env, budget.bandwidthHz, {});
-  const loss = lossModel === 'fromPatterns'
-    ? lossNoise(lossModel, budget.impedanceOhm, budget.physicalTemperatureK, budget.bandwidthHz, ext.radiationPerK)
-    : budget.loss;
-  const total = new Float64Array(budget.total.data.length);
-  for (let k = 0; k < total.length; k++) total[k] = ext.sky.data[k] + ext.ground.data[k] + loss.data[k] + budget.receiver.data[k];
-  return { ...budget, ...ext, loss, total: { rows: budget.portCount, cols: budget.portCount, data: total } };
+export function budgetFormsOnRule(
+  budget: NoiseBudget, src: PortPatternSource, q: QuadratureDirections, env: NoiseEnvironment, lossModel: LossModel,
+  weights: CMatrix, base: BudgetForms,
+): BudgetForms {
+  const [sky, ground, skyRegion, groundRegion] = brightnessQuadraticForms(src, q, regionMaps(q, env), budget.bandwidthHz, weights, columnQuadraticForms);
+  const rad = skyRegion.map((v, k) => v + groundRegion[k]);
+  // 'fromPatterns': loss = T_phys·(R_iso,1K − R_rad,1K), so its form is T_phys·(iso − rad)
+  const loss = lossModel === 'fromPatterns' ? base.iso.map((v, k) => budget.physicalTemperatureK * (v - rad[k])) : base.loss;
+  return { iso: base.iso, sky, ground, loss, rec: base.rec, rad, skyRegion };
 }

@@ -84,8 +84,9 @@ function outsideUnitInterval(values: Iterable<number | undefined>): number {
  *
  * @remarks
  * Always present, in this order:
- * The allowance of the energy and efficiency bounds is the larger of the
- * estimated integration error and the accepted one (`integrationTolerance`).
+ * The allowance of the energy and efficiency bounds is the accepted integration
+ * error (`integrationTolerance`); a larger estimated error fails
+ * `integrationRefinement` and does not widen the bounds.
  * - `radiationEfficiency`: the largest beam η_rad ≤ 1 + allowance
  *   (energy conservation; Warnick et al., IEEE Trans. Antennas Propag. 58(6),
  *   2010, from memory);
@@ -114,7 +115,10 @@ export function receivingArrayChecks(input: ReceivingArrayCheckInput): PhysicalC
   if (!(err >= 0)) throw new DomainError(`invalid argument "input.integrationError": expected a relative error ≥ 0, received ${describeValue(err)}.`);
   const tolTwiss = input.integrationTolerance ?? 1e-3;
   if (!(tolTwiss > 0)) throw new DomainError(`invalid argument "input.integrationTolerance": expected a relative error > 0, received ${describeValue(tolTwiss)}.`);
-  const allow = Math.max(err, tolTwiss);
+  // The bounds allow the accepted integration error: an estimated error above it fails
+  // `integrationRefinement` itself and must not widen the bounds (with an error of 31.9 from a
+  // far too coarse rule, η_rad = 32.9 would otherwise sit exactly on 1 + error).
+  const allow = tolTwiss;
   const out: PhysicalCheck[] = [];
   let etaMax = 0;
   for (const b of input.beams) etaMax = Number.isNaN(b.radiationEfficiency) ? NaN : Math.max(etaMax, b.radiationEfficiency);

@@ -8,6 +8,30 @@ import { CapacityError, DomainError } from '../errors.js';
 import { assertInteger, describeValue } from '../internal/validate.js';
 
 /**
+ * Port count up to which `arrayFigures: 'auto'` computes the array figures (T_rec,min and the
+ * embedded element efficiencies, O(N³) each; see `ReceivingArrayDescription.arrayFigures`).
+ * @category Reception
+ */
+export const ARRAY_FIGURES_AUTO_MAX_PORTS = 1024;
+
+/**
+ * Port count up to which the passivity check of Z always factors (Z + Zᴴ)/2 (N³/3 complex
+ * multiply–adds, about 0.2 s at N = 1261 on one core), array figures or not.
+ * @category Reception
+ */
+export const PASSIVITY_CHOLESKY_MAX_PORTS = 2048;
+
+/** @internal Resolves the `arrayFigures` option (true, false or 'auto') for n ports. */
+export function arrayFiguresWanted(what: string, option: unknown, n: number): boolean {
+  const o = option ?? 'auto';
+  if (o === 'auto') return n <= ARRAY_FIGURES_AUTO_MAX_PORTS;
+  if (typeof o !== 'boolean') {
+    throw new DomainError(`invalid argument "${what}": expected true, false or 'auto', received ${describeValue(option)}.`);
+  }
+  return o;
+}
+
+/**
  * Sizes of one evaluation.
  * @category Reception
  */
@@ -18,8 +42,8 @@ export interface EvaluationSize {
   readonly directionCount: number;
   /** Number of beams K, integer ≥ 1. */
   readonly beamCount: number;
-  /** Whether the array figures (T_rec,min, embedded element efficiencies) are computed. @defaultValue true */
-  readonly arrayFigures?: boolean;
+  /** Whether the array figures (T_rec,min, embedded element efficiencies) are computed: as the evaluation's option (`'auto'`: up to 1024 ports). @defaultValue 'auto' */
+  readonly arrayFigures?: boolean | 'auto';
   /**
    * Distinct element displacements when the displacement path applies
    * (identical, phase-shifted element patterns), e.g. from shiftedElementPorts;
@@ -109,7 +133,7 @@ export function evaluationCost(size: EvaluationSize): EvaluationCost {
     : T_PATTERN * m + 4 * T_DISPLACEMENT * size.displacementCount * m + 8 * T_SQUARE * n2;
   // the refinement rule has 1.5² times the directions
   const brightness = (size.refinement ?? true) ? once * (1 + 2.25) : once;
-  const arrayFigures = (size.arrayFigures ?? true)
+  const arrayFigures = arrayFiguresWanted('size.arrayFigures', size.arrayFigures, n)
     ? 2 * T_CUBE_CHOL * n3 + 200 * 3 * T_SQUARE * n2 + T_CUBE_INV * n3 + T_CUBE_GEMM * n3
     : 0;
   const stagesS = {

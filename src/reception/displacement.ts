@@ -150,22 +150,15 @@ function progressionStep(v: Float64Array): number {
 }
 
 /**
- * @internal Brightness correlations on the displacement path:
- * R_t(m, n) = scale · Σₖ wₖ Tₜ,ₖ |g(r̂ₖ)|² exp(j k r̂ₖ·(dₘ − dₙ)), for every map t.
- *
- * @remarks
- * The phase splits as exp(j k u Δx)·exp(j k (v Δy + w Δz)), so for a block of
- * directions all distinct-displacement sums are one complex product
- * H += A·B with A[(t, Δx), k] = wₖ Tₜ,ₖ |g|² e^{jkuΔx} and B[k, (Δy, Δz)] =
- * e^{jk(vΔy + wΔz)} (SIMD kernel), then each matrix entry is read from H.
- * Cost O(M·(rows + cols)) phases + O(T·rows·cols·M) multiply–adds + O(T·N²)
- * for the fill, against O(N·M) pattern samples + O(T·N²·M) on the general path.
+ * @internal The displacement table of the brightness sums: H[t][(Δx row, (Δy, Δz) column)] =
+ * Σₖ wₖ Tₜ,ₖ |g(r̂ₖ)|² exp(j k r̂ₖ·Δ) for every distinct displacement Δ of the structure and
+ * every map t (interleaved, nt·rows·cols complex values, map-major), unscaled.
  */
-export function shiftedBrightnessCorrelations(
+export function displacementTable(
   shifted: ShiftedElementPattern, s: DisplacementStructure, wavenumberRadPerM: number,
-  q: QuadratureDirections, maps: ReadonlyArray<Float64Array>, scale: number,
-): CMatrix[] {
-  const { n, dx, dyz } = s;
+  q: QuadratureDirections, maps: ReadonlyArray<Float64Array>,
+): Float64Array {
+  const { dx, dyz } = s;
   const nr = dx.length, nc = dyz.length / 2, nt = maps.length, m = q.thetaRad.length;
   const k = wavenumberRadPerM;
   const rowsA = nt * nr;
@@ -260,20 +253,104 @@ export function shiftedBrightnessCorrelations(
       }
     }
   }
-  // fill both triangles of every map from the displacement table in one pass over the pairs
+  return h;
+}
+
+/**
+ * @internal Brightness correlations on the displacement path:
+ * R_t(m, n) = scale · Σₖ wₖ Tₜ,ₖ |g(r̂ₖ)|² exp(j k r̂ₖ·(dₘ − dₙ)), for every map t.
+ *
+ * @remarks
+ * The phase splits as exp(j k u Δx)·exp(j k (v Δy + w Δz)), so for a block of
+ * directions all distinct-displacement sums are one complex product
+ * H += A·B with A[(t, Δx), k] = wₖ Tₜ,ₖ |g|² e^{jkuΔx} and B[k, (Δy, Δz)] =
+ * e^{jk(vΔy + wΔz)} (SIMD kernel), then each matrix entry is read from H.
+ * Cost O(M·(rows + cols)) phases + O(T·rows·cols·M) multiply–adds + O(T·N²)
+ * for the fill, against O(N·M) pattern samples + O(T·N²·M) on the general path.
+ */
+export function shiftedBrightnessCorrelations(
+  shifted: ShiftedElementPattern, s: DisplacementStructure, wavenumberRadPerM: number,
+  q: QuadratureDirections, maps: ReadonlyArray<Float64Array>, scale: number,
+): CMatrix[] {
+  const h = displacementTable(shifted, s, wavenumberRadPerM, q, maps);
+  const { n, dx, dyz } = s;
+  const nr = dx.length, nc = dyz.length / 2, nt = maps.length;
+  // fill every map: the lower triangle row by row from the displacement table (sequential
+  // writes), then the upper triangle as its conjugate transpose in cache-sized tiles
   const outs = maps.map(() => new Float64Array(2 * n * n));
   const ix = s.ix, iyz = s.iyz, rowOf = s.rowOf, colOf = s.colOf, ux = s.ux, uyz = s.uyz;
+  const cells = new Int32Array(n);
   for (let i = 0; i < n; i++) {
     const rx = ix[i] * ux, ry = iyz[i] * uyz;
-    for (let j = 0; j <= i; j++) {
-      const cell = rowOf[rx + ix[j]] * nc + colOf[ry + iyz[j]];
-      const lo = 2 * (i * n + j), up = 2 * (j * n + i);
-      for (let t = 0; t < nt; t++) {
-        const c = 2 * (t * nr * nc + cell), re = scale * h[c], im = i === j ? 0 : scale * h[c + 1];
-        const o = outs[t];
-        o[lo] = re; o[lo + 1] = im; o[up] = re; o[up + 1] = -im;
+    for (let j = 0; j <= i; j++) cells[j] = rowOf[rx + ix[j]] * nc + colOf[ry + iyz[j]];
+    for (let t = 0; t < nt; t++) {
+      const o = outs[t], base = t * nr * nc, row = 2 * i * n;
+      for (let j = 0; j < i; j++) {
+        const c = 2 * (base + cells[j]);
+        o[row + 2 * j] = scale * h[c]; o[row + 2 * j + 1] = scale * h[c + 1];
+      }
+      o[row + 2 * i] = scale * h[2 * (base + cells[i])];
+    }
+  }
+  for (const o of outs) mirrorLowerTiled(n, o);
+  return outs.map((data) => ({ rows: n, cols: n, data }));
+}
+
+/** Upper triangle of an n×n interleaved Hermitian matrix from its strict lower triangle, in 32×32 tiles. */
+function mirrorLowerTiled(n: number, c: Float64Array): void {
+  const T = 32;
+  for (let i0 = 0; i0 < n; i0 += T) {
+    const i1 = Math.min(n, i0 + T);
+    for (let j0 = 0; j0 <= i0; j0 += T) {
+      for (let i = i0; i < i1; i++) {
+        const j1 = Math.min(i, j0 + T);
+        for (let j = j0; j < j1; j++) {
+          const lo = 2 * (i * n + j), up = 2 * (j * n + i);
+          c[up] = c[lo]; c[up + 1] = -c[lo + 1];
+        }
       }
     }
   }
-  return outs.map((data) => ({ rows: n, cols: n, data }));
+}
+
+/**
+ * @internal Quadratic forms of the brightness correlations on the displacement path without
+ * forming the matrices: Re{wₖᴴ R_t wₖ} = scale · Σ_Δ Re{H_t(Δ) · A_k(Δ)} for every map t and
+ * column k of W (N×K), with A_k(Δ) = Σ_{m,n: dₘ − dₙ = Δ} conj(w_mk) w_nk the weights'
+ * autocorrelation over the distinct displacements. Cost: the table of
+ * {@link displacementTable} plus O(N²K) for the autocorrelation, against O(T·N²) memory and
+ * fill plus O(T·N²K) for the matrices and their forms. Returns one Float64Array (K values) per map.
+ */
+export function shiftedBrightnessForms(
+  shifted: ShiftedElementPattern, s: DisplacementStructure, wavenumberRadPerM: number,
+  q: QuadratureDirections, maps: ReadonlyArray<Float64Array>, scale: number, weights: CMatrix,
+): Float64Array[] {
+  const h = displacementTable(shifted, s, wavenumberRadPerM, q, maps);
+  const { n, dx, dyz, ix, iyz, rowOf, colOf, ux, uyz } = s;
+  const nr = dx.length, nc = dyz.length / 2, nt = maps.length, kb = weights.cols, w = weights.data;
+  const cellsTotal = nr * nc;
+  // autocorrelation of every column of W over the displacement cells, cell-major (K per cell)
+  const acf = new Float64Array(2 * cellsTotal * kb);
+  for (let i = 0; i < n; i++) {
+    const rx = ix[i] * ux, ry = iyz[i] * uyz, wi = 2 * i * kb;
+    for (let j = 0; j < n; j++) {
+      const cell = rowOf[rx + ix[j]] * nc + colOf[ry + iyz[j]];
+      const a = 2 * cell * kb, wj = 2 * j * kb;
+      for (let c = 0; c < 2 * kb; c += 2) {
+        // conj(w_ic) · w_jc
+        const xr = w[wi + c], xi = w[wi + c + 1], yr = w[wj + c], yi = w[wj + c + 1];
+        acf[a + c] += xr * yr + xi * yi;
+        acf[a + c + 1] += xr * yi - xi * yr;
+      }
+    }
+  }
+  return maps.map((_, t) => {
+    const out = new Float64Array(kb), base = 2 * t * cellsTotal;
+    for (let cell = 0; cell < cellsTotal; cell++) {
+      const hr = h[base + 2 * cell], hi = h[base + 2 * cell + 1], a = 2 * cell * kb;
+      for (let c = 0; c < kb; c++) out[c] += hr * acf[a + 2 * c] - hi * acf[a + 2 * c + 1];
+    }
+    for (let c = 0; c < kb; c++) out[c] *= scale;
+    return out;
+  });
 }

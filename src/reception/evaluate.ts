@@ -9,9 +9,9 @@ import { complexParts } from '../linalg/cmatrix.js';
 import { assertPositive, describeValue } from '../internal/validate.js';
 import type { SphereQuadrature } from '../geometry/quadrature.js';
 import type { NoiseParametersInput } from '../network/noise.js';
-import { arrayNoiseBudget, budgetOnRule, type LossModel, type NoiseBudget, type NoiseEnvironment } from './budget.js';
+import { arrayNoiseBudget, budgetFormsOnRule, type LossModel, type NoiseBudget, type NoiseEnvironment } from './budget.js';
 import {
-  embeddedElementEfficiencies, figuresOfColumns, minimumReceiverTemperatureFrom, scanSweep, type BeamFigures,
+  embeddedElementEfficiencies, figuresOfForms, minimumReceiverTemperatureFrom, scanSweepWithForms, type BeamFigures,
 } from './figures.js';
 import { adaptiveSphereRule } from './integration.js';
 import { receivingArrayChecks } from './checks.js';
@@ -25,6 +25,7 @@ import {
   type PortPatternSource, type QuadratureDirections, type SampledPortPatterns,
 } from './patterns.js';
 import { weightedDirections } from '../geometry/directions.js';
+import { ARRAY_FIGURES_AUTO_MAX_PORTS, PASSIVITY_CHOLESKY_MAX_PORTS, arrayFiguresWanted } from './cost.js';
 import { displayable } from '../display/attach.js';
 
 /**
@@ -110,14 +111,21 @@ export interface ReceivingArrayDescription {
   readonly fluxDensityWPerM2Hz?: number;
   /**
    * Compute the array figures (minimum receiver temperature, embedded element
-   * efficiencies). Each costs O(N³) (one factorisation and, for the
-   * efficiencies, one inverse and one product); turn them off for quick looks
-   * at very large arrays. Off, and above 500 ports, the passivity check of Z
-   * uses a Lanczos estimate of the smallest eigenvalue of (Z + Zᴴ)/2 instead of
-   * its Cholesky factorisation (a negative estimate proves non-passivity; a
-   * positive one is strong evidence, not proof). @defaultValue true
+   * efficiencies): `true`, `false`, or `'auto'` — computed up to
+   * {@link ARRAY_FIGURES_AUTO_MAX_PORTS} ports. They are per-array diagnostics,
+   * not needed by any beam figure, and each costs O(N³) (a Cholesky
+   * factorisation and a Lanczos iteration of O(N²) per step for T_rec,min; an LU
+   * inverse and a product, 2N³ complex multiply–adds, for the efficiencies):
+   * about 3 s at N = 1261 and 40 s at N = 3169 on one core of the development
+   * machine, several times the beam figures. Whether they were computed is
+   * `arrayFiguresComputed` of the result. The passivity check of Z is a Cholesky
+   * factorisation of (Z + Zᴴ)/2 whenever the array figures are computed or
+   * N ≤ {@link PASSIVITY_CHOLESKY_MAX_PORTS}; above, without array figures, a
+   * Lanczos estimate of its smallest eigenvalue (a negative estimate proves
+   * non-passivity; a positive one is strong evidence, not proof).
+   * @defaultValue 'auto'
    */
-  readonly arrayFigures?: boolean;
+  readonly arrayFigures?: boolean | 'auto';
   /** Accepted relative integration error: bound of the Twiss residual of a lossless array (see twissResidual) and allowance of η_rad ≤ 1. @defaultValue 1e-3 */
   readonly integrationTolerance?: number;
   /** Progress callback: stage name, beams done, total beams. */
@@ -155,6 +163,8 @@ export interface ArrayEvaluation {
 export interface ReceivingArrayEvaluation extends ArrayEvaluation {
   /** Embedded element efficiency of each port (linear); empty when they could not be computed (failed check `embeddedElementEfficiency`) or were not requested. */
   readonly embeddedElementEfficiency: Float64Array;
+  /** Whether the array figures (T_rec,min, embedded element efficiencies) were computed: the `arrayFigures` option, with `'auto'` resolved by the port count. */
+  readonly arrayFiguresComputed: boolean;
   /**
    * Integration error of every figure of every beam: |figure on the evaluation's rule − figure
    * on the refined adaptive rule| with the same weights, in the figure's unit. Empty objects
@@ -260,10 +270,7 @@ export function evaluateReceivingArray(description: ReceivingArrayDescription): 
     throw new DomainError(`invalid argument "description.onProgress": expected a function, received ${describeValue(progress)}.`);
   }
 
-  const arrayFigures = d.arrayFigures ?? true;
-  if (typeof arrayFigures !== 'boolean') {
-    throw new DomainError(`invalid argument "description.arrayFigures": expected true or false, received ${describeValue(arrayFigures)}.`);
-  }
+  const arrayFigures = arrayFiguresWanted('description.arrayFigures', d.arrayFigures, n);
   let t = performance.now();
   const budget = arrayNoiseBudget({
     patterns: source, quadrature, impedanceOhm: d.ports.impedanceOhm, environment: d.environment,
@@ -278,11 +285,12 @@ export function evaluateReceivingArray(description: ReceivingArrayDescription): 
 
   // Array figures: one Cholesky of (Z + Zᴴ)/2 serves the passivity check and T_rec,min.
   t = performance.now();
-  const passivity = impedancePassivityWithFactor(d.ports.impedanceOhm, 30, arrayFigures);
+  const isoScale = 4 * K_BOLTZMANN_J_PER_K * budget.bandwidthHz; // R_iso,1K = isoScale·(Z + Zᴴ)/2
+  const passivity = impedancePassivityWithFactor(d.ports.impedanceOhm, 30, arrayFigures || n <= PASSIVITY_CHOLESKY_MAX_PORTS, { matrix: budget.isotropicPerK, scale: isoScale });
   let tMin = NaN, tMinFailure: string | undefined;
   if (arrayFigures) {
     try {
-      tMin = minimumReceiverTemperatureFrom(budget, passivity.factor as CholeskyResult, 4 * K_BOLTZMANN_J_PER_K * budget.bandwidthHz);
+      tMin = minimumReceiverTemperatureFrom(budget, passivity.factor as CholeskyResult, 1);
     } catch (e) {
       if (!(e instanceof SingularMatrixError || e instanceof ConvergenceError)) throw e;
       tMinFailure = e.message;
@@ -290,7 +298,7 @@ export function evaluateReceivingArray(description: ReceivingArrayDescription): 
   }
   const tArray0 = performance.now() - t;
   t = performance.now();
-  const sweep = scanSweep(budget, beamPatterns, {
+  const { result: sweep, forms } = scanSweepWithForms(budget, beamPatterns, {
     weights: d.weights, physicalAreaM2: d.physicalAreaM2, fluxDensityWPerM2Hz: d.fluxDensityWPerM2Hz,
     minimumReceiverTemperatureK: Number.isFinite(tMin) ? tMin : undefined,
     onProgress: progress === undefined ? undefined : (done, total) => progress('beams', done, total),
@@ -316,8 +324,8 @@ export function evaluateReceivingArray(description: ReceivingArrayDescription): 
   let integrationError: number | undefined;
   if (d.ports.geometry !== undefined) {
     const fineRule = adaptiveSphereRule(d.ports.geometry, source.frequencyHz, { edgeNormals: d.environment.edgeNormals, refinement: REFINEMENT });
-    const fine = budgetOnRule(budget, source, fineRule, d.environment, d.loss ?? 'fromPatterns');
-    const fineBeams = figuresOfColumns(fine, sweep.weights, beamPatterns, {
+    const fineForms = budgetFormsOnRule(budget, source, fineRule, d.environment, d.loss ?? 'fromPatterns', sweep.weights, forms);
+    const fineBeams = figuresOfForms(budget, fineForms, sweep.weights, beamPatterns, {
       physicalAreaM2: d.physicalAreaM2, fluxDensityWPerM2Hz: d.fluxDensityWPerM2Hz, minimumReceiverTemperatureK: Number.isFinite(tMin) ? tMin : undefined,
     });
     integrationError = 0;
@@ -338,7 +346,7 @@ export function evaluateReceivingArray(description: ReceivingArrayDescription): 
   const tChecks = performance.now() - t;
   return displayable<ReceivingArrayEvaluation>({
     budget, weights: sweep.weights, beams: sweep.beams, minimumReceiverTemperatureK: tMin,
-    embeddedElementEfficiency: eff, units: FIGURE_UNITS, checks, integrationErrors, quadrature,
+    embeddedElementEfficiency: eff, arrayFiguresComputed: arrayFigures, units: FIGURE_UNITS, checks, integrationErrors, quadrature,
     timingsMs: { noiseBudget: tBudget, beamPatterns: tPatterns, weightsAndFigures: tFigures, arrayFigures: tArray, checks: tChecks, refinement: tRefine },
   }, 'ReceivingArrayEvaluation');
 }

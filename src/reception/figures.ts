@@ -139,6 +139,12 @@ function checkOptions(o: BeamFigureOptions): void {
   if (o.minimumReceiverTemperatureK !== undefined) assertNonNegative('options.minimumReceiverTemperatureK', o.minimumReceiverTemperatureK, 'K');
 }
 
+/** Whether every entry is zero. */
+function isZero(a: Float64Array): boolean {
+  for (let i = 0; i < a.length; i++) if (a[i] !== 0) return false;
+  return true;
+}
+
 /**
  * @internal Re{wₖᴴ R wₖ} for every column wₖ of W (N×K) and every matrix R of
  * the list: one matrix product R·W per matrix (SIMD kernel), then K column
@@ -148,6 +154,9 @@ export function columnQuadraticForms(w: CMatrix, matrices: ReadonlyArray<CMatrix
   const n = w.rows, k = w.cols, x = w.data;
   const rw = new Float64Array(2 * n * k);
   return matrices.map((r) => {
+    // an all-zero matrix (a lossless budget's loss, an absent receiver) has zero forms: one
+    // read-only scan instead of copying it into the product kernel
+    if (isZero(r.data)) return new Float64Array(k);
     gemmKernel(n, k, n, r.data, 0, n, x, 0, k, rw, 0, k, false);
     const out = new Float64Array(k);
     for (let i = 0; i < n; i++) {
@@ -160,11 +169,33 @@ export function columnQuadraticForms(w: CMatrix, matrices: ReadonlyArray<CMatrix
   });
 }
 
-/** @internal Figures of every beam (no validation); beam k uses column k of the weights and of the patterns. */
-export function figuresOfColumns(budget: NoiseBudget, weights: CMatrix, p: SampledPortPatterns, o: BeamFigureOptions, onBeam?: (done: number, total: number) => void): BeamFigures[] {
+/**
+ * @internal The quadratic forms Re{wₖᴴ R wₖ} of a budget's matrices for every beam k (K values
+ * each) — all that the beam figures need from the budget besides its scalars.
+ */
+export interface BudgetForms {
+  readonly iso: Float64Array; readonly sky: Float64Array; readonly ground: Float64Array; readonly loss: Float64Array;
+  readonly rec: Float64Array; readonly rad: Float64Array; readonly skyRegion: Float64Array;
+}
+
+/** @internal The forms of every budget matrix for the columns of `weights` (seven products R·W). */
+export function budgetForms(budget: NoiseBudget, weights: CMatrix): BudgetForms {
   const [iso, sky, ground, loss, rec, rad, skyRegion] = columnQuadraticForms(weights, [
     budget.isotropicPerK, budget.sky, budget.ground, budget.loss, budget.receiver, budget.radiationPerK, budget.skyRegionPerK,
   ]);
+  return { iso, sky, ground, loss, rec, rad, skyRegion };
+}
+
+/** @internal Figures of every beam (no validation); beam k uses column k of the weights and of the patterns. */
+export function figuresOfColumns(budget: NoiseBudget, weights: CMatrix, p: SampledPortPatterns, o: BeamFigureOptions, onBeam?: (done: number, total: number) => void): BeamFigures[] {
+  return figuresOfForms(budget, budgetForms(budget, weights), weights, p, o, onBeam);
+}
+
+/** @internal Figures of every beam from the budget's forms (no validation). */
+export function figuresOfForms(
+  budget: NoiseBudget, forms: BudgetForms, weights: CMatrix, p: SampledPortPatterns, o: BeamFigureOptions, onBeam?: (done: number, total: number) => void,
+): BeamFigures[] {
+  const { iso, sky, ground, loss, rec, rad, skyRegion } = forms;
   const out: BeamFigures[] = [];
   for (let k = 0; k < weights.cols; k++) {
     out.push(figuresFromForms(budget, iso[k], sky[k], ground[k], loss[k], rec[k], rad[k], skyRegion[k], signalPower(weights.data, 2 * k, weights.cols, p, k), p, k, o));
@@ -286,6 +317,11 @@ export interface ScanSweepResult {
  * @category Reception
  */
 export function scanSweep(budget: NoiseBudget, beamPatterns: SampledPortPatterns, options: ScanSweepOptions = {}): ScanSweepResult {
+  return scanSweepWithForms(budget, beamPatterns, options).result;
+}
+
+/** @internal {@link scanSweep} that also returns the budget's quadratic forms of the weights it used. */
+export function scanSweepWithForms(budget: NoiseBudget, beamPatterns: SampledPortPatterns, options: ScanSweepOptions = {}): { result: ScanSweepResult; forms: BudgetForms } {
   checkBeamPatterns(budget, beamPatterns);
   checkOptions(options);
   const weights = options.weights ?? maxSnrWeightsUnpolarized(beamPatterns, budget.total);
@@ -297,8 +333,9 @@ export function scanSweep(budget: NoiseBudget, beamPatterns: SampledPortPatterns
   if (options.onProgress !== undefined && typeof options.onProgress !== 'function') {
     throw new DomainError(`invalid argument "options.onProgress": expected a function (done, total) → void, received ${describeValue(options.onProgress)}.`);
   }
-  const beams = figuresOfColumns(budget, weights, beamPatterns, options, options.onProgress);
-  return displayable<ScanSweepResult>({ weights, beams }, 'ScanSweepResult');
+  const forms = budgetForms(budget, weights);
+  const beams = figuresOfForms(budget, forms, weights, beamPatterns, options, options.onProgress);
+  return { result: displayable<ScanSweepResult>({ weights, beams }, 'ScanSweepResult'), forms };
 }
 
 /**
@@ -380,7 +417,7 @@ export function minimumReceiverTemperature(budget: NoiseBudget): number {
 
 /**
  * @internal {@link minimumReceiverTemperature} with a Cholesky factorisation of R_iso,1K / isoScale
- * already done (the passivity check factors (Z + Zᴴ)/2, so isoScale = 4 k_B B).
+ * already done (the evaluation factors R_iso,1K itself, so isoScale = 1; a factor of (Z + Zᴴ)/2 needs isoScale = 4 k_B B).
  */
 export function minimumReceiverTemperatureFrom(budget: NoiseBudget, isoFactor: CholeskyResult, isoScale: number): number {
   const n = budget.portCount;

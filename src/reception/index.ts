@@ -27,7 +27,7 @@ export { receivingArrayChecks, twissResidual } from './checks.js';
 export type { ArrayPortSource, DipoleArrayPortsOptions, HertzianDipolePortsOptions, PortGeometry } from './ports.js';
 export { dipoleArrayPorts, hertzianDipolePorts, patternSetPorts, dipoleModelChecks, DIPOLE_MODEL_MAX_LENGTH_WAVELENGTHS, DIPOLE_MODEL_MAX_RADIUS_WAVELENGTHS } from './ports.js';
 export type { EvaluationSize, EvaluationCost } from './cost.js';
-export { evaluationCost, assertEvaluationFits } from './cost.js';
+export { evaluationCost, assertEvaluationFits, ARRAY_FIGURES_AUTO_MAX_PORTS, PASSIVITY_CHOLESKY_MAX_PORTS } from './cost.js';
 export { patternOverlapMatrix } from './overlap.js';
 export { matchedFieldWeightsUnpolarized, beamPowerPatterns } from './fixedBeams.js';
 export type { SkyPowerLaw } from './sky.js';

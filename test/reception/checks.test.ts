@@ -97,9 +97,21 @@ function grid(count: number, spacingM: number): WireDipole[] {
 }
 
 describe('evaluateReceivingArray checks', () => {
-  it('16×16 dipoles at 0.12 m: Re Z has a negative eigenvalue (issue 17: −0.006 Ω, also in numpy); T_rec,min fails as a check, the rest is finished', () => {
+  it('16×16 dipoles at 0.12 m: Re Z is positive semidefinite once the self resistance is the filament value (a Gram matrix of the patterns)', () => {
+    // Issue 17 measured −0.006 Ω here (numpy, same formulas): the self resistance was evaluated on the
+    // wire surface, O((ka)²) below the filament's radiation resistance the patterns integrate to.
     const f = 1.42e9, dip = grid(16, 0.12);
     const ports = dipoleArrayPorts(dip, f, { groundPlane: { zM: 0 } });
+    const p = impedancePassivity(ports.impedanceOhm);
+    expect(p.positiveDefinite).toBe(true);
+    expect(p.smallestEigenvalueOhm).toBeGreaterThan(-1e-9 * p.largestEigenvalueOhm);
+  });
+  it('a non-passive imported Z (the 16×16 grid with 0.01 Ω taken off every self resistance): T_rec,min fails as a check, the rest is finished', () => {
+    const f = 1.42e9, dip = grid(16, 0.12);
+    const ports0 = dipoleArrayPorts(dip, f, { groundPlane: { zM: 0 } });
+    const n = ports0.impedanceOhm.rows, z = ports0.impedanceOhm.data.slice();
+    for (let i = 0; i < n; i++) z[2 * (i * n + i)] -= 0.01;
+    const ports = { ...ports0, impedanceOhm: { rows: n, cols: n, data: z } };
     const res = evaluateReceivingArray({
       ports, quadrature: sphereQuadrature(40, 80, { splitAtHorizon: true }), bandwidthHz: 2e6, loss: 'lossless',
       environment: skyAndGroundEnvironment({ skyK: 5, groundK: 290 }), amplifiers: amp,
@@ -107,8 +119,8 @@ describe('evaluateReceivingArray checks', () => {
     });
     const byName = Object.fromEntries(res.checks.map((c) => [c.name, c]));
     expect(byName.impedancePassivity.passed).toBe(false);
-    expect(byName.impedancePassivity.value).toBeLessThan(-0.004);
-    expect(byName.impedancePassivity.value).toBeGreaterThan(-0.008);
+    expect(byName.impedancePassivity.value).toBeLessThan(0);
+    expect(byName.impedancePassivity.value).toBeGreaterThan(-0.011);
     expect(byName.minimumReceiverTemperature.passed).toBe(false);
     expect(Number.isNaN(res.minimumReceiverTemperatureK)).toBe(true);
     expect(res.beams[0].noiseMatchingEfficiency).toBeUndefined();

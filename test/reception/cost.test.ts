@@ -1,6 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import { CapacityError, DomainError } from '../../src/errors.js';
-import { assertEvaluationFits, evaluationCost } from '../../src/reception/index.js';
+import { ARRAY_FIGURES_AUTO_MAX_PORTS, assertEvaluationFits, evaluationCost } from '../../src/reception/index.js';
+import { arrayFiguresWanted } from '../../src/reception/cost.js';
 
 describe('evaluationCost', () => {
   it('grows as N³ in the dense stages and as N²·M in the general brightness integral', () => {
@@ -25,5 +26,17 @@ describe('evaluationCost', () => {
     expect(() => evaluationCost({ portCount: 0, directionCount: 1, beamCount: 1 })).toThrow(DomainError);
     expect(() => evaluationCost(null as never)).toThrow(DomainError);
     expect(() => assertEvaluationFits(big, -1, 'x')).toThrow(DomainError);
+  });
+  it("arrayFigures 'auto' (the default) computes the O(N³) array figures up to 1024 ports; true and false are kept; anything else is a DomainError", () => {
+    expect(ARRAY_FIGURES_AUTO_MAX_PORTS).toBe(1024);
+    expect(arrayFiguresWanted('o', undefined, 1024)).toBe(true);
+    expect(arrayFiguresWanted('o', 'auto', 1025)).toBe(false);
+    expect(arrayFiguresWanted('o', true, 5000)).toBe(true);
+    expect(arrayFiguresWanted('o', false, 4)).toBe(false);
+    expect(() => arrayFiguresWanted('description.arrayFigures', 'yes', 4)).toThrow(/"description.arrayFigures": expected true, false or 'auto', received/);
+    // the estimate follows the same rule: the default at 2000 ports has no array-figure stage, at 1000 it has one
+    expect(evaluationCost({ portCount: 2000, directionCount: 1000, beamCount: 1 }).stagesS.arrayFigures).toBe(0);
+    expect(evaluationCost({ portCount: 1000, directionCount: 1000, beamCount: 1 }).stagesS.arrayFigures).toBeGreaterThan(0);
+    expect(evaluationCost({ portCount: 2000, directionCount: 1000, beamCount: 1, arrayFigures: true }).stagesS.arrayFigures).toBeGreaterThan(0);
   });
 });

@@ -3,8 +3,12 @@ import { triangularLatticeLayout } from '../../src/geometry/builders.js';
 import { sphereQuadrature } from '../../src/geometry/quadrature.js';
 import type { WireDipole } from '../../src/element/types.js';
 import { wavelengthM } from '../../src/units/convert.js';
-import { brightnessCorrelations, dipoleArrayPorts, hertzianDipolePorts, quadratureDirections, skyAndGroundBrightness } from '../../src/reception/index.js';
+import { arrayNoiseBudget, brightnessCorrelations, dipoleArrayPorts, hertzianDipolePorts, quadratureDirections, skyAndGroundBrightness, skyAndGroundEnvironment } from '../../src/reception/index.js';
 import { displacementStructure } from '../../src/reception/displacement.js';
+import { brightnessQuadraticForms, brightnessValues } from '../../src/reception/brightness.js';
+import { columnQuadraticForms } from '../../src/reception/figures.js';
+import { asPatternSource } from '../../src/reception/patterns.js';
+import { randomMatrix } from '../helpers/matchers.js';
 
 const f = 1.42e9, lambda = wavelengthM(f), d = lambda / 2;
 
@@ -66,5 +70,35 @@ describe('displacement path of the brightness integral', () => {
     expect(dipoleArrayPorts(dip2, f).patterns.shifted).toBeUndefined();
     const rnd = Float64Array.from({ length: 3 * 40 }, (_, i) => Math.sin(i * 12.9898) * 43758.5453 % 1);
     expect(displacementStructure(rnd)).toBeNull();
+  });
+  it('quadratic forms without the matrices (the refinement path): wₖᴴ R_t wₖ by the weights\' autocorrelation equals the forms of the general-path matrices to 1e-10 (61 triangular over ground, 16 line, 256 square)', () => {
+    for (const [xy, ground] of [[hexagon(4), true], [Array.from({ length: 16 }, (_, i): [number, number] => [(i - 7.5) * d, 0]), true], [squareGrid(16), false]] as const) {
+      const dip = xy.map(([x, y]): WireDipole => ({ centerM: [x, y, ground ? lambda / 4 : 0], axis: [1, 0, 0], lengthM: 0.47 * lambda, radiusM: lambda / 300 }));
+      const ports = dipoleArrayPorts(dip, f, ground ? { groundPlane: { zM: 0 } } : {});
+      const src = asPatternSource('p', ports.patterns);
+      const w = randomMatrix(xy.length, 5, 11);
+      const values = maps.map((b, i) => brightnessValues(`m${i}`, b, q));
+      let called = false;
+      const fast = brightnessQuadraticForms(src, q, values, 1e6, w, () => { called = true; return []; });
+      expect(called).toBe(false); // the displacement path, no matrices
+      const slow = columnQuadraticForms(w, brightnessCorrelations(ports.patterns, q, maps, 1e6, { path: 'general' }));
+      for (let t = 0; t < maps.length; t++) {
+        for (let k = 0; k < 5; k++) expect(Math.abs(fast[t][k] - slow[t][k])).toBeLessThan(1e-10 * Math.abs(slow[t][k]));
+      }
+    }
+  });
+  it('a brightness constant per region: the budget takes the T-weighted integrals as multiples of the 1 K ones, equal to integrating the T maps (linearity), 61 triangular in free space (both regions seen)', () => {
+    const dip = hexagon(4).map(([x, y]): WireDipole => ({ centerM: [x, y, 0], axis: [1, 0, 0], lengthM: 0.47 * lambda, radiusM: lambda / 300 }));
+    const ports = dipoleArrayPorts(dip, f);
+    const env = skyAndGroundEnvironment({ skyK: 7, groundK: 290 });
+    const budget = arrayNoiseBudget({ patterns: ports.patterns, quadrature: q, impedanceOhm: ports.impedanceOhm, environment: env, bandwidthHz: 1e6, loss: 'lossless' });
+    const skyMap = (th: number, ph: number) => (env.isSky!(th, ph) ? 7 : 0), groundMap = (th: number, ph: number) => (env.isSky!(th, ph) ? 0 : 290);
+    const [sky, ground] = brightnessCorrelations(ports.patterns, q, [skyMap, groundMap], 1e6);
+    for (const [a, b] of [[budget.sky, sky], [budget.ground, ground]] as const) {
+      let big = 0, diff = 0;
+      for (let k = 0; k < a.data.length; k++) { big = Math.max(big, Math.abs(b.data[k])); diff = Math.max(diff, Math.abs(a.data[k] - b.data[k])); }
+      expect(big).toBeGreaterThan(0);
+      expect(diff).toBeLessThan(1e-12 * big);
+    }
   });
 });

@@ -8,6 +8,7 @@ import { esc } from '../../plot/svg.js';
 import { num } from '../format.js';
 import type { DesignEvaluation } from '../../design/index.js';
 import { beamLabel, frequencyUnit, type ReportFigure } from './figures.js';
+import { ARRAY_FIGURES_AUTO_MAX_PORTS } from '../../reception/index.js';
 
 const STYLE = `
 body{font-family:system-ui,sans-serif;margin:0;background:#f7f6f2;color:#1d2a33}
@@ -112,7 +113,7 @@ export function reportHtml(ev: DesignEvaluation, figures: readonly ReportFigure[
       num(b.radiationEfficiency, 4), num(b.spilloverEfficiency, 4), ...(hasAp ? [num(b.apertureEfficiency as number, 4)] : []), num(b.noiseMatchingEfficiency ?? NaN, 4),
     ]);
     const header = ['beam', 'T_sys [K]', 'T_rec [K]', 'T_sky [K]', 'T_spill [K]', 'A_e [m²]', 'A_e/T_sys [m²/K]', 'G/T [dB/K]', 'SEFD [Jy]', 'gain [dBi]', 'η_rad', 'η_sp', ...(hasAp ? ['η_ap'] : []), 'η_nm'];
-    return `<h3>${num(r.frequencyHz * scale, 7)} ${unit} · sky ${num(r.skyK, 4)} K · T_rec,min ${r.minimumReceiverTemperatureK === null ? 'not computed (failed check)' : `${num(r.minimumReceiverTemperatureK, 5)} K`} · sphere rule: ${r.quadrature.kind}, ${r.quadrature.directionCount} directions${worstIntegrationError(r)}</h3>\n${tableHtml(header, rows)}`;
+    return `<h3>${num(r.frequencyHz * scale, 7)} ${unit} · sky ${num(r.skyK, 4)} K · T_rec,min ${r.minimumReceiverTemperatureK !== null ? `${num(r.minimumReceiverTemperatureK, 5)} K` : r.arrayFiguresComputed === false ? `not computed (array figures are O(N³) and computed up to ${ARRAY_FIGURES_AUTO_MAX_PORTS} ports)` : 'not computed (failed check)'} · sphere rule: ${r.quadrature.kind}, ${r.quadrature.directionCount} directions${worstIntegrationError(r)}</h3>\n${tableHtml(header, rows)}`;
   }).join('\n');
   const figs = figures.map((f) => `<figure>${f.svg}<figcaption>${esc(f.caption)}</figcaption></figure>`).join('\n');
   return `<!DOCTYPE html>

@@ -16,10 +16,11 @@
  * process alive. Until a worker is ready the caller simply does its chunks,
  * so a worker that fails to start only costs speed.
  *
- * Partitioning of the product into panels of B and row blocks of C follows
- * K. Goto and R. van de Geijn, "Anatomy of high-performance matrix
- * multiplication", ACM TOMS 34(3), 2008 (from memory), where the row blocks of
- * C are the natural unit of parallel work for a shared packed panel of B.
+ * Partitioning of the product into column blocks of the packed B and row
+ * blocks of C follows K. Goto and R. van de Geijn, "Anatomy of
+ * high-performance matrix multiplication", ACM TOMS 34(3), 2008 (from
+ * memory): a (column block, row block) pair of C is the unit of parallel work,
+ * its B block shared in L2 by all the rows of the part.
  * No checks.
  * @internal
  * @module
@@ -56,27 +57,23 @@ function threadCode() {
   /** Control block (Int32Array indices). NEXT holds (job tag << 16) | next chunk; tag 0 = closed. */
   const L = { SEQ: 0, NEXT: 1, DONE: 2, COUNT: 3, KIND: 4, FAIL: 5, WORKERS: 6, ARGS: 8, READY: 32, RAN: 96, SIZE: 160 };
   /** Job kinds. */
-  const KIND = { ROWS: 0, HERK: 1, SWEEP: 2 };
+  const KIND = { BLOCKS: 0, SWEEP: 1 };
 
   /** Runs chunk c of the current job (arguments in the control block). */
   function runChunk(ctrl: Int32Array, ztile: ZtileFunction, c: number): void {
     const a = L.ARGS, kind = ctrl[L.KIND];
-    if (kind === KIND.ROWS) {
-      // C[r0:r1, :] += A[r0:r1, :]·B, the inner dimension in passes of `depth` steps
-      const m = ctrl[a], n = ctrl[a + 1], k = ctrl[a + 2], pa = ctrl[a + 3] >>> 0, lda = ctrl[a + 4], pb = ctrl[a + 5] >>> 0, ldbq = ctrl[a + 6];
-      const pcr = ctrl[a + 7] >>> 0, pci = ctrl[a + 8] >>> 0, ldc = ctrl[a + 9], ldcq = ctrl[a + 10], depth = ctrl[a + 11], per = ctrl[a + 12];
-      const r0 = c * per, rows = Math.min(m, r0 + per) - r0;
-      for (let p0 = 0; p0 < k; p0 += depth) {
-        ztile(rows, n, Math.min(depth, k - p0), pa + r0 * lda + p0 * 16, lda, pb + p0 * 64, ldbq, pcr + r0 * ldc, pci + r0 * ldc, ldc, ldcq);
-      }
-    } else if (kind === KIND.HERK) {
-      // four-row granules g of the lower triangle: rows [4g, 4g+4) against columns [0, 4g+4);
-      // chunk boundaries at G·√(c/C) so that chunks carry about equal work
-      const kk = ctrl[a], pb = ctrl[a + 1] >>> 0, pcr = ctrl[a + 2] >>> 0, pci = ctrl[a + 3] >>> 0, ld = ctrl[a + 4], granules = ctrl[a + 5], count = ctrl[L.COUNT];
-      const g0 = Math.floor(granules * Math.sqrt(c / count)), g1 = c + 1 === count ? granules : Math.floor(granules * Math.sqrt((c + 1) / count));
-      for (let g = g0; g < g1; g++) {
-        const i0 = 4 * g;
-        ztile(4, i0 + 4, kk, i0 * kk * 16, kk * 16, pb, kk * 64, pcr + i0 * ld, pci + i0 * ld, ld, 32);
+    if (kind === KIND.BLOCKS) {
+      // C += A·B in blocks of bc columns × bd inner steps (the packed B block stays in L2 while
+      // the chunk's rows stream past it); chunk c = column block ⌊c/parts⌋ and part c mod parts
+      // of its rows, which start at row 0, or at the block's first column for a lower triangle
+      const m = ctrl[a], n4 = ctrl[a + 1], k = ctrl[a + 2], pa = ctrl[a + 3] >>> 0, lda = ctrl[a + 4], pb = ctrl[a + 5] >>> 0, ldbq = ctrl[a + 6];
+      const pcr = ctrl[a + 7] >>> 0, pci = ctrl[a + 8] >>> 0, ldc = ctrl[a + 9], lower = ctrl[a + 10] !== 0, bc = ctrl[a + 11], bd = ctrl[a + 12], parts = ctrl[a + 13];
+      const j0 = Math.floor(c / parts) * bc, part = c % parts, nb = Math.min(bc, n4 - j0), i0 = lower ? j0 : 0;
+      const r0 = i0 + Math.floor(((m - i0) * part) / parts), r1 = i0 + Math.floor(((m - i0) * (part + 1)) / parts);
+      if (r1 <= r0) return;
+      for (let p0 = 0; p0 < k; p0 += bd) {
+        ztile(r1 - r0, nb, Math.min(bd, k - p0), pa + r0 * lda + p0 * 16, lda, pb + (j0 >> 2) * ldbq + p0 * 64, ldbq,
+          pcr + r0 * ldc + j0 * 8, pci + r0 * ldc + j0 * 8, ldc, 32);
       }
     } else {
       // triangular substitution, row by row, on the four-column groups [q0, q1) of the panel
