@@ -18,14 +18,21 @@ export const WASM_DIR = join(root, 'src', 'internal', 'wasm');
 /** The generated module. */
 export const MODULES_FILE = join(WASM_DIR, 'modules.ts');
 
-/** Assembles one .wat text (SIMD enabled, no debug names) and validates it. */
+/** The shared-memory import of a kernel that the kernel threads run (see src/internal/wasm/ztile.wat). */
+export const SHARED_MEMORY_IMPORT = '(import "env" "memory" (memory 1 65536 shared))';
+/** The same import not shared: the single-thread variant `<name>Local` derived from such a kernel. */
+export const LOCAL_MEMORY_IMPORT = '(import "env" "memory" (memory 1))';
+
+/** Assembles one .wat text (SIMD and threads enabled, no debug names) and validates it. */
 export async function assembleWat(fileName: string, text: string): Promise<Uint8Array> {
   const wabt = await wabtInit();
   // UTF-8 bytes, not the string: wabt reads a string's characters as single bytes, which garbles non-ASCII comments
-  const mod = wabt.parseWat(fileName, new TextEncoder().encode(text), { simd: true });
+  const features = { simd: true, threads: true };
+  const mod = wabt.parseWat(fileName, new TextEncoder().encode(text), features);
   try {
     mod.resolveNames();
-    mod.validate();
+    // wabt's typings omit validate's features argument; without it the threads feature (shared memory) is rejected
+    (mod as unknown as { validate(f: typeof features): void }).validate(features);
     return mod.toBinary({ log: false, write_debug_names: false, canonicalize_lebs: true }).buffer;
   } finally {
     mod.destroy();
@@ -47,10 +54,17 @@ export async function generateModulesSource(): Promise<string> {
     '',
   ];
   for (const f of files) {
-    const bytes = await assembleWat(f, readFileSync(join(WASM_DIR, f), 'utf8'));
+    const text = readFileSync(join(WASM_DIR, f), 'utf8');
     const name = basename(f, '.wat');
+    const bytes = await assembleWat(f, text);
     lines.push(`/** ${f}: ${bytes.length} bytes. */`);
     lines.push(`export const ${name}Wasm = '${Buffer.from(bytes).toString('base64')}';`);
+    if (text.includes(SHARED_MEMORY_IMPORT)) {
+      // a kernel of the kernel threads: also its single-thread variant, the memory import not shared
+      const local = await assembleWat(f, text.replace(SHARED_MEMORY_IMPORT, LOCAL_MEMORY_IMPORT));
+      lines.push(`/** ${f} with its memory import not shared (single thread): ${local.length} bytes. */`);
+      lines.push(`export const ${name}LocalWasm = '${Buffer.from(local).toString('base64')}';`);
+    }
   }
   return lines.join('\n') + '\n';
 }

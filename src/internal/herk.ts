@@ -99,7 +99,7 @@ function packedHerk(n: number, kk: number, c: Float64Array, pack: (f: Float64Arr
   f.fill(0, cr, ci + n4 * n4);
   // column blocks against the rows from their first column down: the lower triangle in
   // blocks (the diagonal blocks also form their upper part, which is not copied out)
-  ztileBlocked(mod, n4, n4, kk, 0, kk * 16, pb, kk * 64, pcr, pci, n4 * 8, (j0) => j0);
+  ztileBlocked(mod, n4, n4, kk, 0, kk * 16, pb, kk * 64, pcr, pci, n4 * 8, true);
   for (let i = 0; i < n; i++) {
     const dd = 2 * i * n, s = i * n4;
     for (let j = 0; j < i; j++) { c[dd + 2 * j] += f[cr + s + j]; c[dd + 2 * j + 1] += f[ci + s + j]; }

@@ -8,9 +8,10 @@
  * @module
  */
 import { ensureMemory } from './wasm/runtime.js';
+import { JOB_KIND, runJob } from './wasm/threads.js';
 import { loadZtile } from './ztileWasm.js';
 
-/** Columns of X per pass (a multiple of 4), so the panel (n·W·16 bytes) stays in L2 for n ≲ 250. */
+/** Columns of X per chunk of the substitution (a multiple of 4), so the chunk (n·W·16 bytes) stays in L2 for n ≲ 250. */
 const SIMD_PANEL = 64;
 
 /** One triangular factor of a chain of solves. */
@@ -27,8 +28,10 @@ export interface TriangularStage {
  * Solves T_s ⋯ T₂ T₁ X = B in place for the given triangular stages, applied
  * in order (X ← T₁⁻¹X, then T₂⁻¹X, …), with X n×nrhs interleaved row-major
  * holding B on entry, or B read from `src` (same shape; then X's entry
- * values are ignored and `src` is not written). Each column panel is packed once, swept by every stage
- * while it stays in cache, and unpacked once. Returns false (doing nothing)
+ * values are ignored and `src` is not written). X is packed once, swept by every stage
+ * (each stage cut into chunks of contiguous four-column groups, run on the kernel
+ * threads when large enough: columns are independent, so the result does not depend
+ * on the thread count), and unpacked once. Returns false (doing nothing)
  * when WebAssembly SIMD is unavailable.
  *
  * Row-oriented substitution with the diagonal folded into the data:
@@ -42,13 +45,12 @@ export interface TriangularStage {
 export function simdSolveTriangular(n: number, nrhs: number, stages: readonly TriangularStage[], x: Float64Array, src: Float64Array = x): boolean {
   const mod = loadZtile();
   if (mod === null) return false;
-  const w = Math.min(SIMD_PANEL, (nrhs + 3) & ~3);
-  // layout (bytes): per stage, coefficient rows (n(n−1)/2 complex, row i at rowStart[i]) | X panel:
+  const groups = (nrhs + 3) >> 2, w4 = 4 * groups;
+  // layout (bytes): per stage, coefficient rows (n(n−1)/2 complex, row i at rowStart(i)) | X:
   // groups of four columns, group q at px + q·n·64, row i of it the 64 bytes [re ×4 | im ×4]
   const coefCount = (n * (n - 1)) / 2;
   const px = stages.length * coefCount * 16, groupBytes = n * 64;
-  const f = ensureMemory(mod.memory, px + (w >> 2) * groupBytes);
-  const rowStart = stages.map(() => new Int32Array(n));
+  const f = ensureMemory(mod.memory, px + groups * groupBytes);
   const invR = stages.map(() => new Float64Array(n)), invI = stages.map(() => new Float64Array(n));
   let o = 0;
   stages.forEach(({ t, lower, unitDiagonal }, st) => {
@@ -60,7 +62,7 @@ export function simdSolveTriangular(n: number, nrhs: number, stages: readonly Tr
         ir = dr / den; ii = -di / den;
       }
       invR[st][i] = ir; invI[st][i] = ii;
-      rowStart[st][i] = o;
+      // row i's coefficients at o: lower rows hold i entries, upper rows n − 1 − i (the kernel threads' rowStart)
       const p0 = lower ? 0 : i + 1, p1 = lower ? i : n;
       for (let p = p0; p < p1; p++, o++) {
         const tr = t[2 * (i * n + p)], ti = t[2 * (i * n + p) + 1];
@@ -70,49 +72,43 @@ export function simdSolveTriangular(n: number, nrhs: number, stages: readonly Tr
     }
   });
   const x0 = px >> 3, g8 = groupBytes >> 3;
-  for (let c0 = 0; c0 < nrhs; c0 += w) {
-    const pw = Math.min(w, nrhs - c0), w4 = (pw + 3) & ~3;
-    // pack the panel, each row scaled by 1/tᵢᵢ of the first stage; zero columns up to a multiple of four
-    for (let i = 0; i < n; i++) {
-      const ir = invR[0][i], ii = invI[0][i], s = 2 * (i * nrhs + c0);
-      for (let j = 0; j < w4; j++) {
-        const d = x0 + (j >> 2) * g8 + 8 * i + (j & 3);
-        if (j < pw) {
-          const vr = src[s + 2 * j], vi = src[s + 2 * j + 1];
+  // pack X, each row scaled by 1/tᵢᵢ of the first stage; zero columns up to a multiple of four
+  for (let i = 0; i < n; i++) {
+    const ir = invR[0][i], ii = invI[0][i], s = 2 * i * nrhs;
+    for (let j = 0; j < w4; j++) {
+      const d = x0 + (j >> 2) * g8 + 8 * i + (j & 3);
+      if (j < nrhs) {
+        const vr = src[s + 2 * j], vi = src[s + 2 * j + 1];
+        f[d] = vr * ir - vi * ii;
+        f[d + 4] = vr * ii + vi * ir;
+      } else {
+        f[d] = 0; f[d + 4] = 0;
+      }
+    }
+  }
+  // column groups per chunk: up to SIMD_PANEL columns, at least eight chunks where there are enough groups
+  const per = Math.min(SIMD_PANEL >> 2, Math.ceil(groups / 8));
+  stages.forEach(({ lower, unitDiagonal }, st) => {
+    if (st > 0 && !unitDiagonal) {
+      // later stages: scale the rows by their 1/tᵢᵢ in place
+      for (let i = 0; i < n; i++) {
+        const ir = invR[st][i], ii = invI[st][i];
+        for (let j = 0; j < w4; j++) {
+          const d = x0 + (j >> 2) * g8 + 8 * i + (j & 3);
+          const vr = f[d], vi = f[d + 4];
           f[d] = vr * ir - vi * ii;
           f[d + 4] = vr * ii + vi * ir;
-        } else {
-          f[d] = 0; f[d + 4] = 0;
         }
       }
     }
-    stages.forEach(({ lower, unitDiagonal }, st) => {
-      if (st > 0 && !unitDiagonal) {
-        // later stages: scale the panel rows by their 1/tᵢᵢ in place
-        for (let i = 0; i < n; i++) {
-          const ir = invR[st][i], ii = invI[st][i];
-          for (let j = 0; j < w4; j++) {
-            const d = x0 + (j >> 2) * g8 + 8 * i + (j & 3);
-            const vr = f[d], vi = f[d + 4];
-            f[d] = vr * ir - vi * ii;
-            f[d + 4] = vr * ii + vi * ir;
-          }
-        }
-      }
-      const rs = rowStart[st];
-      for (let step = 1; step < n; step++) {
-        const i = lower ? step : n - 1 - step;
-        const first = lower ? 0 : i + 1;
-        const pc = px + i * 64;
-        mod.ztile(1, w4, step, rs[i] * 16, 0, px + first * 64, groupBytes, pc, pc + 32, 0, groupBytes);
-      }
-    });
-    for (let i = 0; i < n; i++) {
-      const s = 2 * (i * nrhs + c0);
-      for (let j = 0; j < pw; j++) {
-        const d = x0 + (j >> 2) * g8 + 8 * i + (j & 3);
-        x[s + 2 * j] = f[d]; x[s + 2 * j + 1] = f[d + 4];
-      }
+    // every column group is substituted independently: a job of the kernel threads
+    runJob(mod, JOB_KIND.SWEEP, [n, lower ? 1 : 0, st * coefCount * 16, px, groupBytes, groups, per], Math.ceil(groups / per), coefCount * w4);
+  });
+  for (let i = 0; i < n; i++) {
+    const s = 2 * i * nrhs;
+    for (let j = 0; j < nrhs; j++) {
+      const d = x0 + (j >> 2) * g8 + 8 * i + (j & 3);
+      x[s + 2 * j] = f[d]; x[s + 2 * j + 1] = f[d + 4];
     }
   }
   return true;

@@ -8,15 +8,10 @@
  * @internal
  * @module
  */
-import { ensureMemory, kernelModule } from './wasm/runtime.js';
+import { ensureMemory } from './wasm/runtime.js';
+import { JOB_KIND, loadZtile, runJob, type ZtileKernel } from './wasm/threads.js';
 
-/** Raw exports of the tiled product module (byte addresses into `memory`); arguments as in wasm/ztile.wat. */
-export interface ZtileFunctions {
-  ztile: (m: number, n: number, k: number, pa: number, lda: number, pb: number, ldbq: number, pcr: number, pci: number, ldc: number, ldcq: number) => void;
-}
-
-/** The tiled product module, or null on the scalar path. */
-export const loadZtile = kernelModule<ZtileFunctions>('ztile');
+export { loadZtile };
 
 /** Whether the SIMD product kernel runs in this runtime (false also when switched off for tests). */
 export function simdGemmAvailable(): boolean {
@@ -37,24 +32,25 @@ const BLOCK_DEPTH = 128;
  * times: at n = 3169 that was a depth of 5 and ~200 GB of C traffic.
  * Addresses in bytes, layout of wasm/ztile.wat (B in four-column panels of
  * stride `ldbq`, C planes with row stride `ldc` and panel stride 32).
- * `firstRow(j0)` gives the first row of C needed for the column block starting
- * at column j0 (0 for a full product; j0 for a lower triangle). C is accumulated.
+ * With `lower`, the column block starting at column j0 needs only rows j0 and
+ * below (a lower triangle, in blocks); else every row. C is accumulated.
+ * The blocks are a job of the kernel threads (`wasm/threads.ts`): each column
+ * block's rows are cut into parts so that there are at least
+ * {@link MIN_CHUNKS} (column block, row part) chunks; a chunk runs every depth
+ * block of its part, so each entry's sums are the same for any thread count.
  */
 export function ztileBlocked(
-  mod: ZtileFunctions, m: number, n4: number, k: number,
+  mod: ZtileKernel, m: number, n4: number, k: number,
   pa: number, lda: number, pb: number, ldbq: number, pcr: number, pci: number, ldc: number,
-  firstRow: (j0: number) => number = () => 0,
+  lower = false,
 ): void {
-  for (let j0 = 0; j0 < n4; j0 += BLOCK_COLUMNS) {
-    const nb = Math.min(BLOCK_COLUMNS, n4 - j0), i0 = firstRow(j0);
-    if (i0 >= m) continue;
-    for (let p0 = 0; p0 < k; p0 += BLOCK_DEPTH) {
-      const kb = Math.min(BLOCK_DEPTH, k - p0);
-      mod.ztile(m - i0, nb, kb, pa + i0 * lda + p0 * 16, lda, pb + (j0 >> 2) * ldbq + p0 * 64, ldbq,
-        pcr + i0 * ldc + j0 * 8, pci + i0 * ldc + j0 * 8, ldc, 32);
-    }
-  }
+  const blocks = Math.ceil(n4 / BLOCK_COLUMNS);
+  const parts = Math.max(1, Math.min(m >> 2, Math.ceil(MIN_CHUNKS / blocks)));
+  runJob(mod, JOB_KIND.BLOCKS, [m, n4, k, pa, lda, pb, ldbq, pcr, pci, ldc, lower ? 1 : 0, BLOCK_COLUMNS, BLOCK_DEPTH, parts], blocks * parts, lower ? (m * n4 * k) / 2 : m * n4 * k);
 }
+
+/** Chunks a blocked product is cut into at least (where it has that many rows), so that up to eight threads balance. */
+const MIN_CHUNKS = 16;
 
 /**
  * C[m×n] (+)= alpha·A[m×k]·B[k×n] (alpha real) on interleaved row-major

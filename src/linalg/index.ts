@@ -19,4 +19,4 @@ export { svd, conditionNumber, pseudoInverse, matrixRank } from './svd.js';
 export type { PolynomialRootsOptions } from './roots.js';
 export { polynomialRoots, polynomialFromRoots } from './roots.js';
 export type { SimdStatus } from './simd.js';
-export { simdStatus } from './simd.js';
+export { setKernelThreads, simdStatus } from './simd.js';

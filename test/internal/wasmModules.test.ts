@@ -13,7 +13,7 @@ describe('WebAssembly kernels from their .wat sources', () => {
   });
 
   it('Node ≥ 20 runs the SIMD path (WebAssembly 2.0 includes 128-bit SIMD)', () => {
-    expect(simdStatus()).toEqual({ path: 'wasm-simd', reason: expect.stringContaining('SIMD') });
+    expect(simdStatus()).toMatchObject({ path: 'wasm-simd', reason: expect.stringContaining('SIMD') });
   });
 });
 
@@ -70,7 +70,7 @@ describe('the scalar fallback decision and its warning', () => {
       const fresh = await import('../../src/linalg/simd.js');
       const ops = await import('../../src/linalg/ops.js');
       const scalar = ops.multiply(a, b);
-      expect(fresh.simdStatus()).toEqual({ path: 'scalar', reason: 'this runtime has no WebAssembly' });
+      expect(fresh.simdStatus()).toEqual({ path: 'scalar', reason: 'this runtime has no WebAssembly', threads: 1, threadsReason: 'the scalar path runs on one thread' });
       ops.multiply(a, b);
       expect(warn).toHaveBeenCalledTimes(1);
       expect(warn.mock.calls[0][1]).toEqual({ type: 'PhasewiseWarning', code: 'PHASEWISE_SIMD_FALLBACK' });

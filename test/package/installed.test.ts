@@ -10,6 +10,7 @@ import { mkdtempSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { THREADS_SCRIPT, runTimed } from '../helpers/threadsScript.js';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '../..');
 const pkg = JSON.parse(readFileSync(join(root, 'package.json'), 'utf8')) as { version: string };
@@ -60,6 +61,18 @@ describe('the packed and installed package', () => {
     expect(r[0].aeOverTsysM2PerK).toBeCloseTo((2 * 1.380649e-23 * 0.05) / 1500e-26, 9);
     const sub = sh('node', ['--input-type=module', '-e', "import { trace } from 'phasewise/linalg'; import { trace as t2 } from 'phasewise'; console.log(trace === t2);"]);
     expect(sub.trim()).toBe('true');
+  });
+
+  it('the installed package runs large products on two kernel threads (ESM and CJS): same bits as one thread, prompt exit', () => {
+    for (const args of [
+      ['--input-type=module', '-e', `import * as lib from 'phasewise/linalg'; import { createRequire } from 'node:module'; const require = createRequire(import.meta.url);\n${THREADS_SCRIPT}`],
+      ['-e', `const lib = require('phasewise/linalg');\n${THREADS_SCRIPT}`],
+    ]) {
+      const r = runTimed(args, project);
+      expect(r.status).toBe(0);
+      expect(JSON.parse(r.out)).toMatchObject({ same: true, threads: 2 });
+      expect(r.ms).toBeLessThan(10_000);
+    }
   });
 
   it('imports by package name (ESM and CJS) and runs the band job', () => {

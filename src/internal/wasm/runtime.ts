@@ -9,12 +9,13 @@
  * rejects them). Either all kernels run on WebAssembly SIMD or none does.
  * Modules are compiled synchronously (each is well under the 4 KiB that
  * browsers allow on the main thread) and each kernel gets its own instance and
- * memory, so the workspace of one kernel is never overwritten by another.
+ * memory, so the workspace of one kernel is never overwritten by another (the
+ * product kernel imports its memory: see `threads.ts`).
  * No checks.
  * @internal
  * @module
  */
-import { gridsumWasm, jacobiWasm, luWasm, rotateWasm, tridiagWasm, ztileWasm } from './modules.js';
+import { gridsumWasm, jacobiWasm, luWasm, rotateWasm, tridiagWasm, ztileLocalWasm } from './modules.js';
 
 /**
  * Switch for tests and benchmarks: with `enabled` false every kernel reports
@@ -22,8 +23,12 @@ import { gridsumWasm, jacobiWasm, luWasm, rotateWasm, tridiagWasm, ztileWasm } f
  */
 export const wasmSettings = { enabled: true };
 
-/** The kernel modules, by name (the .wat file name). */
-const SOURCES = { ztile: ztileWasm, tridiag: tridiagWasm, rotate: rotateWasm, jacobi: jacobiWasm, gridsum: gridsumWasm, lu: luWasm } as const;
+/**
+ * The kernel modules, by name (the .wat file name). The product kernel is probed in its
+ * single-thread variant (its memory import not shared); `threads.ts` loads it and, where
+ * threads can run, its shared-memory variant.
+ */
+const SOURCES = { ztile: ztileLocalWasm, tridiag: tridiagWasm, rotate: rotateWasm, jacobi: jacobiWasm, gridsum: gridsumWasm, lu: luWasm } as const;
 /** Name of a kernel module. */
 export type KernelName = keyof typeof SOURCES;
 
@@ -41,7 +46,7 @@ export interface WasmHost {
 }
 
 /** Decodes base64 (atob exists in browsers and in Node ≥ 16). */
-function decodeBase64(s: string): Uint8Array<ArrayBuffer> {
+export function decodeBase64(s: string): Uint8Array<ArrayBuffer> {
   const bin = atob(s);
   const out = new Uint8Array(bin.length);
   for (let i = 0; i < bin.length; i++) out[i] = bin.charCodeAt(i);
@@ -115,6 +120,11 @@ export function kernelPath(): KernelPath {
   const { path, reason } = probe();
   if (path === 'wasm-simd' && !wasmSettings.enabled) return { path: 'scalar', reason: 'WebAssembly SIMD switched off (internal test switch)' };
   return { path, reason };
+}
+
+/** The compiled module `name`, or undefined on the scalar path (whatever {@link wasmSettings} says). */
+export function compiledModule(name: KernelName): WebAssembly.Module | undefined {
+  return probe().modules[name];
 }
 
 /** Raw exports of a kernel module: its memory and its functions (byte addresses into memory). */

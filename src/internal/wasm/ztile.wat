@@ -29,8 +29,16 @@
 ;;   once per tile (Goto & van de Geijn, "Anatomy of high-performance matrix
 ;;   multiplication", ACM TOMS 34(3), 2008, from memory: packed panels and a
 ;;   register-resident micro-tile).
+;;
+;; Memory: imported, not owned, and shared (WebAssembly threads: a shared memory
+;; needs a maximum; 65536 pages = 4 GiB, the whole 32-bit address space), so
+;; that the kernel threads (src/internal/wasm/threads.ts) run this same kernel on
+;; the same bytes: each thread forms a disjoint set of rows or column groups of
+;; C. scripts/build-wasm.ts also derives from this file the single-thread
+;; variant `ztileLocal` (the same module with the memory import not shared), for
+;; runtimes without shared memory.
 (module
-  (memory (export "memory") 1)
+  (import "env" "memory" (memory 1 65536 shared))
 
   (func (export "ztile")
     (param $m i32) (param $n i32) (param $k i32)
