@@ -8,7 +8,9 @@
  * The ratio printed is the median over rounds of the per-round ratios, and the
  * load average (1 min) is printed at the start and at the end.
  *
- * numpy runs single-threaded (OMP/OPENBLAS/MKL_NUM_THREADS=1) in two
+ * Both sides run on one thread: phasewise is pinned with setKernelThreads(1)
+ * (its dense kernels would otherwise use every core, see DEVELOPERS.md "Kernel
+ * threads") and numpy runs single-threaded (OMP/OPENBLAS/MKL_NUM_THREADS=1) in two
  * persistent python3 workers: one with the machine's OpenBLAS variables as set
  * (OPENBLAS_CORETYPE, OPENBLAS_L2_SIZE, … — printed), one with every OPENBLAS_*
  * variable except the thread count unset (OpenBLAS picks its kernel for the CPU,
@@ -19,7 +21,9 @@
  *
  * Kernels come from every scripts/compare/*.ts file exporting
  * `kernels: CompareKernel[]` (see scripts/compare/types.ts).
- * Usage: npm run bench:compare [-- <name filter>] [--seconds 1.0] [--rounds 3]
+ * `--threads N` runs both sides on N threads instead (setKernelThreads(N) and
+ * OMP/OPENBLAS/MKL_NUM_THREADS=N), a like-for-like multi-core comparison.
+ * Usage: npm run bench:compare [-- <name filter>] [--seconds 1.0] [--rounds 3] [--threads 1]
  */
 import { spawn, type ChildProcessWithoutNullStreams } from 'node:child_process';
 import { readdirSync } from 'node:fs';
@@ -28,14 +32,16 @@ import { dirname, join } from 'node:path';
 import { createInterface } from 'node:readline';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import type { CompareKernel } from './compare/types.js';
+import { setKernelThreads } from '../src/linalg/simd.js';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const args = process.argv.slice(2);
-let seconds = 1.0, rounds = 3;
+let seconds = 1.0, rounds = 3, threads = 1;
 const filters: string[] = [];
 for (let i = 0; i < args.length; i++) {
   if (args[i] === '--seconds') seconds = Number(args[++i]);
   else if (args[i] === '--rounds') rounds = Math.max(1, Math.round(Number(args[++i])));
+  else if (args[i] === '--threads') threads = Math.max(1, Math.round(Number(args[++i])));
   else filters.push(args[i].toLowerCase());
 }
 
@@ -152,15 +158,15 @@ class NumpyWorker {
   close(): void { this.proc.stdin.end(); }
 }
 
-const THREADS_1 = { OMP_NUM_THREADS: '1', OPENBLAS_NUM_THREADS: '1', MKL_NUM_THREADS: '1', VECLIB_MAXIMUM_THREADS: '1', NUMEXPR_NUM_THREADS: '1' };
+const THREADS_ENV = Object.fromEntries(['OMP_NUM_THREADS', 'OPENBLAS_NUM_THREADS', 'MKL_NUM_THREADS', 'VECLIB_MAXIMUM_THREADS', 'NUMEXPR_NUM_THREADS'].map((v) => [v, String(threads)]));
 
 function envAsSet(): NodeJS.ProcessEnv {
-  return { ...process.env, ...THREADS_1 };
+  return { ...process.env, ...THREADS_ENV };
 }
 function envUnset(): NodeJS.ProcessEnv {
   const env: NodeJS.ProcessEnv = {};
   for (const [k, v] of Object.entries(process.env)) if (!k.startsWith('OPENBLAS_') && !k.startsWith('GOTO')) env[k] = v;
-  return { ...env, ...THREADS_1 };
+  return { ...env, ...THREADS_ENV };
 }
 
 function fmt(x: number | undefined): string {
@@ -178,13 +184,15 @@ async function main(): Promise<void> {
   const blasVars = Object.entries(process.env).filter(([k]) => k.startsWith('OPENBLAS_')).map(([k, v]) => `${k}=${v}`).join(' ') || '(none)';
   process.stdout.write(`phasewise bench:compare — node ${process.version}, ${ks.length} kernels, ${rounds} rounds of ~${(seconds / rounds).toFixed(2)} s per kernel and side\n`);
   process.stdout.write(`load average at start (1, 5, 15 min): ${load1()}\n`);
+  const ourThreads = setKernelThreads(threads);
+  process.stdout.write(`phasewise kernel threads: ${ourThreads} (setKernelThreads(${threads})); numpy: OMP/OPENBLAS/MKL_NUM_THREADS=${threads}\n`);
   const workers = [new NumpyWorker('as set', envAsSet()), new NumpyWorker('unset', envUnset())];
   const live: NumpyWorker[] = [];
   for (const w of workers) {
     const hello = await w.next();
     if (typeof hello.error === 'string') { process.stdout.write(`numpy (${w.label}): ${hello.error}; skipped.\n`); w.close(); continue; }
     live.push(w);
-    process.stdout.write(`numpy ${String(hello.numpy)}, one thread, OpenBLAS variables ${w.label === 'as set' ? `as set: ${blasVars}` : 'unset'} → OpenBLAS core ${String(hello.core)}\n`);
+    process.stdout.write(`numpy ${String(hello.numpy)}, ${threads === 1 ? 'one thread' : `${threads} threads`}, OpenBLAS variables ${w.label === 'as set' ? `as set: ${blasVars}` : 'unset'} → OpenBLAS core ${String(hello.core)}\n`);
   }
   const slice = seconds / rounds;
   const labels = new Map<string, string>();

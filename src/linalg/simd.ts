@@ -74,7 +74,7 @@ export function simdStatus(): SimdStatus {
  * and through them the LU and Cholesky factorisations and solves.
  *
  * @remarks
- * A product of at least 64³ complex multiply–adds is cut into contiguous
+ * A product of at least 80³ complex multiply–adds is cut into contiguous
  * blocks of output rows (or, for triangular solves, of right-hand-side
  * columns); the calling thread and `n − 1` worker threads, which share one
  * WebAssembly memory, each take blocks and run the same SIMD kernel on them

@@ -142,7 +142,7 @@ describe('kernel threads forced on small problems: the numpy/scipy fixtures', ()
     withThreads(2, () => multiply(randomMatrix(40, 40, 1), randomMatrix(40, 40, 2)));
     await workersReady();
   });
-  afterAll(() => { threadSettings.minWork = 64 * 64 * 64; });
+  afterAll(() => { threadSettings.minWork = PARALLEL_MIN_WORK; });
 
   for (const fx of fixtures.cases.solve) {
     it(`LU solve on 2 threads: ${String(fx.name)}`, () => {
@@ -165,8 +165,8 @@ describe('kernel threads forced on small problems: the numpy/scipy fixtures', ()
 });
 
 describe('setKernelThreads', () => {
-  it('the documented numbers: split from 64³ complex multiply–adds; default = available cores, at most 8', () => {
-    expect(PARALLEL_MIN_WORK).toBe(64 ** 3);
+  it('the documented numbers: split from 80³ complex multiply–adds; default = available cores, at most 8', () => {
+    expect(PARALLEL_MIN_WORK).toBe(80 ** 3);
     expect(DEFAULT_THREAD_CAP).toBe(8);
     expect(defaultThreadCount()).toBe(Math.min(8, availableParallelism()));
     setKernelThreads('auto');

@@ -42,8 +42,12 @@ export interface ZtileKernel {
 export const DEFAULT_THREAD_CAP = 8;
 /** Largest accepted thread count. */
 export const MAX_THREADS = 64;
-/** Complex multiply–adds of one job from which it is split across threads (break-even measured near 32³, see DEVELOPERS.md). */
-export const PARALLEL_MIN_WORK = 64 * 64 * 64;
+/**
+ * Complex multiply–adds of one job from which it is split across threads: the measured
+ * break-even of two threads against one for a square product (n = 64: 0.94×, n = 80: 1.02×,
+ * n = 96: 1.42×; DEVELOPERS.md "Kernel threads").
+ */
+export const PARALLEL_MIN_WORK = 80 * 80 * 80;
 /** A waiting caller gives up when no chunk has completed for this long (a worker died holding one). */
 const STALL_MS = 60_000;
 
@@ -231,7 +235,7 @@ export function threadStatus(): { threads: number; reason: string } {
   const n = threadsInUse();
   if (n === 1) return { threads: 1, reason: 'one thread (setKernelThreads(1))' };
   const ready = pool === undefined ? 0 : pool.workers.filter((_, w) => Atomics.load(pool!.ctrl, L.READY + w) === 1).length;
-  const started = pool === undefined ? 'start at the first product of at least 64³ complex multiply–adds' : `${Math.min(ready, n - 1)} of ${n - 1} ready`;
+  const started = pool === undefined ? 'start at the first product of at least 80³ complex multiply–adds' : `${Math.min(ready, n - 1)} of ${n - 1} ready`;
   return { threads: n, reason: `${n} threads: the calling thread and ${n - 1} worker thread${n > 2 ? 's' : ''} (worker_threads; ${started}) on one shared WebAssembly memory` };
 }
 
