@@ -4,6 +4,7 @@ import { sphereQuadrature } from '../../src/geometry/quadrature.js';
 import { K_BOLTZMANN_J_PER_K } from '../../src/units/constants.js';
 import { wavelengthM } from '../../src/units/convert.js';
 import { evaluateReceivingArray, skyAndGroundEnvironment } from '../../src/reception/index.js';
+import { show } from '../../src/display/index.js';
 import { hertzianResistance, hertzianSource } from './hertzian.js';
 
 const f = 1.4e9, lambda = wavelengthM(f), L = lambda / 40;
@@ -25,6 +26,23 @@ describe('evaluateReceivingArray', () => {
     physicalAreaM2: 0.1,
     fluxDensityWPerM2Hz: 1e-25,
     onProgress: (stage, done) => { if (stage === 'beams') calls.push(done); },
+  });
+  it("arrayFigures false: the same beam figures without T_rec,min and the efficiencies, said by arrayFiguresComputed and by show(); the default ('auto') computes them for 3 ports", () => {
+    expect(res.arrayFiguresComputed).toBe(true);
+    const off = evaluateReceivingArray({
+      ports: { patterns: hertzianSource(xy, L, f), impedanceOhm: z }, quadrature: sphereQuadrature(24, 48), bandwidthHz: 1e6,
+      environment: skyAndGroundEnvironment({ skyK: 6, groundK: 280 }),
+      amplifiers: { minimumNoiseTemperatureK: 20, noiseResistanceOhm: 2, optimumSourceAdmittanceS: 0.05 }, loss: 'lossless',
+      beams: { thetaRad: Float64Array.of(0.6, 1.0, 1.4), phiRad: Float64Array.of(0, 0, 1.2) }, arrayFigures: false,
+    });
+    expect(off.arrayFiguresComputed).toBe(false);
+    expect(Number.isNaN(off.minimumReceiverTemperatureK)).toBe(true);
+    expect(off.embeddedElementEfficiency).toHaveLength(0);
+    expect(off.checks.map((c) => c.name)).not.toContain('minimumReceiverTemperature');
+    expect(off.checks.every((c) => c.passed)).toBe(true);
+    for (let k = 0; k < 3; k++) expect(off.beams[k].systemTemperatureK).toBeCloseTo(res.beams[k].systemTemperatureK, 10);
+    expect(show(off)).toContain('array figures not computed');
+    expect(show(res)).not.toContain('array figures not computed');
   });
   it('returns every figure per beam with units, consistent with the sensitivity identity', () => {
     expect(res.beams).toHaveLength(3);
