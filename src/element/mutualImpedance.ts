@@ -17,6 +17,7 @@ import {
   type DipoleGeometry, type GroundPlane, type WireDipole,
 } from './types.js';
 import { matrixView } from '../linalg/cmatrix.js';
+import { mirrorTriangle } from '../internal/herk.js';
 
 /**
  * Options of the pair and matrix induced-EMF functions.
@@ -428,15 +429,7 @@ export function dipoleArrayImpedanceMatrix(dipoles: ReadonlyArray<WireDipole>, f
       data[2 * (i * n + j)] = zr; data[2 * (i * n + j) + 1] = zi;
     }
   }
-  // Z is symmetric (reciprocity): the lower triangle by transposing the upper in cache-sized tiles
-  for (let i0 = 0; i0 < n; i0 += 32) {
-    for (let j0 = 0; j0 <= i0; j0 += 32) {
-      for (let i = i0; i < Math.min(n, i0 + 32); i++) {
-        for (let j = j0; j < Math.min(i, j0 + 32); j++) {
-          data[2 * (i * n + j)] = data[2 * (j * n + i)]; data[2 * (i * n + j) + 1] = data[2 * (j * n + i) + 1];
-        }
-      }
-    }
-  }
+  // Z is symmetric (reciprocity): the lower triangle is the transposed upper one
+  mirrorTriangle(n, data, false, false);
   return matrixView(n, n, data);
 }

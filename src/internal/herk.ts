@@ -164,11 +164,29 @@ export function herkLowerScalarKernel(n: number, k: number, g: Float64Array, ldg
 
 /** Copies the conjugate of the strict lower triangle of an n×n interleaved matrix into its upper triangle and zeroes the imaginary parts of the diagonal. */
 export function mirrorLowerToUpper(n: number, c: Float64Array): void {
-  for (let i = 0; i < n; i++) {
-    c[2 * (i * n + i) + 1] = 0;
-    for (let j = 0; j < i; j++) {
-      c[2 * (j * n + i)] = c[2 * (i * n + j)];
-      c[2 * (j * n + i) + 1] = -c[2 * (i * n + j) + 1];
+  for (let i = 0; i < n; i++) c[2 * (i * n + i) + 1] = 0;
+  mirrorTriangle(n, c, true, true);
+}
+
+/**
+ * Copies one strict triangle of an n×n interleaved matrix onto the other — from the lower
+ * triangle when `fromLower`, else from the upper — conjugated (Hermitian) or not (symmetric).
+ * Walks 32×32 tiles so that the strided side stays in cache (a plain column walk across a
+ * large matrix misses the cache on every entry).
+ */
+export function mirrorTriangle(n: number, c: Float64Array, fromLower: boolean, conjugate: boolean): void {
+  const T = 32, sign = conjugate ? -1 : 1;
+  for (let i0 = 0; i0 < n; i0 += T) {
+    const i1 = Math.min(n, i0 + T);
+    for (let j0 = 0; j0 <= i0; j0 += T) {
+      for (let i = i0; i < i1; i++) {
+        const j1 = Math.min(i, j0 + T);
+        for (let j = j0; j < j1; j++) {
+          const lo = 2 * (i * n + j), up = 2 * (j * n + i);
+          const src = fromLower ? lo : up, dst = fromLower ? up : lo;
+          c[dst] = c[src]; c[dst + 1] = sign * c[src + 1];
+        }
+      }
     }
   }
 }

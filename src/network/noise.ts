@@ -17,7 +17,7 @@ import { hzText } from '../internal/text.js';
 import { Complex } from 'complex.js';
 import { DimensionError, DomainError, SingularMatrixError } from '../errors.js';
 import { type CMatrix, type ComplexLike, complexParts, identity, matrixView } from '../linalg/cmatrix.js';
-import { add, adjoint, multiply, scale, subtract } from '../linalg/ops.js';
+import { add, adjoint, hermitianPart, multiply, scale, subtract } from '../linalg/ops.js';
 import { inverse } from '../linalg/lu.js';
 import { K_BOLTZMANN_J_PER_K, T0_K } from '../units/constants.js';
 import { assertFiniteCMatrix, assertNonNegative, assertPositive, assertShape, assertSquare, describeValue } from '../internal/validate.js';
@@ -335,18 +335,10 @@ export function thermalImpedanceNoise(impedanceOhm: CMatrix, temperatureK: numbe
   assertFiniteCMatrix('impedanceOhm', impedanceOhm);
   assertNonNegative('temperatureK', temperatureK, 'K');
   assertPositive('bandwidthHz', bandwidthHz, 'Hz');
-  // one pass: (Z + Zᴴ)_ij = Z_ij + conj(Z_ji), scaled (no intermediate N×N copies)
-  const n = impedanceOhm.rows, z = impedanceOhm.data, c = 2 * K_BOLTZMANN_J_PER_K * temperatureK * bandwidthHz;
-  const out = new Float64Array(2 * n * n);
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j <= i; j++) {
-      const a = 2 * (i * n + j), b = 2 * (j * n + i);
-      const re = c * (z[a] + z[b]), im = c * (z[a + 1] - z[b + 1]);
-      out[a] = re; out[a + 1] = i === j ? 0 : im;
-      out[b] = re; out[b + 1] = i === j ? 0 : -im;
-    }
-  }
-  return { rows: n, cols: n, data: out };
+  // 2k_B T B (Z + Zᴴ) = 4k_B T B · hermitianPart(Z), scaled in place (one N×N array, not three)
+  const h = hermitianPart(impedanceOhm), c = 4 * K_BOLTZMANN_J_PER_K * temperatureK * bandwidthHz;
+  for (let k = 0; k < h.data.length; k++) h.data[k] *= c;
+  return h;
 }
 
 /**

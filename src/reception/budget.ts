@@ -21,6 +21,7 @@ import { columnQuadraticForms, type BudgetForms } from './figures.js';
 import { thermalImpedanceNoise, type NoiseParametersInput } from '../network/noise.js';
 import type { Vector3 } from '../geometry/layout.js';
 import { matrixView } from '../linalg/cmatrix.js';
+import { add, scale } from '../linalg/ops.js';
 
 /**
  * The noise environment: a brightness distribution and which directions count
@@ -244,13 +245,6 @@ function regionMaps(q: QuadratureDirections, env: NoiseEnvironment): Float64Arra
   return [tSky, tGround, oneSky, oneGround];
 }
 
-/** c·A as a new matrix (a plain loop: typed-array map is several times slower at N² = 10⁷). */
-function scaledCopy(a: CMatrix, c: number): CMatrix {
-  const src = a.data, out = new Float64Array(src.length);
-  for (let k = 0; k < src.length; k++) out[k] = c * src[k];
-  return matrixView(a.rows, a.cols, out);
-}
-
 /** The value T when `t` equals T·`region` at every direction (`region` a 0/1 indicator), else null. */
 function constantOn(t: Float64Array, region: Float64Array): number | null {
   let c: number | null = null;
@@ -273,14 +267,12 @@ export function externalNoise(
   let sky: CMatrix, ground: CMatrix, skyRegionPerK: CMatrix, groundRegionPerK: CMatrix;
   if (tSkyConst !== null && tGroundConst !== null) {
     [skyRegionPerK, groundRegionPerK] = brightnessCorrelations(src, q, [maps[2], maps[3]], b, options);
-    sky = scaledCopy(skyRegionPerK, tSkyConst);
-    ground = scaledCopy(groundRegionPerK, tGroundConst);
+    sky = scale(skyRegionPerK, tSkyConst);
+    ground = scale(groundRegionPerK, tGroundConst);
   } else {
     [sky, ground, skyRegionPerK, groundRegionPerK] = brightnessCorrelations(src, q, maps, b, options);
   }
-  const n = src.portCount;
-  const radiationPerK = { rows: n, cols: n, data: new Float64Array(skyRegionPerK.data.length) };
-  for (let k = 0; k < radiationPerK.data.length; k++) radiationPerK.data[k] = skyRegionPerK.data[k] + groundRegionPerK.data[k];
+  const radiationPerK = add(skyRegionPerK, groundRegionPerK);
   return { sky, ground, skyRegionPerK, radiationPerK };
 }
 

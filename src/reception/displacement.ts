@@ -7,6 +7,7 @@
  * @module
  */
 import { gemmKernel } from '../internal/gemm.js';
+import { mirrorTriangle } from '../internal/herk.js';
 import type { CMatrix } from '../linalg/cmatrix.js';
 import type { PortPatternSource, QuadratureDirections } from './patterns.js';
 
@@ -292,26 +293,10 @@ export function shiftedBrightnessCorrelations(
       o[row + 2 * i] = scale * h[2 * (base + cells[i])];
     }
   }
-  for (const o of outs) mirrorLowerTiled(n, o);
+  for (const o of outs) mirrorTriangle(n, o, true, true);
   return outs.map((data) => ({ rows: n, cols: n, data }));
 }
 
-/** Upper triangle of an n×n interleaved Hermitian matrix from its strict lower triangle, in 32×32 tiles. */
-function mirrorLowerTiled(n: number, c: Float64Array): void {
-  const T = 32;
-  for (let i0 = 0; i0 < n; i0 += T) {
-    const i1 = Math.min(n, i0 + T);
-    for (let j0 = 0; j0 <= i0; j0 += T) {
-      for (let i = i0; i < i1; i++) {
-        const j1 = Math.min(i, j0 + T);
-        for (let j = j0; j < j1; j++) {
-          const lo = 2 * (i * n + j), up = 2 * (j * n + i);
-          c[up] = c[lo]; c[up + 1] = -c[lo + 1];
-        }
-      }
-    }
-  }
-}
 
 /**
  * @internal Quadratic forms of the brightness correlations on the displacement path without
