@@ -7,6 +7,8 @@
  */
 import { ConvergenceError } from '../errors.js';
 import { gemmKernel } from './gemm.js';
+import { ensureMemory } from './wasm/runtime.js';
+import { loadZtile } from './ztileWasm.js';
 import { rotationWorkspace } from './rotationsWasm.js';
 import { type TridiagWorkspace, tridiagWorkspace } from './tridiagonalWasm.js';
 
@@ -377,23 +379,28 @@ export function tridiagonalQl(d: Float64Array, e: Float64Array, n: number, z: Fl
 const WY_BLOCK = 16;
 
 /**
- * Back-transformation X = Q D Z of the real tridiagonal eigenvectors `z`
- * (n×n, row-major, columns = eigenvectors, possibly fewer columns `cols`) into
- * eigenvectors of the original Hermitian matrix, written to `out`
- * (interleaved complex, n×cols row-major, columns = eigenvectors).
- * Reflectors are applied in blocks of WY_BLOCK in the compact WY form
+ * Back-transformation X = Q D Z of the real tridiagonal eigenvectors into
+ * eigenvectors of the original Hermitian matrix: column j of X is built from
+ * column `order[j]` of `z` (n×n, row-major, columns = eigenvectors), so the
+ * columns come out sorted. Written to `out` (interleaved complex, n×n
+ * row-major, columns = eigenvectors).
+ * Reflectors are applied in blocks in the compact WY form
  * H_{k0} ⋯ H_{k1−1} = I − V T Vᴴ, T upper triangular (Schreiber & Van Loan,
  * "A storage-efficient WY representation for products of Householder
  * transformations", SIAM J. Sci. Stat. Comput. 10(1), 1989, from memory), so
- * the work is two matrix products per block (the SIMD product kernel).
+ * the work is matrix products. With WebAssembly SIMD, X stays in the product
+ * kernel's memory in its packed panel layout for the whole run
+ * ({@link backTransformSimd}); otherwise the products go through `gemmKernel`.
  */
-export function backTransform(red: TridiagonalReduction, z: Float64Array, cols: number, out: Float64Array): void {
+export function backTransform(red: TridiagonalReduction, z: Float64Array, order: ArrayLike<number>, out: Float64Array): void {
+  if (red.n > 8 && backTransformSimd(red, z, order, out)) return;
   const { n, house, beta, phase } = red;
+  const cols = n;
   for (let i = 0; i < n; i++) {
     const pr = phase[2 * i], pi = phase[2 * i + 1];
-    const zr = i * cols, xr = 2 * i * cols;
+    const zr = i * n, xr = 2 * i * cols;
     for (let j = 0; j < cols; j++) {
-      const v = z[zr + j];
+      const v = z[zr + order[j]];
       out[xr + 2 * j] = pr * v;
       out[xr + 2 * j + 1] = pi * v;
     }
@@ -403,9 +410,9 @@ export function backTransform(red: TridiagonalReduction, z: Float64Array, cols: 
   const vb = new Float64Array(2 * n * WY_BLOCK);
   const vh = new Float64Array(2 * n * WY_BLOCK);
   const t = new Float64Array(2 * WY_BLOCK * WY_BLOCK);
+  const s = new Float64Array(2 * WY_BLOCK * WY_BLOCK);
   const w = new Float64Array(2 * WY_BLOCK * cols);
   const w2 = new Float64Array(2 * WY_BLOCK * cols);
-  const tmp = new Float64Array(2 * WY_BLOCK);
   const lastStart = Math.floor((nRefl - 1) / WY_BLOCK) * WY_BLOCK;
   for (let k0 = lastStart; k0 >= 0; k0 -= WY_BLOCK) {
     const nb = Math.min(WY_BLOCK, nRefl - k0);
@@ -421,35 +428,123 @@ export function backTransform(red: TridiagonalReduction, z: Float64Array, cols: 
         vh[2 * (c * mm + r)] = vr; vh[2 * (c * mm + r) + 1] = -vi;
       }
     }
-    // T: T[c,c] = β; T[0:c, c] = −β T[0:c, 0:c] (V[:, 0:c]ᴴ v_c)
-    t.fill(0);
-    for (let c = 0; c < nb; c++) {
-      const b = beta[k0 + c];
-      t[2 * (c * nb + c)] = b;
-      if (b === 0) continue;
-      for (let q = 0; q < c; q++) {
-        let sr = 0, si = 0;
-        for (let r = 0; r < mm; r++) {
-          const ar = vh[2 * (q * mm + r)], ai = vh[2 * (q * mm + r) + 1];
-          const br = vb[2 * (r * nb + c)], bi = vb[2 * (r * nb + c) + 1];
-          sr += ar * br - ai * bi;
-          si += ar * bi + ai * br;
-        }
-        tmp[2 * q] = sr; tmp[2 * q + 1] = si;
-      }
-      for (let q = 0; q < c; q++) {
-        let sr = 0, si = 0;
-        for (let p = q; p < c; p++) {
-          const ar = t[2 * (q * nb + p)], ai = t[2 * (q * nb + p) + 1];
-          sr += ar * tmp[2 * p] - ai * tmp[2 * p + 1];
-          si += ar * tmp[2 * p + 1] + ai * tmp[2 * p];
-        }
-        t[2 * (q * nb + c)] = -b * sr; t[2 * (q * nb + c) + 1] = -b * si;
-      }
-    }
+    // S = Vᴴ V (its strict upper triangle is what T needs), then T from S
+    gemmKernel(nb, nb, mm, vh, 0, mm, vb, 0, nb, s, 0, nb, false, 1);
+    wyTriangle(nb, beta, k0, (q, c) => s[2 * (q * nb + c)], (q, c) => s[2 * (q * nb + c) + 1], t);
     // X[r0:n] −= V (T (Vᴴ X[r0:n]))
     gemmKernel(nb, cols, mm, vh, 0, mm, out, r0 * cols, cols, w, 0, cols, false, 1);
     gemmKernel(nb, cols, nb, t, 0, nb, w, 0, cols, w2, 0, cols, false, 1);
     gemmKernel(mm, cols, nb, vb, 0, nb, w2, 0, cols, out, r0 * cols, cols, true, -1);
   }
+}
+
+/**
+ * The triangular factor T (nb×nb, interleaved, upper) of the compact WY form of
+ * reflectors k0 … k0+nb−1 from S = Vᴴ V (entries (q, c), q < c, read through
+ * `sRe`/`sIm`): T[c,c] = β_c, T[0:c, c] = −β_c T[0:c, 0:c] S[0:c, c].
+ */
+function wyTriangle(nb: number, beta: Float64Array, k0: number, sRe: (q: number, c: number) => number, sIm: (q: number, c: number) => number, t: Float64Array): void {
+  t.fill(0, 0, 2 * nb * nb);
+  for (let c = 0; c < nb; c++) {
+    const b = beta[k0 + c];
+    t[2 * (c * nb + c)] = b;
+    if (b === 0) continue;
+    for (let q = 0; q < c; q++) {
+      let sr = 0, si = 0;
+      for (let p = q; p < c; p++) {
+        const ar = t[2 * (q * nb + p)], ai = t[2 * (q * nb + p) + 1];
+        const xr = sRe(p, c), xi = sIm(p, c);
+        sr += ar * xr - ai * xi;
+        si += ar * xi + ai * xr;
+      }
+      t[2 * (q * nb + c)] = -b * sr; t[2 * (q * nb + c) + 1] = -b * si;
+    }
+  }
+}
+
+/** Reflectors per block of {@link backTransformSimd}. */
+const WY_BLOCK_SIMD = 16;
+/** Four-column panels of X per call of the product kernel in {@link backTransformSimd} (a block of X that stays in L2). */
+const PANELS_PER_CALL = 8;
+
+/**
+ * {@link backTransform} on the SIMD product kernel (wasm/ztile.wat), called
+ * directly on one thread: X lives in the kernel memory in the packed layout
+ * of its B operand (four-column panels; panel q of row r at 64·(q·n + r)
+ * bytes), which is also a valid layout of its C operand, so W = Vᴴ X reads X
+ * in place and X −= V (T W) updates it in place: nothing is packed or copied
+ * per block but the reflectors themselves. Returns false on the scalar path.
+ */
+function backTransformSimd(red: TridiagonalReduction, z: Float64Array, order: ArrayLike<number>, out: Float64Array): boolean {
+  const mod = loadZtile();
+  if (mod === null) return false;
+  const { n, house, beta, phase } = red;
+  const n4 = (n + 3) & ~3, panels = n4 >> 2;
+  const bMax = WY_BLOCK_SIMD, b4 = (bMax + 3) & ~3;
+  // layout (bytes): X panels | Vᴴ (nb×mm) | −V (mm×nb) | V panels | S planes | T | W panels | W2 panels
+  const pX = 0;
+  const pVh = pX + n * n4 * 16;
+  const pVn = pVh + bMax * n * 16;
+  const pVp = pVn + n * bMax * 16;
+  const pS = pVp + n * b4 * 16;
+  const pT = pS + 2 * bMax * b4 * 8;
+  const pW = pT + bMax * bMax * 16;
+  const pW2 = pW + bMax * n4 * 16;
+  const f = ensureMemory(mod.memory, pW2 + bMax * n4 * 16);
+  const x0 = pX >> 3, xPanel = 8 * n; // doubles per panel of X
+  // X = D Z[:, order]
+  f.fill(0, x0, x0 + n * n4 * 2);
+  for (let i = 0; i < n; i++) {
+    const pr = phase[2 * i], pi = phase[2 * i + 1], zr = i * n;
+    for (let j = 0; j < n; j++) {
+      const v = z[zr + order[j]], d = x0 + (j >> 2) * xPanel + 8 * i + (j & 3);
+      f[d] = pr * v; f[d + 4] = pi * v;
+    }
+  }
+  const nRefl = n - 2;
+  const t = new Float64Array(2 * bMax * bMax);
+  const lastStart = nRefl > 0 ? Math.floor((nRefl - 1) / bMax) * bMax : -1;
+  for (let k0 = lastStart; k0 >= 0; k0 -= bMax) {
+    const nb = Math.min(bMax, nRefl - k0), nb4 = (nb + 3) & ~3;
+    const r0 = k0 + 1, mm = n - r0;
+    // V (mm×nb): column c = u_{k0+c} from row c on; as Vᴴ and −V (interleaved) and as panels
+    const vh = pVh >> 3, vn = pVn >> 3, vp = pVp >> 3;
+    f.fill(0, vp, vp + mm * nb4 * 2);
+    for (let c = 0; c < nb; c++) {
+      const k = k0 + c, live = beta[k] !== 0;
+      for (let r = 0; r < mm; r++) {
+        let vr = 0, vi = 0;
+        if (live && r >= c) { const a = 2 * ((r0 + r) * n + k); vr = house[a]; vi = house[a + 1]; }
+        const h = vh + 2 * (c * mm + r), g = vn + 2 * (r * nb + c), e = vp + (c >> 2) * mm * 8 + 8 * r + (c & 3);
+        f[h] = vr; f[h + 1] = -vi;
+        f[g] = -vr; f[g + 1] = -vi;
+        f[e] = vr; f[e + 4] = vi;
+      }
+    }
+    // S = Vᴴ V (planes nb × nb4), then T (interleaved nb×nb)
+    const sr = pS >> 3, si = sr + nb * nb4;
+    f.fill(0, sr, sr + 2 * nb * nb4);
+    mod.ztile(nb, nb4, mm, pVh, mm * 16, pVp, mm * 64, pS, pS + nb * nb4 * 8, nb4 * 8, 32);
+    wyTriangle(nb, beta, k0, (q, c) => f[sr + q * nb4 + c], (q, c) => f[si + q * nb4 + c], t);
+    f.set(t.subarray(0, 2 * nb * nb), pT >> 3);
+    // per block of columns: W = Vᴴ X[r0:n], W2 = T W, X[r0:n] += (−V) W2
+    const w = pW >> 3, w2 = pW2 >> 3;
+    for (let q0 = 0; q0 < panels; q0 += PANELS_PER_CALL) {
+      const cnt = Math.min(PANELS_PER_CALL, panels - q0);
+      const pWq = pW + q0 * nb * 64, pW2q = pW2 + q0 * nb * 64, pXq = pX + q0 * n * 64 + r0 * 64;
+      f.fill(0, w + q0 * nb * 8, w + (q0 + cnt) * nb * 8);
+      f.fill(0, w2 + q0 * nb * 8, w2 + (q0 + cnt) * nb * 8);
+      mod.ztile(nb, 4 * cnt, mm, pVh, mm * 16, pXq, n * 64, pWq, pWq + 32, 64, nb * 64);
+      mod.ztile(nb, 4 * cnt, nb, pT, nb * 16, pWq, nb * 64, pW2q, pW2q + 32, 64, nb * 64);
+      mod.ztile(mm, 4 * cnt, nb, pVn, nb * 16, pW2q, nb * 64, pXq, pXq + 32, 64, n * 64);
+    }
+  }
+  for (let i = 0; i < n; i++) {
+    const row = 2 * i * n;
+    for (let j = 0; j < n; j++) {
+      const s = x0 + (j >> 2) * xPanel + 8 * i + (j & 3);
+      out[row + 2 * j] = f[s]; out[row + 2 * j + 1] = f[s + 4];
+    }
+  }
+  return true;
 }

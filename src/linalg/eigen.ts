@@ -87,14 +87,9 @@ export function hermitianEigenKernel(a: CMatrix, valuesOnly: boolean): Hermitian
   const values = new Float64Array(n);
   for (let j = 0; j < n; j++) values[j] = d[order[j]] * mag;
   if (z === null) return { values, vectors: null };
-  // Sort the columns of Z, then back-transform.
-  const zs = new Float64Array(n * n);
-  for (let i = 0; i < n; i++) {
-    const row = i * n;
-    for (let j = 0; j < n; j++) zs[row + j] = z[row + order[j]];
-  }
+  // Back-transform the columns of Z in ascending order of their eigenvalues.
   const v = new Float64Array(2 * n * n);
-  backTransform(red, zs, n, v);
+  backTransform(red, z, order, v);
   return { values, vectors: { rows: n, cols: n, data: v } };
 }
 
