@@ -5,6 +5,7 @@
 import { DimensionError, DomainError, NotPositiveDefiniteError } from '../errors.js';
 import { adjointSquare, solveLowerInPlace, solveUpperInPlace } from '../internal/triangular.js';
 import { backTransform, reduceHermitianToTridiagonal, tridiagonalQl } from '../internal/tridiagonal.js';
+import { tridiagonalDivideConquer } from '../internal/divideConquer.js';
 import { assertFiniteCMatrix, assertNonNegative, assertSquare } from '../internal/validate.js';
 import { choleskyFactor } from './cholesky.js';
 import type { CMatrix } from './cmatrix.js';
@@ -57,6 +58,9 @@ export function assertHermitian(name: string, a: CMatrix, tol: number): number {
   return a.rows;
 }
 
+/** Order from which the eigenvectors of the tridiagonal matrix come from divide and conquer instead of QL. */
+const DC_MIN_ORDER = 48;
+
 /**
  * Eigen-decomposes an n×n Hermitian matrix without validation. The Hermitian
  * part of `a` is used. @internal
@@ -82,7 +86,9 @@ export function hermitianEigenKernel(a: CMatrix, valuesOnly: boolean): Hermitian
     z = new Float64Array(n * n);
     for (let i = 0; i < n; i++) z[i * n + i] = 1;
   }
-  tridiagonalQl(d, red.e.slice(), n, z);
+  // Divide and conquer from order DC_MIN_ORDER on (its eigenvalues come sorted), else QL.
+  if (z !== null && n >= DC_MIN_ORDER) tridiagonalDivideConquer(d, red.e, n, z);
+  else tridiagonalQl(d, red.e.slice(), n, z);
   const order = Array.from({ length: n }, (_, i) => i).sort((x, y) => d[x] - d[y]);
   const values = new Float64Array(n);
   for (let j = 0; j < n; j++) values[j] = d[order[j]] * mag;
