@@ -15,9 +15,10 @@ const LEAF = 32;
 const EPS = 2.220446049250313e-16;
 
 /**
- * Eigenvalues (returned in `d`, ascending) and eigenvectors (`z`, n×n row-major,
- * column j belongs to d[j], overwritten) of the real symmetric tridiagonal
- * matrix with diagonal `d` and off-diagonal `e` (e[i] couples i and i+1).
+ * Eigenvalues (returned in `d`, ascending) and eigenvectors of the real
+ * symmetric tridiagonal matrix with diagonal `d` and off-diagonal `e` (e[i]
+ * couples i and i+1): eigenvector j (for d[j]) is written CONTIGUOUSLY to
+ * zt[j·n … j·n + n − 1] (zt is Zᵀ, row-major).
  *
  * Method (Cuppen, "A divide and conquer method for the symmetric tridiagonal
  * eigenproblem", Numer. Math. 36, 1981; Gu & Eisenstat, "A divide-and-conquer
@@ -26,25 +27,26 @@ const EPS = 2.220446049250313e-16;
  * v = (e_last; ±e_first); the halves are solved recursively (QL below
  * {@link LEAF}), which leaves D + ρ z zᵀ, z = diag(Q₁, Q₂)ᵀ v. Entries with
  * ρ|zᵢ| below 8ε·max(|D|, |z|) and pairs of nearly equal dᵢ (rotated so that
- * one z entry vanishes) are deflated (as LAPACK's dlaed2 does); the rest are
- * the roots of the secular equation 1 + ρ Σ zⱼ²/(dⱼ − λ) = 0, one in each gap,
- * found by a safeguarded two-pole rational iteration in coordinates shifted
- * to the nearer pole (so every dⱼ − λ is accurate); z is then recomputed from
+ * one z entry vanishes) are deflated (the tests of LAPACK's dlaed2); the rest
+ * are the roots of the secular equation 1 + ρ Σ zⱼ²/(dⱼ − λ) = 0, one in each
+ * gap, found by a safeguarded rational iteration in coordinates shifted to
+ * the nearer pole (so every dⱼ − λ is accurate); z is then recomputed from
  * the roots by the Löwner formula (Gu–Eisenstat), which makes the vectors
  * (ẑⱼ/(dⱼ − λᵢ))ⱼ numerically orthogonal, and Q = diag(Q₁, Q₂) U is formed
- * as two real products over the rows of each half.
+ * as two real products, one over the rows of each half, each only over the
+ * columns that are nonzero there.
  * Backward stable: ‖T Z − Z Λ‖ and ‖ZᵀZ − I‖ are O(n ε ‖T‖).
  */
-export function tridiagonalDivideConquer(d: Float64Array, e: Float64Array, n: number, z: Float64Array): void {
+export function tridiagonalDivideConquer(d: Float64Array, e: Float64Array, n: number, zt: Float64Array): void {
   const r = solve(d.slice(0, n), e.slice(0, Math.max(0, n - 1)));
   d.set(r.lam, 0);
-  z.set(r.q, 0);
+  zt.set(r.q, 0);
 }
 
 interface Eig {
   /** Eigenvalues ascending. */
   lam: Float64Array;
-  /** Eigenvectors, s×s row-major, column j for lam[j]. */
+  /** Eigenvectors, s×s, vector j contiguous at j·s (for lam[j]). */
   q: Float64Array;
 }
 
@@ -52,14 +54,14 @@ interface Eig {
 function solve(d: Float64Array, e: Float64Array): Eig {
   const s = d.length;
   if (s <= LEAF) return leaf(d, e);
-  const n1 = s >> 1, n2 = s - n1;
+  const n1 = s >> 1;
   const beta = e[n1 - 1];
   const rho = Math.abs(beta), sg = beta < 0 ? -1 : 1;
   d[n1 - 1] -= rho;
   d[n1] -= rho;
-  const left = solve(d.subarray(0, n1).slice(), e.subarray(0, n1 - 1).slice());
-  const right = solve(d.subarray(n1).slice(), e.subarray(n1).slice());
-  return merge(left, right, n1, n2, rho, sg);
+  const left = solve(d.slice(0, n1), e.slice(0, n1 - 1));
+  const right = solve(d.slice(n1), e.slice(n1));
+  return merge(left, right, n1, s - n1, rho, sg);
 }
 
 /** A leaf: implicit QL with the rotations accumulated, then sorted. */
@@ -70,13 +72,19 @@ function leaf(d: Float64Array, e: Float64Array): Eig {
   const ee = new Float64Array(s);
   ee.set(e.subarray(0, s - 1));
   tridiagonalQl(d, ee, s, z);
-  const order = Array.from({ length: s }, (_, i) => i).sort((x, y) => d[x] - d[y]);
+  const order = sortedOrder(d, s);
   const lam = new Float64Array(s), q = new Float64Array(s * s);
-  for (let j = 0; j < s; j++) lam[j] = d[order[j]];
-  for (let i = 0; i < s; i++) {
-    for (let j = 0; j < s; j++) q[i * s + j] = z[i * s + order[j]];
+  for (let j = 0; j < s; j++) {
+    const c = order[j];
+    lam[j] = d[c];
+    for (let i = 0; i < s; i++) q[j * s + i] = z[i * s + c];
   }
   return { lam, q };
+}
+
+/** Indices 0 … count−1 in ascending order of v[index]. */
+function sortedOrder(v: Float64Array, count: number): Int32Array {
+  return Int32Array.from({ length: count }, (_, i) => i).sort((x, y) => v[x] - v[y]);
 }
 
 /** Column kinds of diag(Q₁, Q₂) after deflation rotations: nonzero in the top rows only, in both, in the bottom rows only. */
@@ -88,32 +96,32 @@ function merge(left: Eig, right: Eig, n1: number, n2: number, rho0: number, sg: 
   // D and z = diag(Q₁, Q₂)ᵀ v / √2 (unit norm), ρ = 2ρ₀
   const dAll = new Float64Array(s), zAll = new Float64Array(s);
   const inv = Math.SQRT1_2;
-  for (let j = 0; j < n1; j++) { dAll[j] = left.lam[j]; zAll[j] = inv * left.q[(n1 - 1) * n1 + j]; }
-  for (let j = 0; j < n2; j++) { dAll[n1 + j] = right.lam[j]; zAll[n1 + j] = sg * inv * right.q[j]; }
+  for (let j = 0; j < n1; j++) { dAll[j] = left.lam[j]; zAll[j] = inv * left.q[j * n1 + n1 - 1]; }
+  for (let j = 0; j < n2; j++) { dAll[n1 + j] = right.lam[j]; zAll[n1 + j] = sg * inv * right.q[j * n2]; }
   const rho = 2 * rho0;
-  // columns of diag(Q₁, Q₂), each kept as a full s-vector only when rotated (MIXED)
   const kind = new Uint8Array(s);
-  for (let j = n1; j < s; j++) kind[j] = BOTTOM;
+  kind.fill(BOTTOM, n1);
+  // columns changed by deflation rotations, as full s-vectors
   const rotated = new Map<number, Float64Array>();
-  /** Column j of diag(Q₁, Q₂), as an s-vector that deflation rotations may change. */
   const column = (j: number): Float64Array => {
     let c = rotated.get(j);
     if (c === undefined) {
       c = new Float64Array(s);
-      if (j < n1) { for (let i = 0; i < n1; i++) c[i] = left.q[i * n1 + j]; }
-      else { const jj = j - n1; for (let i = 0; i < n2; i++) c[n1 + i] = right.q[i * n2 + jj]; }
+      if (j < n1) c.set(left.q.subarray(j * n1, (j + 1) * n1), 0);
+      else c.set(right.q.subarray((j - n1) * n2, (j - n1 + 1) * n2), n1);
       rotated.set(j, c);
     }
     return c;
   };
-  /** Copies rows r0 … r0+rows−1 of column j into dst[i·stride + off]. */
-  const copyColumn = (j: number, r0: number, rows: number, dst: Float64Array, stride: number, off: number): void => {
+  /** Rows r0 … r0+rows−1 of column j into dst at off. */
+  const copyColumn = (j: number, r0: number, rows: number, dst: Float64Array, off: number): void => {
     const c = rotated.get(j);
-    if (c !== undefined) { for (let i = 0; i < rows; i++) dst[i * stride + off] = c[r0 + i]; return; }
-    for (let i = 0; i < rows; i++) {
-      const r = r0 + i;
-      dst[i * stride + off] = j < n1 ? (r < n1 ? left.q[r * n1 + j] : 0) : (r >= n1 ? right.q[(r - n1) * n2 + (j - n1)] : 0);
-    }
+    if (c !== undefined) { dst.set(c.subarray(r0, r0 + rows), off); return; }
+    const top = j < n1, src = top ? left.q : right.q, m = top ? n1 : n2, jj = top ? j : j - n1, lo = top ? 0 : n1;
+    // the part of [r0, r0 + rows) inside this column's half; zero elsewhere
+    const a = Math.max(r0, lo), b = Math.min(r0 + rows, lo + m);
+    dst.fill(0, off, off + rows);
+    if (b > a) dst.set(src.subarray(jj * m + a - lo, jj * m + b - lo), off + a - r0);
   };
   // ascending order of D (both halves are sorted: merge them)
   const perm = new Int32Array(s);
@@ -154,59 +162,67 @@ function merge(left: Eig, right: Eig, n1: number, n2: number, rho0: number, sg: 
   if (pj >= 0) keep.push(pj);
   const k = keep.length;
   // secular equation on the kept entries (ascending d)
-  const dk = new Float64Array(k), zk = new Float64Array(k);
-  for (let i = 0; i < k; i++) { dk[i] = dAll[keep[i]]; zk[i] = zAll[keep[i]]; }
+  const dk = new Float64Array(k), zk = new Float64Array(k), w2 = new Float64Array(k);
+  let zz = 0;
+  for (let i = 0; i < k; i++) { dk[i] = dAll[keep[i]]; zk[i] = zAll[keep[i]]; w2[i] = rho * zk[i] * zk[i]; zz += w2[i]; }
   const lam = new Float64Array(k);
   const delta = new Float64Array(k * k); // delta[i·k + j] = dk[j] − lam[i]
-  for (let i = 0; i < k; i++) secularRoot(i, dk, zk, rho, lam, delta.subarray(i * k, (i + 1) * k));
+  for (let i = 0; i < k; i++) secularRoot(i, dk, w2, zz, lam, delta.subarray(i * k, (i + 1) * k));
   // Löwner: ρ ẑⱼ² = −Πᵢ (dⱼ − λᵢ) / Π_{i≠j} (dⱼ − dᵢ), sign of zⱼ
   const zh = new Float64Array(k);
   for (let j = 0; j < k; j++) zh[j] = delta[j * k + j];
   for (let i = 0; i < k; i++) {
-    for (let j = 0; j < k; j++) if (j !== i) zh[j] *= delta[i * k + j] / (dk[j] - dk[i]);
+    const row = i * k, di = dk[i];
+    for (let j = 0; j < i; j++) zh[j] *= delta[row + j] / (dk[j] - di);
+    for (let j = i + 1; j < k; j++) zh[j] *= delta[row + j] / (dk[j] - di);
   }
   for (let j = 0; j < k; j++) zh[j] = (zk[j] < 0 ? -1 : 1) * Math.sqrt(Math.max(0, -zh[j]));
-  // U (k×k): column i ∝ (ẑⱼ / (dⱼ − λᵢ))ⱼ, unit norm; rows reordered by column kind below
-  const byKind = Array.from({ length: k }, (_, i) => i).sort((a, b) => kind[keep[a]] - kind[keep[b]]);
+  // the kept columns grouped by kind: TOP, MIXED, BOTTOM
+  const byKind = Int32Array.from({ length: k }, (_, i) => i).sort((a, b) => kind[keep[a]] - kind[keep[b]]);
   let nTop = 0, nBottom = 0;
-  for (const i of byKind) { if (kind[keep[i]] === TOP) nTop++; else if (kind[keep[i]] === BOTTOM) nBottom++; }
-  const nMixed = k - nTop - nBottom;
-  const u = new Float64Array(k * k); // row r = kept entry byKind[r]
+  for (let r = 0; r < k; r++) { const kd = kind[keep[byKind[r]]]; if (kd === TOP) nTop++; else if (kd === BOTTOM) nBottom++; }
+  // Uᵀ (k×k): row i = eigenvector i of D + ρ z zᵀ, ∝ (ẑⱼ / (dⱼ − λᵢ))ⱼ, unit norm, entries in byKind order
+  const ut = new Float64Array(k * k), tmp = new Float64Array(k);
   for (let i = 0; i < k; i++) {
-    const row = delta.subarray(i * k, (i + 1) * k);
+    const row = i * k;
     let nrm = 0;
-    for (let j = 0; j < k; j++) { const v = zh[j] / row[j]; nrm += v * v; }
+    for (let j = 0; j < k; j++) { const v = zh[j] / delta[row + j]; tmp[j] = v; nrm += v * v; }
     const sc = 1 / Math.sqrt(nrm);
-    for (let r = 0; r < k; r++) { const j = byKind[r]; u[r * k + i] = (sc * zh[j]) / row[j]; }
+    for (let r = 0; r < k; r++) ut[row + r] = sc * tmp[byKind[r]];
   }
-  // Q_new[:, kept] = diag-structured Q[:, kept] · U, top and bottom rows separately
-  const out = new Float64Array(s * s);
-  const qk = new Float64Array(Math.max(n1, n2) * k); // the operand block of one half
-  const res = new Float64Array(Math.max(n1, n2) * k);
-  // the final order: all eigenvalues ascending (secular roots and deflated d)
-  const all: { v: number; col: number; defl: number }[] = [];
-  for (let i = 0; i < k; i++) all.push({ v: lam[i], col: i, defl: -1 });
-  for (const j of deflated) all.push({ v: dAll[j], col: -1, defl: j });
-  all.sort((a, b) => a.v - b.v);
-  const dest = new Int32Array(k);
-  all.forEach((x, t) => { if (x.col >= 0) dest[x.col] = t; });
-  // top rows: columns TOP then MIXED (rows 0 … nTop+nMixed−1 of U)
-  const halves: [number, number, number, number][] = [[0, n1, 0, nTop + nMixed], [n1, n2, nTop, nMixed + nBottom]];
+  // the final order: all eigenvalues ascending (secular roots, then deflated d merged in)
+  const defl = Int32Array.from(deflated).sort((a, b) => dAll[a] - dAll[b]);
+  const vals = new Float64Array(s), dest = new Int32Array(k), out = new Float64Array(s * s);
+  for (let a = 0, b = 0, t = 0; t < s; t++) {
+    if (b >= defl.length || (a < k && lam[a] <= dAll[defl[b]])) { vals[t] = lam[a]; dest[a++] = t; }
+    else { vals[t] = dAll[defl[b]]; copyColumn(defl[b++], 0, s, out, t * s); }
+  }
+  // new vectors, half by half: (rows of the half)ᵀ = Uᵀ[:, cols] · (Q[rows, cols])ᵀ
+  const halves: [number, number, number, number][] = [[0, n1, 0, k - nBottom], [n1, n2, nTop, k - nTop]];
+  const qt = new Float64Array(Math.max(n1, n2) * k), res = new Float64Array(Math.max(n1, n2) * k);
   for (const [r0, rows, c0, cols] of halves) {
     if (cols === 0) continue;
-    for (let c = 0; c < cols; c++) copyColumn(keep[byKind[c0 + c]], r0, rows, qk, cols, c);
-    realProduct(rows, k, cols, qk, cols, u.subarray(c0 * k), k, res, k);
-    for (let i = 0; i < rows; i++) {
-      const orow = (r0 + i) * s, rrow = i * k;
-      for (let c = 0; c < k; c++) out[orow + dest[c]] = res[rrow + c];
-    }
+    for (let c = 0; c < cols; c++) copyColumn(keep[byKind[c0 + c]], r0, rows, qt, c * rows);
+    realProduct(k, rows, cols, ut.subarray(c0), k, qt, rows, res, rows);
+    for (let i = 0; i < k; i++) out.set(res.subarray(i * rows, (i + 1) * rows), dest[i] * s + r0);
   }
-  const vals = new Float64Array(s);
-  all.forEach((x, t) => {
-    vals[t] = x.v;
-    if (x.defl >= 0) copyColumn(x.defl, 0, s, out, s, t);
-  });
   return { lam: vals, q: out };
+}
+
+/** Scratch of {@link secularSums}: ψ, ψ′, φ, φ′. */
+const sums = new Float64Array(4);
+
+/**
+ * The two parts of the secular function at τ (coordinates of `delta`, the
+ * poles relative to the origin; w2 = ρz²): ψ = Σ_{j≤i} w2ⱼ/(δⱼ − τ) and
+ * φ = Σ_{j>i}, with their derivatives, into out = [ψ, ψ′, φ, φ′].
+ */
+function secularSums(i: number, delta: Float64Array, w2: Float64Array, tau: number, out: Float64Array): void {
+  const k = delta.length;
+  let psi = 0, dpsi = 0, phi = 0, dphi = 0;
+  for (let j = 0; j <= i; j++) { const t = 1 / (delta[j] - tau), w = w2[j] * t; psi += w; dpsi += w * t; }
+  for (let j = i + 1; j < k; j++) { const t = 1 / (delta[j] - tau), w = w2[j] * t; phi += w; dphi += w * t; }
+  out[0] = psi; out[1] = dpsi; out[2] = phi; out[3] = dphi;
 }
 
 /**
@@ -218,30 +234,29 @@ function merge(left: Eig, right: Eig, n1: number, n2: number, rho0: number, sg: 
  * (a "middle way" rational model, R.-C. Li, LAPACK Working Note 89, 1994, from
  * memory), safeguarded by bisection on a bracket that shrinks at every step.
  */
-function secularRoot(i: number, d: Float64Array, z: Float64Array, rho: number, lam: Float64Array, delta: Float64Array): void {
+function secularRoot(i: number, d: Float64Array, w2: Float64Array, zz: number, lam: Float64Array, delta: Float64Array): void {
   const k = d.length;
   const last = i === k - 1;
-  let zz = 0;
-  for (let j = 0; j < k; j++) zz += z[j] * z[j];
-  // origin: the nearer pole; τ = λ − d[org]
-  let org = i, lo: number, hi: number;
+  // origin: the nearer pole, decided by the sign at the midpoint of the gap; τ = λ − d[org]
+  let org = i, lo: number, hi: number, tau: number, have = false;
+  for (let j = 0; j < k; j++) delta[j] = d[j] - d[i];
   if (last) {
-    lo = 0; hi = rho * zz;
+    lo = 0; hi = zz; tau = 0.5 * zz;
   } else {
-    const gap = d[i + 1] - d[i], mid = 0.5 * gap;
-    let f = 1;
-    for (let j = 0; j < k; j++) f += (rho * z[j] * z[j]) / (d[j] - d[i] - mid);
-    if (f >= 0) { lo = 0; hi = mid; }
-    else { org = i + 1; lo = -mid; hi = 0; }
+    const mid = 0.5 * (d[i + 1] - d[i]);
+    secularSums(i, delta, w2, mid, sums);
+    have = true;
+    if (1 + sums[0] + sums[2] >= 0) { lo = 0; hi = mid; tau = mid; }
+    else {
+      org = i + 1; lo = -mid; hi = 0; tau = -mid;
+      for (let j = 0; j < k; j++) delta[j] = d[j] - d[org];
+    }
   }
   const base = d[org];
-  for (let j = 0; j < k; j++) delta[j] = d[j] - base;
-  let tau = 0.5 * (lo + hi);
   for (let iter = 0; iter < 200; iter++) {
-    // f, split at the bracketing poles: ψ over j ≤ i, φ over j > i
-    let psi = 0, dpsi = 0, phi = 0, dphi = 0;
-    for (let j = 0; j <= i; j++) { const t = 1 / (delta[j] - tau), w = rho * z[j] * z[j] * t; psi += w; dpsi += w * t; }
-    for (let j = i + 1; j < k; j++) { const t = 1 / (delta[j] - tau), w = rho * z[j] * z[j] * t; phi += w; dphi += w * t; }
+    if (!have) secularSums(i, delta, w2, tau, sums);
+    have = false;
+    const psi = sums[0], dpsi = sums[1], phi = sums[2], dphi = sums[3];
     const f = 1 + psi + phi;
     if (f < 0) lo = tau; else hi = tau;
     const errBound = 4 * EPS * (1 + Math.abs(psi) + Math.abs(phi));

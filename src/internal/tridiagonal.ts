@@ -382,7 +382,8 @@ const WY_BLOCK = 16;
  * Back-transformation X = Q D Z of the real tridiagonal eigenvectors into
  * eigenvectors of the original Hermitian matrix: column j of X is built from
  * column `order[j]` of `z` (n×n, row-major, columns = eigenvectors), so the
- * columns come out sorted. Written to `out` (interleaved complex, n×n
+ * columns come out sorted; with `zTransposed`, `z` holds Zᵀ instead (eigenvector
+ * j contiguous at j·n). Written to `out` (interleaved complex, n×n
  * row-major, columns = eigenvectors).
  * Reflectors are applied in blocks in the compact WY form
  * H_{k0} ⋯ H_{k1−1} = I − V T Vᴴ, T upper triangular (Schreiber & Van Loan,
@@ -392,15 +393,15 @@ const WY_BLOCK = 16;
  * kernel's memory in its packed panel layout for the whole run
  * ({@link backTransformSimd}); otherwise the products go through `gemmKernel`.
  */
-export function backTransform(red: TridiagonalReduction, z: Float64Array, order: ArrayLike<number>, out: Float64Array): void {
-  if (red.n > 8 && backTransformSimd(red, z, order, out)) return;
+export function backTransform(red: TridiagonalReduction, z: Float64Array, order: ArrayLike<number>, out: Float64Array, zTransposed = false): void {
+  if (red.n > 8 && backTransformSimd(red, z, order, out, zTransposed)) return;
   const { n, house, beta, phase } = red;
   const cols = n;
   for (let i = 0; i < n; i++) {
     const pr = phase[2 * i], pi = phase[2 * i + 1];
-    const zr = i * n, xr = 2 * i * cols;
+    const xr = 2 * i * cols;
     for (let j = 0; j < cols; j++) {
-      const v = z[zr + order[j]];
+      const v = zTransposed ? z[order[j] * n + i] : z[i * n + order[j]];
       out[xr + 2 * j] = pr * v;
       out[xr + 2 * j + 1] = pi * v;
     }
@@ -475,7 +476,7 @@ const PANELS_PER_CALL = 8;
  * in place and X −= V (T W) updates it in place: nothing is packed or copied
  * per block but the reflectors themselves. Returns false on the scalar path.
  */
-function backTransformSimd(red: TridiagonalReduction, z: Float64Array, order: ArrayLike<number>, out: Float64Array): boolean {
+function backTransformSimd(red: TridiagonalReduction, z: Float64Array, order: ArrayLike<number>, out: Float64Array, zTransposed: boolean): boolean {
   const mod = loadZtile();
   if (mod === null) return false;
   const { n, house, beta, phase } = red;
@@ -494,11 +495,11 @@ function backTransformSimd(red: TridiagonalReduction, z: Float64Array, order: Ar
   const x0 = pX >> 3, xPanel = 8 * n; // doubles per panel of X
   // X = D Z[:, order]
   f.fill(0, x0, x0 + n * n4 * 2);
-  for (let i = 0; i < n; i++) {
-    const pr = phase[2 * i], pi = phase[2 * i + 1], zr = i * n;
-    for (let j = 0; j < n; j++) {
-      const v = z[zr + order[j]], d = x0 + (j >> 2) * xPanel + 8 * i + (j & 3);
-      f[d] = pr * v; f[d + 4] = pi * v;
+  for (let j = 0; j < n; j++) {
+    const c = order[j], base = x0 + (j >> 2) * xPanel + (j & 3);
+    for (let i = 0; i < n; i++) {
+      const v = zTransposed ? z[c * n + i] : z[i * n + c], d = base + 8 * i;
+      f[d] = phase[2 * i] * v; f[d + 4] = phase[2 * i + 1] * v;
     }
   }
   const nRefl = n - 2;

@@ -86,8 +86,9 @@ export function hermitianEigenKernel(a: CMatrix, valuesOnly: boolean): Hermitian
     z = new Float64Array(n * n);
     for (let i = 0; i < n; i++) z[i * n + i] = 1;
   }
-  // Divide and conquer from order DC_MIN_ORDER on (its eigenvalues come sorted), else QL.
-  if (z !== null && n >= DC_MIN_ORDER) tridiagonalDivideConquer(d, red.e, n, z);
+  // Divide and conquer from order DC_MIN_ORDER on (it returns Zᵀ, values sorted), else QL.
+  let dc = false;
+  if (z !== null && n >= DC_MIN_ORDER) { tridiagonalDivideConquer(d, red.e, n, z); dc = true; }
   else tridiagonalQl(d, red.e.slice(), n, z);
   const order = Array.from({ length: n }, (_, i) => i).sort((x, y) => d[x] - d[y]);
   const values = new Float64Array(n);
@@ -95,7 +96,7 @@ export function hermitianEigenKernel(a: CMatrix, valuesOnly: boolean): Hermitian
   if (z === null) return { values, vectors: null };
   // Back-transform the columns of Z in ascending order of their eigenvalues.
   const v = new Float64Array(2 * n * n);
-  backTransform(red, z, order, v);
+  backTransform(red, z, order, v, dc);
   return { values, vectors: { rows: n, cols: n, data: v } };
 }
 
