@@ -86,6 +86,80 @@ describe('hermitianEigen', () => {
     expect(orthonormalityError(vectors!)).toBeLessThanOrEqual(1e-12);
   });
 
+  /** Q = H₁ ⋯ H₆, H_t = I − 2 w wᴴ/(wᴴw), w_j = cos(0.7 j t + 0.3) + i sin(1.3 j + 0.5 t): the unitary of generate_linalg.py. */
+  function formulaUnitary(n: number): CMatrix {
+    const q = zeros(n, n), d = q.data;
+    for (let i = 0; i < n; i++) d[2 * (i * n + i)] = 1;
+    const wr = new Float64Array(n), wi = new Float64Array(n);
+    for (let t = 1; t <= 6; t++) {
+      let ww = 0;
+      for (let j = 0; j < n; j++) { wr[j] = Math.cos(0.7 * j * t + 0.3); wi[j] = Math.sin(1.3 * j + 0.5 * t); ww += wr[j] ** 2 + wi[j] ** 2; }
+      for (let i = 0; i < n; i++) {
+        // row i of Q ← row − (2/wᴴw) (row · w) wᴴ
+        let sr = 0, si = 0;
+        for (let j = 0; j < n; j++) { const p = 2 * (i * n + j); sr += d[p] * wr[j] - d[p + 1] * wi[j]; si += d[p] * wi[j] + d[p + 1] * wr[j]; }
+        sr *= 2 / ww; si *= 2 / ww;
+        for (let j = 0; j < n; j++) { const p = 2 * (i * n + j); d[p] -= sr * wr[j] + si * wi[j]; d[p + 1] -= si * wr[j] - sr * wi[j]; }
+      }
+    }
+    return q;
+  }
+
+  for (const fx of fixtures.cases.hermitianEigenStructured) {
+    it(`divide and conquer (n ≥ 48): Q diag(λ) Qᴴ with ${String(fx.name)} — exact spectrum, numpy eigh, exact invariant subspaces`, () => {
+      const lam = fx.spectrum as number[], ref = fx.values as number[], n = lam.length;
+      const q = formulaUnitary(n);
+      const ql = zeros(n, n);
+      for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {
+        const p = 2 * (i * n + j);
+        ql.data[p] = q.data[p] * lam[j]; ql.data[p + 1] = q.data[p + 1] * lam[j];
+      }
+      const a = hermitianPart(multiply(ql, adjoint(q)));
+      const a01 = fx.a01 as number[];
+      expect(Math.hypot(a.data[2] - a01[0], a.data[3] - a01[1])).toBeLessThan(1e-13); // the same A as the generator
+      const scale = maxAbs(lam);
+      const { values, vectors } = hermitianEigen(a);
+      const exact = [...lam].sort((x, y) => x - y);
+      for (let i = 0; i < n; i++) {
+        expect(Math.abs(values[i] - exact[i])).toBeLessThanOrEqual(10 * n * EPS * scale);
+        expect(Math.abs(values[i] - ref[i])).toBeLessThanOrEqual(10 * n * EPS * scale);
+      }
+      expect(eigenResidual(a, vectors!, values)).toBeLessThanOrEqual(100 * EPS * frobeniusNorm(a));
+      expect(orthonormalityError(vectors!)).toBeLessThanOrEqual(1e-12);
+      // Each cluster C (exact eigenvalues closer than 1e-6·scale) spans the exact invariant subspace:
+      // ‖(I − Q_C Q_Cᴴ) V_C‖_F ≤ O(n ε ‖A‖ / gap) (Davis–Kahan), gap = distance to the rest of the spectrum.
+      const cols = Array.from({ length: n }, (_, j) => j).sort((x, y) => lam[x] - lam[y]);
+      const r = new Float64Array(2 * n);
+      for (let c0 = 0; c0 < n;) {
+        let c1 = c0 + 1;
+        while (c1 < n && exact[c1] - exact[c1 - 1] <= 1e-6 * scale) c1++;
+        const gap = Math.min(c0 > 0 ? exact[c0] - exact[c0 - 1] : Infinity, c1 < n ? exact[c1] - exact[c1 - 1] : Infinity);
+        let res2 = 0;
+        for (let y = c0; y < c1; y++) {
+          for (let i = 0; i < n; i++) { r[2 * i] = vectors!.data[2 * (i * n + y)]; r[2 * i + 1] = vectors!.data[2 * (i * n + y) + 1]; }
+          for (let x = c0; x < c1; x++) {
+            let sr = 0, si = 0; // q_xᴴ v_y
+            for (let i = 0; i < n; i++) {
+              const p = 2 * (i * n + cols[x]), qr = q.data[p], qi = q.data[p + 1];
+              const vr = vectors!.data[2 * (i * n + y)], vi = vectors!.data[2 * (i * n + y) + 1];
+              sr += qr * vr + qi * vi; si += qr * vi - qi * vr;
+            }
+            for (let i = 0; i < n; i++) {
+              const p = 2 * (i * n + cols[x]), qr = q.data[p], qi = q.data[p + 1];
+              r[2 * i] -= qr * sr - qi * si; r[2 * i + 1] -= qr * si + qi * sr;
+            }
+          }
+          for (let i = 0; i < 2 * n; i++) res2 += r[i] * r[i];
+        }
+        expect(Math.sqrt(res2)).toBeLessThanOrEqual(Math.max(1e-13, (10 * n * EPS * scale) / gap));
+        c0 = c1;
+      }
+      // values-only (QL) agrees to rounding
+      const vo = hermitianEigen(a, { valuesOnly: true }).values;
+      for (let i = 0; i < n; i++) expect(Math.abs(vo[i] - values[i])).toBeLessThanOrEqual(10 * n * EPS * scale);
+    });
+  }
+
   it('valuesOnly returns the same eigenvalues and no vectors', () => {
     const a = hermitianPart(randomMatrix(30, 30, 5));
     const full = hermitianEigen(a);
