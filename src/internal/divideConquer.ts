@@ -226,13 +226,16 @@ function secularSums(i: number, delta: Float64Array, w2: Float64Array, tau: numb
 }
 
 /**
- * Root i of 1 + ρ Σⱼ zⱼ²/(dⱼ − λ) = 0 (d ascending, ρ > 0, z nonzero): λᵢ in
- * (dᵢ, dᵢ₊₁), or (d_{k−1}, d_{k−1} + ρ‖z‖²] for the last. Writes λᵢ to lam[i]
- * and dⱼ − λᵢ to delta[j], computed from the nearer pole so they are accurate.
- * Iteration: the two poles bracketing the root kept exactly and the rest of
- * each side's sum modelled by a constant matched in value and slope
- * (a "middle way" rational model, R.-C. Li, LAPACK Working Note 89, 1994, from
- * memory), safeguarded by bisection on a bracket that shrinks at every step.
+ * Root i of 1 + Σⱼ w2ⱼ/(dⱼ − λ) = 0 with w2 = ρz² (d ascending, ρ > 0, z
+ * nonzero; zz = Σ w2): λᵢ in (dᵢ, dᵢ₊₁), or (d_{k−1}, d_{k−1} + zz] for the
+ * last. Writes λᵢ to lam[i] and dⱼ − λᵢ to delta[j], computed from the nearer
+ * pole so they are accurate. Iteration: the sum over the poles up to dᵢ and the
+ * sum over those beyond are each modelled by one pole at dᵢ resp. dᵢ₊₁ plus a
+ * constant, matched in value and slope at the current point, and the model's
+ * root in the gap is taken (rational interpolation as in Bunch, Nielsen &
+ * Sorensen, "Rank-one modification of the symmetric eigenproblem", Numer.
+ * Math. 31, 1978, from memory), safeguarded by bisection on a bracket that
+ * shrinks at every step.
  */
 function secularRoot(i: number, d: Float64Array, w2: Float64Array, zz: number, lam: Float64Array, delta: Float64Array): void {
   const k = d.length;
