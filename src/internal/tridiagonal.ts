@@ -511,12 +511,12 @@ function backTransformSimd(red: TridiagonalReduction, z: Float64Array, order: Ar
     // V (mm×nb): column c = u_{k0+c} from row c on; as Vᴴ and −V (interleaved) and as panels
     const vh = pVh >> 3, vn = pVn >> 3, vp = pVp >> 3;
     f.fill(0, vp, vp + mm * nb4 * 2);
-    for (let c = 0; c < nb; c++) {
-      const k = k0 + c, live = beta[k] !== 0;
-      for (let r = 0; r < mm; r++) {
+    for (let r = 0; r < mm; r++) {
+      const a0 = 2 * ((r0 + r) * n + k0), g0 = vn + 2 * r * nb, e0 = vp + 8 * r;
+      for (let c = 0; c < nb; c++) {
         let vr = 0, vi = 0;
-        if (live && r >= c) { const a = 2 * ((r0 + r) * n + k); vr = house[a]; vi = house[a + 1]; }
-        const h = vh + 2 * (c * mm + r), g = vn + 2 * (r * nb + c), e = vp + (c >> 2) * mm * 8 + 8 * r + (c & 3);
+        if (r >= c && beta[k0 + c] !== 0) { vr = house[a0 + 2 * c]; vi = house[a0 + 2 * c + 1]; }
+        const h = vh + 2 * (c * mm + r), g = g0 + 2 * c, e = e0 + (c >> 2) * mm * 8 + (c & 3);
         f[h] = vr; f[h + 1] = -vi;
         f[g] = -vr; f[g + 1] = -vi;
         f[e] = vr; f[e + 4] = vi;
@@ -540,11 +540,11 @@ function backTransformSimd(red: TridiagonalReduction, z: Float64Array, order: Ar
       mod.ztile(mm, 4 * cnt, nb, pVn, nb * 16, pW2q, nb * 64, pXq, pXq + 32, 64, n * 64);
     }
   }
-  for (let i = 0; i < n; i++) {
-    const row = 2 * i * n;
-    for (let j = 0; j < n; j++) {
-      const s = x0 + (j >> 2) * xPanel + 8 * i + (j & 3);
-      out[row + 2 * j] = f[s]; out[row + 2 * j + 1] = f[s + 4];
+  for (let q = 0; q < panels; q++) {
+    const j0 = 4 * q, w4 = Math.min(4, n - j0);
+    for (let i = 0; i < n; i++) {
+      const s = x0 + q * xPanel + 8 * i, d = 2 * (i * n + j0);
+      for (let l = 0; l < w4; l++) { out[d + 2 * l] = f[s + l]; out[d + 2 * l + 1] = f[s + l + 4]; }
     }
   }
   return true;
