@@ -7,8 +7,7 @@
  * @module
  */
 import { tridiagonalQl } from './tridiagonal.js';
-import { ensureMemory } from './wasm/runtime.js';
-import { loadZtile, ztileBlocked } from './ztileWasm.js';
+import { ensureMemory, kernelModule } from './wasm/runtime.js';
 
 /** Subproblems of at most this order are solved by implicit QL (the rotations are cheap there). */
 const LEAF = 32;
@@ -294,13 +293,24 @@ function secularRoot(i: number, d: Float64Array, w2: Float64Array, zz: number, l
   for (let j = 0; j < k; j++) delta[j] -= tau;
 }
 
+/** Exports of wasm/dtile.wat (byte addresses into its memory); arguments as documented there. */
+interface RealTileFunctions {
+  dtile: (m: number, n: number, k: number, pa: number, lda: number, pb: number, ldbq: number, pc: number, ldc: number) => void;
+}
+
+const loadRealTile = kernelModule<RealTileFunctions>('dtile');
+
+/** Columns of C per call of the real kernel: the packed B block (k × 64 doubles, ≤ 256 KiB for k ≤ 512) stays in L2 while A streams past. */
+const REAL_BLOCK_COLUMNS = 64;
+
 /**
  * C (m×n, row-major, leading dimension ldc) = A (m×k, lda) · B (k×n, ldb), all
- * real. With WebAssembly SIMD on the complex product kernel: the inner
- * dimension is split in halves paired as Re((A₁ + jA₂)(B₁ − jB₂)) = A₁B₁ + A₂B₂.
+ * real: on the SIMD real product kernel (wasm/dtile.wat, B packed in
+ * four-column panels, one thread) when the product is large enough, else by a
+ * scalar loop.
  */
-function realProduct(m: number, n: number, k: number, a: Float64Array, lda: number, b: Float64Array, ldb: number, c: Float64Array, ldc: number): void {
-  const mod = m >= 4 && n >= 4 && m * n * k >= 8192 ? loadZtile() : null;
+export function realProduct(m: number, n: number, k: number, a: Float64Array, lda: number, b: Float64Array, ldb: number, c: Float64Array, ldc: number): void {
+  const mod = m >= 4 && n >= 4 && m * n * k >= 8192 ? loadRealTile() : null;
   if (mod === null) {
     for (let i = 0; i < m; i++) {
       const ci = i * ldc;
@@ -313,32 +323,23 @@ function realProduct(m: number, n: number, k: number, a: Float64Array, lda: numb
     }
     return;
   }
-  const k2 = (k + 1) >> 1, n4 = (n + 3) & ~3;
-  const aBytes = m * k2 * 16, bBytes = n4 * k2 * 16, cBytes = m * n4 * 8;
-  const f = ensureMemory(mod.memory, aBytes + bBytes + 2 * cBytes);
-  const pa = 0, pb = aBytes, pcr = pb + bBytes, pci = pcr + cBytes;
-  for (let i = 0; i < m; i++) {
-    const src = i * lda, dst = 2 * i * k2;
-    for (let p = 0; p < k2; p++) {
-      f[dst + 2 * p] = a[src + p];
-      f[dst + 2 * p + 1] = p + k2 < k ? a[src + p + k2] : 0;
-    }
-  }
+  const n4 = (n + 3) & ~3;
+  // layout (bytes): A (m·k·8) | B panels (n4/4 panels of k·32) | C (m·n4·8)
+  const aBytes = m * k * 8, bBytes = n4 * k * 8;
+  const f = ensureMemory(mod.memory, aBytes + bBytes + m * n4 * 8);
+  const pa = 0, pb = aBytes, pc = pb + bBytes;
+  for (let i = 0; i < m; i++) f.set(a.subarray(i * lda, i * lda + k), i * k);
   const b0 = pb >> 3;
-  f.fill(0, b0, b0 + n4 * k2 * 2);
-  for (let p = 0; p < k2; p++) {
-    const s1 = p * ldb, s2 = (p + k2) * ldb, has2 = p + k2 < k;
-    for (let j = 0; j < n; j++) {
-      const dd = b0 + (j >> 2) * k2 * 8 + 8 * p + (j & 3);
-      f[dd] = b[s1 + j];
-      f[dd + 4] = has2 ? -b[s2 + j] : 0;
-    }
+  for (let p = 0; p < k; p++) {
+    const s = p * ldb;
+    for (let j = 0; j < n; j++) f[b0 + (j >> 2) * k * 4 + 4 * p + (j & 3)] = b[s + j];
+    for (let j = n; j < n4; j++) f[b0 + (j >> 2) * k * 4 + 4 * p + (j & 3)] = 0;
   }
-  const cr = pcr >> 3;
-  f.fill(0, cr, cr + 2 * m * n4);
-  ztileBlocked(mod, m, n4, k2, pa, k2 * 16, pb, k2 * 64, pcr, pci, n4 * 8);
-  for (let i = 0; i < m; i++) {
-    const src = cr + i * n4, dst = i * ldc;
-    for (let j = 0; j < n; j++) c[dst + j] = f[src + j];
+  const c0 = pc >> 3;
+  f.fill(0, c0, c0 + m * n4);
+  for (let j0 = 0; j0 < n4; j0 += REAL_BLOCK_COLUMNS) {
+    const w = Math.min(REAL_BLOCK_COLUMNS, n4 - j0);
+    mod.dtile(m, w, k, pa, k * 8, pb + (j0 >> 2) * k * 32, k * 32, pc + j0 * 8, n4 * 8);
   }
+  for (let i = 0; i < m; i++) c.set(f.subarray(c0 + i * n4, c0 + i * n4 + n), i * ldc);
 }

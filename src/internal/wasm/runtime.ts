@@ -15,7 +15,7 @@
  * @internal
  * @module
  */
-import { gridsumWasm, jacobiWasm, luWasm, rotateWasm, tridiagWasm, ztileLocalWasm } from './modules.js';
+import { dtileWasm, gridsumWasm, jacobiWasm, luWasm, rotateWasm, tridiagWasm, ztileLocalWasm } from './modules.js';
 
 /**
  * Switch for tests and benchmarks: with `enabled` false every kernel reports
@@ -28,7 +28,7 @@ export const wasmSettings = { enabled: true };
  * single-thread variant (its memory import not shared); `threads.ts` loads it and, where
  * threads can run, its shared-memory variant.
  */
-const SOURCES = { ztile: ztileLocalWasm, tridiag: tridiagWasm, rotate: rotateWasm, jacobi: jacobiWasm, gridsum: gridsumWasm, lu: luWasm } as const;
+const SOURCES = { ztile: ztileLocalWasm, dtile: dtileWasm, tridiag: tridiagWasm, rotate: rotateWasm, jacobi: jacobiWasm, gridsum: gridsumWasm, lu: luWasm } as const;
 /** Name of a kernel module. */
 export type KernelName = keyof typeof SOURCES;
 
