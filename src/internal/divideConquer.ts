@@ -164,16 +164,16 @@ function merge(left: Eig, right: Eig, n1: number, n2: number, rho0: number, sg: 
   const dk = new Float64Array(k), zk = new Float64Array(k), w2 = new Float64Array(k);
   let zz = 0;
   for (let i = 0; i < k; i++) { dk[i] = dAll[keep[i]]; zk[i] = zAll[keep[i]]; w2[i] = rho * zk[i] * zk[i]; zz += w2[i]; }
-  const lam = new Float64Array(k);
-  const delta = new Float64Array(k * k); // delta[i·k + j] = dk[j] − lam[i]
-  for (let i = 0; i < k; i++) secularRoot(i, dk, w2, zz, lam, delta.subarray(i * k, (i + 1) * k));
-  // Löwner: ρ ẑⱼ² = −Πᵢ (dⱼ − λᵢ) / Π_{i≠j} (dⱼ − dᵢ), sign of zⱼ
-  const zh = new Float64Array(k);
-  for (let j = 0; j < k; j++) zh[j] = delta[j * k + j];
+  // roots one by one, each with the differences row[j] = dk[j] − λᵢ, which are folded at once into
+  // the Löwner formula ρ ẑⱼ² = −Πᵢ (dⱼ − λᵢ) / Π_{i≠j} (dⱼ − dᵢ) (sign of zⱼ), so no k×k array is kept
+  const lam = new Float64Array(k), org = new Int32Array(k), shift = new Float64Array(k), row = new Float64Array(k);
+  const zh = new Float64Array(k).fill(1);
   for (let i = 0; i < k; i++) {
-    const row = i * k, di = dk[i];
-    for (let j = 0; j < i; j++) zh[j] *= delta[row + j] / (dk[j] - di);
-    for (let j = i + 1; j < k; j++) zh[j] *= delta[row + j] / (dk[j] - di);
+    secularRoot(i, dk, w2, zz, lam, row, org, shift);
+    const di = dk[i];
+    for (let j = 0; j < i; j++) zh[j] *= row[j] / (dk[j] - di);
+    zh[i] *= row[i];
+    for (let j = i + 1; j < k; j++) zh[j] *= row[j] / (dk[j] - di);
   }
   for (let j = 0; j < k; j++) zh[j] = (zk[j] < 0 ? -1 : 1) * Math.sqrt(Math.max(0, -zh[j]));
   // the kept columns grouped by kind: TOP, MIXED, BOTTOM
@@ -183,11 +183,12 @@ function merge(left: Eig, right: Eig, n1: number, n2: number, rho0: number, sg: 
   // Uᵀ (k×k): row i = eigenvector i of D + ρ z zᵀ, ∝ (ẑⱼ / (dⱼ − λᵢ))ⱼ, unit norm, entries in byKind order
   const ut = new Float64Array(k * k), tmp = new Float64Array(k);
   for (let i = 0; i < k; i++) {
-    const row = i * k;
+    // dk[j] − λᵢ again, by the same operations as in secularRoot
+    const base = dk[org[i]], t = shift[i];
     let nrm = 0;
-    for (let j = 0; j < k; j++) { const v = zh[j] / delta[row + j]; tmp[j] = v; nrm += v * v; }
-    const sc = 1 / Math.sqrt(nrm);
-    for (let r = 0; r < k; r++) ut[row + r] = sc * tmp[byKind[r]];
+    for (let j = 0; j < k; j++) { const v = zh[j] / ((dk[j] - base) - t); tmp[j] = v; nrm += v * v; }
+    const sc = 1 / Math.sqrt(nrm), u0 = i * k;
+    for (let r = 0; r < k; r++) ut[u0 + r] = sc * tmp[byKind[r]];
   }
   // the final order: all eigenvalues ascending (secular roots, then deflated d merged in)
   const defl = Int32Array.from(deflated).sort((a, b) => dAll[a] - dAll[b]);
@@ -228,7 +229,8 @@ function secularSums(i: number, delta: Float64Array, w2: Float64Array, tau: numb
  * Root i of 1 + Σⱼ w2ⱼ/(dⱼ − λ) = 0 with w2 = ρz² (d ascending, ρ > 0, z
  * nonzero; zz = Σ w2): λᵢ in (dᵢ, dᵢ₊₁), or (d_{k−1}, d_{k−1} + zz] for the
  * last. Writes λᵢ to lam[i] and dⱼ − λᵢ to delta[j], computed from the nearer
- * pole so they are accurate. Iteration: the sum over the poles up to dᵢ and the
+ * pole d[org[i]] as (dⱼ − d[org[i]]) − shift[i] so they are accurate (and can
+ * be recomputed bit for bit). Iteration: the sum over the poles up to dᵢ and the
  * sum over those beyond are each modelled by one pole at dᵢ resp. dᵢ₊₁ plus a
  * constant, matched in value and slope at the current point, and the model's
  * root in the gap is taken (rational interpolation as in Bunch, Nielsen &
@@ -236,11 +238,11 @@ function secularSums(i: number, delta: Float64Array, w2: Float64Array, tau: numb
  * Math. 31, 1978, from memory), safeguarded by bisection on a bracket that
  * shrinks at every step.
  */
-function secularRoot(i: number, d: Float64Array, w2: Float64Array, zz: number, lam: Float64Array, delta: Float64Array): void {
+function secularRoot(i: number, d: Float64Array, w2: Float64Array, zz: number, lam: Float64Array, delta: Float64Array, org: Int32Array, shift: Float64Array): void {
   const k = d.length;
   const last = i === k - 1;
   // origin: the nearer pole, decided by the sign at the midpoint of the gap; τ = λ − d[org]
-  let org = i, lo: number, hi: number, tau: number, have = false;
+  let origin = i, lo: number, hi: number, tau: number, have = false;
   for (let j = 0; j < k; j++) delta[j] = d[j] - d[i];
   if (last) {
     lo = 0; hi = zz; tau = 0.5 * zz;
@@ -250,11 +252,11 @@ function secularRoot(i: number, d: Float64Array, w2: Float64Array, zz: number, l
     have = true;
     if (1 + sums[0] + sums[2] >= 0) { lo = 0; hi = mid; tau = mid; }
     else {
-      org = i + 1; lo = -mid; hi = 0; tau = -mid;
-      for (let j = 0; j < k; j++) delta[j] = d[j] - d[org];
+      origin = i + 1; lo = -mid; hi = 0; tau = -mid;
+      for (let j = 0; j < k; j++) delta[j] = d[j] - d[origin];
     }
   }
-  const base = d[org];
+  const base = d[origin];
   for (let iter = 0; iter < 200; iter++) {
     if (!have) secularSums(i, delta, w2, tau, sums);
     have = false;
@@ -287,9 +289,18 @@ function secularRoot(i: number, d: Float64Array, w2: Float64Array, zz: number, l
       }
       next = tau + x;
     }
-    tau = next > lo && next < hi ? next : 0.5 * (lo + hi);
+    if (next > lo && next < hi) {
+      // a model step at the level of rounding: the root is found without another evaluation
+      const small = Math.abs(next - tau) <= 2 * EPS * Math.abs(next);
+      tau = next;
+      if (small) break;
+    } else {
+      tau = 0.5 * (lo + hi);
+    }
   }
   lam[i] = base + tau;
+  org[i] = origin;
+  shift[i] = tau;
   for (let j = 0; j < k; j++) delta[j] -= tau;
 }
 
