@@ -108,4 +108,25 @@ describe('tridiagonal divide and conquer', () => {
       }
     }
   });
+
+  it('without WebAssembly SIMD (scalar products) gives the SIMD results to rounding', () => {
+    const r = stream(11), n = 150;
+    const d0 = Float64Array.from({ length: n }, r), e0 = Float64Array.from({ length: n }, (_, i) => (i < n - 1 ? r() : 0));
+    const run = (): { d: Float64Array; zt: Float64Array } => {
+      const d = d0.slice(), zt = new Float64Array(n * n);
+      tridiagonalDivideConquer(d, e0, n, zt);
+      return { d, zt };
+    };
+    const simd = run();
+    wasmSettings.enabled = false;
+    let scalar: { d: Float64Array; zt: Float64Array };
+    try { scalar = run(); } finally { wasmSettings.enabled = true; }
+    for (let i = 0; i < n; i++) expect(Math.abs(scalar.d[i] - simd.d[i])).toBeLessThanOrEqual(1e-13);
+    // eigenvectors up to sign (the eigenvalues are well separated here)
+    for (let j = 0; j < n; j++) {
+      let dot = 0;
+      for (let i = 0; i < n; i++) dot += scalar.zt[j * n + i] * simd.zt[j * n + i];
+      expect(Math.abs(Math.abs(dot) - 1)).toBeLessThanOrEqual(1e-10);
+    }
+  });
 });

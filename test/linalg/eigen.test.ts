@@ -106,7 +106,7 @@ describe('hermitianEigen', () => {
   }
 
   for (const fx of fixtures.cases.hermitianEigenStructured) {
-    it(`divide and conquer (n ≥ 48): Q diag(λ) Qᴴ with ${String(fx.name)} — exact spectrum, numpy eigh, exact invariant subspaces`, () => {
+    it(`divide and conquer (n ≥ 100): Q diag(λ) Qᴴ with ${String(fx.name)} — exact spectrum, numpy eigh, exact invariant subspaces`, () => {
       const lam = fx.spectrum as number[], ref = fx.values as number[], n = lam.length;
       const q = formulaUnitary(n);
       const ql = zeros(n, n);
