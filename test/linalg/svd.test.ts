@@ -4,6 +4,8 @@ import { readFileSync } from 'node:fs';
 import { type CMatrix, type CMatrixJSON, fromRows, matrixFromJSON, zeros } from '../../src/linalg/cmatrix.js';
 import { adjoint, frobeniusNorm, multiply, subtract } from '../../src/linalg/ops.js';
 import { svd, conditionNumber, pseudoInverse, matrixRank } from '../../src/linalg/svd.js';
+import { logDeterminant } from '../../src/linalg/lu.js';
+import { wasmSettings } from '../../src/internal/wasm/runtime.js';
 import { DimensionError, DomainError } from '../../src/errors.js';
 import { expectCMatrixClose, orthonormalityError, randomMatrix, subspaceMismatch } from '../helpers/matchers.js';
 
@@ -69,6 +71,31 @@ describe('svd', () => {
     const detB = bb.data[0] * bb.data[6] - (bb.data[2] * bb.data[2] + bb.data[3] * bb.data[3]);
     const { s } = svd(a);
     expect(Math.abs((s[0] * s[1]) / (1e-12 * Math.sqrt(detB)) - 1)).toBeLessThan(1e-13);
+  });
+
+  it('20 columns graded over twelve decades: every σ to high relative accuracy (∏σ = ∏dᵢ·√det(BᴴB)), SIMD and scalar', () => {
+    // The same identity as above with 20 columns: the sweeps' pivoting and their updated column
+    // norms (recomputed where an update cancels) must keep the relative accuracy of every σᵢ
+    // (Demmel & Veselić 1992: O(ε κ(B)) each), so Σ ln σᵢ = Σ ln dᵢ + ½ ln det(BᴴB) to about n·ε·κ(B).
+    const n = 20;
+    const b = randomMatrix(30, n, 91);
+    const d = zeros(n, n);
+    let logD = 0;
+    for (let j = 0; j < n; j++) { const dj = 10 ** (-12 * ((j * 7) % n) / (n - 1)); d.data[2 * (j * n + j)] = dj; logD += Math.log(dj); }
+    const a = multiply(b, d);
+    const expected = logD + 0.5 * logDeterminant(multiply(adjoint(b), b)).logAbs;
+    for (const simd of [true, false]) {
+      wasmSettings.enabled = simd;
+      try {
+        const { s, u, v } = svd(a);
+        let logS = 0;
+        for (const x of s) logS += Math.log(x);
+        expect(Math.abs(logS - expected)).toBeLessThan(1e-11);
+        expect(s[n - 1] / s[0]).toBeLessThan(1e-11);
+        expect(orthonormalityError(u)).toBeLessThan(1e-13);
+        expect(orthonormalityError(v)).toBeLessThan(1e-13);
+      } finally { wasmSettings.enabled = true; }
+    }
   });
 
   it('U Σ Vᴴ = A with orthonormal U, V on random shapes (property)', () => {
