@@ -26,7 +26,7 @@ const EPS = 2.220446049250313e-16;
  * v = (e_last; ±e_first); the halves are solved recursively (QL below
  * {@link LEAF}), which leaves D + ρ z zᵀ, z = diag(Q₁, Q₂)ᵀ v. Entries with
  * ρ|zᵢ| below 8ε·max(|D|, |z|) and pairs of nearly equal dᵢ (rotated so that
- * one z entry vanishes) are deflated (the tests of LAPACK's dlaed2); the rest
+ * one z entry vanishes, as Gu & Eisenstat describe) are deflated; the rest
  * are the roots of the secular equation 1 + ρ Σ zⱼ²/(dⱼ − λ) = 0, one in each
  * gap, found by a safeguarded rational iteration in coordinates shifted to
  * the nearer pole (so every dⱼ − λ is accurate); z is then recomputed from
