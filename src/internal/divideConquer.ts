@@ -16,8 +16,8 @@ const EPS = 2.220446049250313e-16;
 /**
  * Eigenvalues (returned in `d`, ascending) and eigenvectors of the real
  * symmetric tridiagonal matrix with diagonal `d` and off-diagonal `e` (e[i]
- * couples i and i+1): eigenvector j (for d[j]) is written CONTIGUOUSLY to
- * zt[j·n … j·n + n − 1] (zt is Zᵀ, row-major).
+ * couples i and i+1). Returns Zᵀ (n×n row-major): eigenvector j (for d[j]) is
+ * CONTIGUOUS at [j·n, j·n + n).
  *
  * Method (Cuppen, "A divide and conquer method for the symmetric tridiagonal
  * eigenproblem", Numer. Math. 36, 1981; Gu & Eisenstat, "A divide-and-conquer
@@ -26,7 +26,7 @@ const EPS = 2.220446049250313e-16;
  * v = (e_last; ±e_first); the halves are solved recursively (QL below
  * {@link LEAF}), which leaves D + ρ z zᵀ, z = diag(Q₁, Q₂)ᵀ v. Entries with
  * ρ|zᵢ| below 8ε·max(|D|, |z|) and pairs of nearly equal dᵢ (rotated so that
- * one z entry vanishes) are deflated (the tests of LAPACK's dlaed2); the rest
+ * one z entry vanishes, as Gu & Eisenstat describe) are deflated; the rest
  * are the roots of the secular equation 1 + ρ Σ zⱼ²/(dⱼ − λ) = 0, one in each
  * gap, found by a safeguarded rational iteration in coordinates shifted to
  * the nearer pole (so every dⱼ − λ is accurate); z is then recomputed from
@@ -36,10 +36,10 @@ const EPS = 2.220446049250313e-16;
  * columns that are nonzero there.
  * Backward stable: ‖T Z − Z Λ‖ and ‖ZᵀZ − I‖ are O(n ε ‖T‖).
  */
-export function tridiagonalDivideConquer(d: Float64Array, e: Float64Array, n: number, zt: Float64Array): void {
+export function tridiagonalDivideConquer(d: Float64Array, e: Float64Array, n: number): Float64Array {
   const r = solve(d.slice(0, n), e.slice(0, Math.max(0, n - 1)));
   d.set(r.lam, 0);
-  zt.set(r.q, 0);
+  return r.q;
 }
 
 interface Eig {

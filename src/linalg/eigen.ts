@@ -88,15 +88,18 @@ export function hermitianEigenKernel(a: CMatrix, valuesOnly: boolean): Hermitian
   }
   const red = reduceHermitianToTridiagonal(w, n);
   const d = red.d;
+  // Divide and conquer from order DC_MIN_ORDER on (it returns Zᵀ, values sorted), else QL on Z = I.
   let z: Float64Array | null = null;
-  if (!valuesOnly) {
-    z = new Float64Array(n * n);
-    for (let i = 0; i < n; i++) z[i * n + i] = 1;
+  const dc = !valuesOnly && n >= DC_MIN_ORDER;
+  if (dc) {
+    z = tridiagonalDivideConquer(d, red.e, n);
+  } else {
+    if (!valuesOnly) {
+      z = new Float64Array(n * n);
+      for (let i = 0; i < n; i++) z[i * n + i] = 1;
+    }
+    tridiagonalQl(d, red.e.slice(), n, z);
   }
-  // Divide and conquer from order DC_MIN_ORDER on (it returns Zᵀ, values sorted), else QL.
-  let dc = false;
-  if (z !== null && n >= DC_MIN_ORDER) { tridiagonalDivideConquer(d, red.e, n, z); dc = true; }
-  else tridiagonalQl(d, red.e.slice(), n, z);
   const order = Array.from({ length: n }, (_, i) => i).sort((x, y) => d[x] - d[y]);
   const values = new Float64Array(n);
   for (let j = 0; j < n; j++) values[j] = d[order[j]] * mag;

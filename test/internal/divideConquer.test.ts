@@ -65,8 +65,7 @@ describe('tridiagonal divide and conquer', () => {
     for (const n of [100, 257]) {
       const d = new Float64Array(n).fill(2), e = new Float64Array(n).fill(1);
       e[n - 1] = 0;
-      const zt = new Float64Array(n * n);
-      tridiagonalDivideConquer(d, e, n, zt);
+      const zt = tridiagonalDivideConquer(d, e, n);
       const h = Math.PI / (n + 1);
       for (let j = 0; j < n; j++) {
         const k = n - j; // ascending order: largest k first
@@ -92,8 +91,7 @@ describe('tridiagonal divide and conquer', () => {
     for (const [name, n, fd, fe] of cases) {
       const d0 = Float64Array.from({ length: n }, (_, i) => fd(i));
       const e0 = Float64Array.from({ length: n }, (_, i) => (i < n - 1 ? fe(i) : 0));
-      const d = d0.slice(), zt = new Float64Array(n * n);
-      tridiagonalDivideConquer(d, e0, n, zt);
+      const d = d0.slice(), zt = tridiagonalDivideConquer(d, e0, n);
       let tn = 0;
       for (let i = 0; i < n; i++) tn = Math.max(tn, Math.abs(d0[i]) + Math.abs(e0[i]) + (i > 0 ? Math.abs(e0[i - 1]) : 0));
       const { res, orth } = residuals(d0, e0, d, zt);
@@ -113,8 +111,7 @@ describe('tridiagonal divide and conquer', () => {
     const r = stream(11), n = 150;
     const d0 = Float64Array.from({ length: n }, r), e0 = Float64Array.from({ length: n }, (_, i) => (i < n - 1 ? r() : 0));
     const run = (): { d: Float64Array; zt: Float64Array } => {
-      const d = d0.slice(), zt = new Float64Array(n * n);
-      tridiagonalDivideConquer(d, e0, n, zt);
+      const d = d0.slice(), zt = tridiagonalDivideConquer(d, e0, n);
       return { d, zt };
     };
     const simd = run();
