@@ -240,7 +240,10 @@ function svdTall(a: CMatrix, conjugateTranspose: boolean): { u: Float64Array; s:
  * @remarks
  * One-sided Jacobi (Hestenes) rotations orthogonalise the columns of A (of Aᴴ
  * when m < n) until every pair satisfies |g_pᴴ g_q| ≤ √m·ε ‖g_p‖‖g_q‖; the
- * singular values are the column norms. This method computes even the small
+ * singular values are the column norms. Each row of a sweep starts by moving
+ * the remaining column of largest norm into place (de Rijk's pivoting), and
+ * the squared column norms are updated per rotation rather than summed again
+ * (Drmač & Veselić), so a pair costs one inner product. This method computes even the small
  * singular values to high relative accuracy when A is a well-scaled column
  * scaling of a well-conditioned matrix (Demmel & Veselić 1992). Singular
  * vectors of an exactly zero singular value are completed to an orthonormal
@@ -253,6 +256,10 @@ function svdTall(a: CMatrix, conjugateTranspose: boolean): { u: Float64Array; s:
  *   J. SIAM 6(1), 1958 (from memory).
  * - J. Demmel & K. Veselić, "Jacobi's method is more accurate than QR", SIAM J. Matrix
  *   Anal. Appl. 13(4), 1992 (from memory).
+ * - P. P. M. de Rijk, "A one-sided Jacobi algorithm for computing the singular value
+ *   decomposition on a vector computer", SIAM J. Sci. Stat. Comput. 10(2), 1989 (from memory).
+ * - Z. Drmač & K. Veselić, "New fast and accurate Jacobi SVD algorithm I", SIAM J. Matrix
+ *   Anal. Appl. 29(4), 2008 (from memory).
  * - G. H. Golub & C. F. Van Loan, *Matrix Computations*, 4th ed., 2013, §8.6.4 (from memory).
  * @param a - Matrix, m×n, m, n ≥ 1, finite, any unit.
  * @returns U (m×k), s (descending, length k) [unit of a], V (n×k), k = min(m, n).

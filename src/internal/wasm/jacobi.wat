@@ -19,7 +19,7 @@
 ;; SIAM J. Matrix Anal. Appl. 29(4), 2008, from memory); every sweep starts from freshly
 ;; summed norms. The pivoting (de Rijk, "A one-sided Jacobi algorithm for computing the
 ;; singular value decomposition on a vector computer", SIAM J. Sci. Stat. Comput. 10(2),
-;; 1989, from memory) cuts the sweeps of a random 64 × 64 matrix from 11 to 9. (Hestenes, "Inversion of matrices by biorthogonalization", J. SIAM 6, 1958;
+;; 1989, from memory) cuts the sweeps of random 64 × 64 matrices from 10–11 to 8–9. (Hestenes, "Inversion of matrices by biorthogonalization", J. SIAM 6, 1958;
 ;; the complex rotation as in Drmač, "Implementation of Jacobi rotations for accurate
 ;; singular value computation in floating point arithmetic", SIAM J. Sci. Comput. 18(4),
 ;; 1997, from memory.) The arithmetic is that of the scalar loop of svd.ts, with the sums
