@@ -35,7 +35,7 @@
 (module
   (memory (export "memory") 1)
 
-  ;; x ← c·x − s·(e·y), y ← s·x + c·(e·y) over len16/16 complex entries
+  ;; x ← c·x − s·(e·y), y ← s·x + c·(e·y) over len16/16 complex entries (two entries per pass)
   (func $rotate (param $px i32) (param $py i32) (param $len16 i32)
     (param $c f64) (param $s f64) (param $er f64) (param $ei f64)
     (local $k i32)
@@ -48,8 +48,8 @@
     (local.set $eis (f64x2.replace_lane 0 (f64x2.splat (local.get $ei)) (f64.neg (local.get $ei))))
     (local.set $k (i32.const 0))
     (block $done
-      (loop $entries
-        (br_if $done (i32.ge_u (local.get $k) (local.get $len16)))
+      (loop $pairs
+        (br_if $done (i32.gt_u (i32.add (local.get $k) (i32.const 32)) (local.get $len16)))
         (local.set $x (v128.load (i32.add (local.get $px) (local.get $k))))
         (local.set $y (v128.load (i32.add (local.get $py) (local.get $k))))
         (local.set $h (f64x2.add
@@ -59,8 +59,29 @@
           (f64x2.sub (f64x2.mul (local.get $cv) (local.get $x)) (f64x2.mul (local.get $sv) (local.get $h))))
         (v128.store (i32.add (local.get $py) (local.get $k))
           (f64x2.add (f64x2.mul (local.get $sv) (local.get $x)) (f64x2.mul (local.get $cv) (local.get $h))))
-        (local.set $k (i32.add (local.get $k) (i32.const 16)))
-        (br $entries))))
+        (local.set $x (v128.load offset=16 (i32.add (local.get $px) (local.get $k))))
+        (local.set $y (v128.load offset=16 (i32.add (local.get $py) (local.get $k))))
+        (local.set $h (f64x2.add
+          (f64x2.mul (local.get $y) (local.get $err))
+          (f64x2.mul (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $y) (local.get $y)) (local.get $eis))))
+        (v128.store offset=16 (i32.add (local.get $px) (local.get $k))
+          (f64x2.sub (f64x2.mul (local.get $cv) (local.get $x)) (f64x2.mul (local.get $sv) (local.get $h))))
+        (v128.store offset=16 (i32.add (local.get $py) (local.get $k))
+          (f64x2.add (f64x2.mul (local.get $sv) (local.get $x)) (f64x2.mul (local.get $cv) (local.get $h))))
+        (local.set $k (i32.add (local.get $k) (i32.const 32)))
+        (br $pairs)))
+    (if (i32.lt_u (local.get $k) (local.get $len16))   ;; odd length: the last entry
+      (then
+        (local.set $x (v128.load (i32.add (local.get $px) (local.get $k))))
+        (local.set $y (v128.load (i32.add (local.get $py) (local.get $k))))
+        (local.set $h (f64x2.add
+          (f64x2.mul (local.get $y) (local.get $err))
+          (f64x2.mul (i8x16.shuffle 8 9 10 11 12 13 14 15 0 1 2 3 4 5 6 7 (local.get $y) (local.get $y)) (local.get $eis))))
+        (v128.store (i32.add (local.get $px) (local.get $k))
+          (f64x2.sub (f64x2.mul (local.get $cv) (local.get $x)) (f64x2.mul (local.get $sv) (local.get $h))))
+        (v128.store (i32.add (local.get $py) (local.get $k))
+          (f64x2.add (f64x2.mul (local.get $sv) (local.get $x)) (f64x2.mul (local.get $cv) (local.get $h))))
+      )))
 
   ;; x ↔ y over len16/16 complex entries
   (func $swap (param $px i32) (param $py i32) (param $len16 i32)
